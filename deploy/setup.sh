@@ -1,0 +1,20 @@
+#!/usr/bin/env bash
+# Installs the Debian packages pkad needs to build, run and test; does nothing when all are present.
+set -euo pipefail
+build_pkgs="build-essential cmake pkg-config libopenbabel-dev openbabel libmicrohttpd-dev libcjson-dev"
+test_pkgs="rdkit-data python3-rdkit libopsin-java curl wrk valgrind"
+want="$build_pkgs"
+[ "${1:-}" = "--test" ] && want="$build_pkgs $test_pkgs"
+missing=""
+for p in $want; do
+  dpkg-query -W -f='${Status}' "$p" 2>/dev/null | grep -q "install ok installed" || missing="$missing $p"
+done
+if [ -z "$missing" ]; then
+  echo "setup: all packages present"
+  exit 0
+fi
+echo "setup: installing$missing"
+sudo=""
+[ "$(id -u)" -eq 0 ] || sudo="sudo"
+$sudo apt-get update -qq
+DEBIAN_FRONTEND=noninteractive $sudo apt-get install -y -qq --no-install-recommends $missing

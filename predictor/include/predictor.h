@@ -1,0 +1,180 @@
+/* SPDX-License-Identifier: MIT */
+/* predictor.h: the public API of the pkad predictor library (sites, pKa, ionization, bases). */
+#ifndef PKAD_PREDICTOR_H
+#define PKAD_PREDICTOR_H
+
+#include <stddef.h>
+
+#ifdef __cplusplus
+extern "C" {
+#endif
+
+/* ---- errors -------------------------------------------------------------------------- */
+
+/** Status codes: 0 is success, every failure is negative. pred_status_name() gives the
+ *  stable lower-case name that JSON error objects carry ("invalid_smiles", ...). */
+typedef enum pred_status {
+	PRED_OK = 0,
+	PRED_EINVAL = -1,       /* bad argument or request */
+	PRED_EPARSE = -2,       /* molecule text unreadable */
+	PRED_EDATA = -3,        /* malformed fragment or data file */
+	PRED_ENOMEM = -4,       /* out of memory */
+	PRED_EINTERNAL = -5,    /* impossible state or toolkit failure */
+	PRED_ELIMIT = -6,       /* molecule over a size limit (heavy atoms, length) */
+	PRED_ETIMEOUT = -7,     /* molecule took longer than its time budget */
+	PRED_EUNSUPPORTED = -8  /* element, valence or structure the model cannot handle */
+} pred_status;
+
+/** Caller-owned error detail: code plus a one-line lower-case message. */
+typedef struct pred_error {
+	int code;
+	char msg[256];
+} pred_error;
+
+/** Stable name of a status code ("ok", "invalid_argument", "invalid_smiles", "bad_data",
+ *  "out_of_memory", "internal_error", "too_many_atoms", "timeout", "unsupported_structure").
+ *  Never NULL; unknown codes give "internal_error". Thread-safe. */
+const char *pred_status_name(int code);
+
+/* ---- version ------------------------------------------------------------------------- */
+
+/** pkad version string ("0.1.0"); static storage. Thread-safe. */
+const char *pred_version(void);
+
+/* ---- lifecycle ----------------------------------------------------------------------- */
+
+typedef struct pred_model pred_model;
+typedef struct pred_worker pred_worker;
+
+/** Initialise the chemistry toolkit. Call once from the main thread before any worker is
+ *  created or any other thread starts. Sets the "C" numeric locale. Returns 0 or a PRED_E*. */
+int pred_global_init(pred_error *err);
+
+/** Load the model: fragment tables, substituent constants, fitted parameters, reagent bases.
+ *  dir == NULL uses the copy embedded at build time (or $PKAD_FRAGMENTS when set).
+ *  On failure *out is NULL and err names file:line. The model is read-only after loading
+ *  and may be shared by any number of threads. Free with pred_model_free. */
+int pred_model_load(pred_model **out, const char *dir, pred_error *err);
+void pred_model_free(pred_model *m);
+
+/** Version of the fitted parameters and of the data they were fitted on; borrowed. */
+const char *pred_model_params_version(const pred_model *m);
+const char *pred_model_data_version(const pred_model *m);
+
+/** A worker owns the per-thread toolkit state (one converter). One worker per thread; a
+ *  worker must never be used by two threads at once. Free with pred_worker_free. */
+int pred_worker_new(pred_worker **out, const pred_model *m, pred_error *err);
+void pred_worker_free(pred_worker *w);
+
+/* ---- prediction ---------------------------------------------------------------------- */
+
+typedef enum pred_format { PRED_FMT_SMILES = 0, PRED_FMT_MOLBLOCK = 1 } pred_format;
+
+/** Options of one prediction; pred_options_init fills the defaults. */
+typedef struct pred_options {
+	double ph;           /* pH for the at_ph block; default 7.4; valid -2..16 */
+	int max_heavy_atoms; /* default 200 */
+	double max_seconds;  /* time budget per molecule; default 10 */
+	int curves;          /* nonzero: compute charge and fraction curves over pH 0..14 */
+	double curve_step;   /* pH step of the curves; default 0.25 */
+} pred_options;
+
+void pred_options_init(pred_options *opt);
+
+typedef struct pred_result pred_result;
+
+/** Predict every site of one molecule given as SMILES or as one MDL mol block.
+ *  Returns 0 and *out, or a PRED_E* with *out NULL and err set (PRED_EPARSE for unreadable
+ *  input, PRED_ELIMIT over max_heavy_atoms, PRED_ETIMEOUT, PRED_EUNSUPPORTED).
+ *  A molecule without ionizable sites is a success with zero sites and a note.
+ *  Caller frees with pred_result_free. Thread-safe with one worker per thread. */
+int pred_predict(pred_result **out, pred_worker *w, const char *input, pred_format fmt,
+		 const pred_options *opt, pred_error *err);
+void pred_result_free(pred_result *r);
+
+/* ---- results ------------------------------------------------------------------------- */
+
+typedef enum pred_kind { PRED_ACID = 0, PRED_BASE = 1 } pred_kind;
+
+/** One contribution to a site's pKa: a name ("parent", "hammett", "taft", "resonance",
+ *  "alcohol_class", "ortho", "statistical", "interaction", "generic_substituent", ...),
+ *  a human-readable detail ("4-NO2, sigma_p- 1.27, rho 2.23") and its value in pKa units. */
+typedef struct pred_term {
+	const char *term;
+	const char *detail;
+	double value;
+} pred_term;
+
+/** One ionizable site. kind PRED_ACID: HA -> A- + H+; PRED_BASE: pka is that of the
+ *  conjugate acid BH+. atom is the 0-based index in the input's atom order. The pka is the
+ *  sum of the terms. All pointers are borrowed from the result. */
+typedef struct pred_site {
+	int atom;
+	const char *element;
+	const char *group;      /* site class name, e.g. "phenol", "pyridine" */
+	pred_kind kind;
+	double pka;
+	double uncertainty;     /* about one standard deviation, pKa units */
+	const char *confidence; /* "high", "medium" or "low" */
+	size_t n_terms;
+	const pred_term *terms;
+} pred_site;
+
+/** One microspecies at the requested pH. */
+typedef struct pred_species {
+	const char *smiles; /* with formal charges */
+	double fraction;
+	int charge;
+} pred_species;
+
+/** Curves over pH: n_points values of ph[] and charge[]; fraction[s * n_points + k] is the
+ *  fraction of the species of net charge series_charge[s] at ph[k]. */
+typedef struct pred_curves {
+	size_t n_points;
+	const double *ph;
+	const double *charge;
+	size_t n_series;
+	const int *series_charge;
+	const double *fraction;
+} pred_curves;
+
+/** Canonical SMILES of the normalised structure that was predicted; borrowed. */
+const char *pred_result_smiles(const pred_result *r);
+
+size_t pred_result_site_count(const pred_result *r);
+/** Site i (0 <= i < count), ordered by input atom index; borrowed. */
+const pred_site *pred_result_site(const pred_result *r, size_t i);
+
+/** Warnings: what normalisation changed (salt stripped, tautomer changed, charge
+ *  neutralised) and extrapolations. Notes: plain remarks ("no ionizable site"). Borrowed. */
+size_t pred_result_warning_count(const pred_result *r);
+const char *pred_result_warning(const pred_result *r, size_t i);
+size_t pred_result_note_count(const pred_result *r);
+const char *pred_result_note(const pred_result *r, size_t i);
+
+/** Macroscopic pKa values from the microstate model, ascending. */
+size_t pred_result_macro_count(const pred_result *r);
+double pred_result_macro_pka(const pred_result *r, size_t i);
+
+/** The ionization state at the requested pH: pH, mean net charge, and the microspecies
+ *  above 1% (at least the dominant one), most abundant first. */
+double pred_result_ph(const pred_result *r);
+double pred_result_charge(const pred_result *r);
+size_t pred_result_species_count(const pred_result *r);
+const pred_species *pred_result_species(const pred_result *r, size_t i);
+
+/** Isoelectric point of an ampholyte; returns 0 and sets *out, or -1 when there is none. */
+int pred_result_isoelectric(const pred_result *r, double *out);
+
+/** Nonzero when the site count exceeded the exact limit and a bounded approximation was
+ *  used for the ionization block. */
+int pred_result_ionization_is_approximate(const pred_result *r);
+
+/** Curves, or NULL unless opt->curves was set. Borrowed. */
+const pred_curves *pred_result_curves(const pred_result *r);
+
+#ifdef __cplusplus
+}
+#endif
+
+#endif

@@ -1,0 +1,32 @@
+/* SPDX-License-Identifier: MIT */
+/* ionization.h: microstate model over the predicted sites (macro pKa, species, charge). */
+#ifndef PKAD_IONIZATION_H
+#define PKAD_IONIZATION_H
+
+#include <stddef.h>
+
+#include "model.h"
+#include "obwrap.h"
+#include "result.h"
+
+/* Input of the microstate model. site_mol_atom[i] is the molecule atom index (obw_mol
+ * order) of r->sites[i]; dist is the nat x nat topological distance matrix (bonds; -1 when
+ * not connected). The site pKa values in r->sites are used as microscopic values. */
+typedef struct ion_input {
+	obw_mol *mol;
+	obw_ctx *ctx;
+	const int *site_mol_atom;
+	const int *dist;
+	size_t nat;
+} ion_input;
+
+/* Fills r->macro, r->ph, r->charge, r->species, r->has_pi/pi, r->approximate and, when
+ * opt->curves, r->curves. Returns 0 or a PRED_E* with err set. */
+int ionization_fill(pred_result *r, const pred_model *m, const ion_input *in,
+		    const pred_options *opt, pred_error *err);
+
+/* Charge-interaction energy in pKa units between two unit charges `bonds` bonds apart
+ * (the shift of the second site's pKa when the first is already ionised). */
+double ionization_pair_shift(const pred_model *m, int bonds);
+
+#endif

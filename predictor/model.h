@@ -1,0 +1,97 @@
+/* SPDX-License-Identifier: MIT */
+/* model.h: private types of the loaded model shared by the files of predictor/. */
+#ifndef PKAD_MODEL_H
+#define PKAD_MODEL_H
+
+#include <stddef.h>
+
+#include "predictor.h"
+
+/* One numeric parameter of the model. Every number that `pkad fit` may refine is one of
+ * these; the tables refer to parameters by index. */
+typedef struct pred_param {
+	char id[96];     /* "<site id>.parent", "<site id>.rho", "corr.<id>", "global.falloff" */
+	double value;    /* in force (fitted when params.tsv has the row, else the table's) */
+	double prior;    /* the published / table value */
+	double prior_sd; /* ridge prior width; 0 = fixed, not fitted */
+	int n;           /* training rows that informed it (0 = not fitted) */
+	double rmse_cv;  /* cross-validated rmse of the class, 0 when unknown */
+} pred_param;
+
+typedef enum { SIGMA_PLAIN = 0, SIGMA_MINUS = 1, SIGMA_PLUS = 2 } sigma_scale;
+
+typedef struct frag_site {
+	char id[64];
+	pred_kind kind;
+	char group[48];
+	char *smarts;
+	int centre;
+	int p_parent, p_rho, p_rho_star; /* parameter indices */
+	sigma_scale sigma_para;
+	double unc;
+	char *source;
+} frag_site;
+
+typedef struct frag_subst {
+	char id[48];
+	char *smarts;
+	double sigma_m, sigma_p, sigma_p_minus, sigma_p_plus, sigma_star, sigma_i;
+	int transparent;
+	char *source;
+} frag_subst;
+
+typedef struct frag_corr {
+	char id[64];
+	char term[32];
+	char *sites; /* comma list of site ids / groups, "*" = all */
+	char *smarts;
+	int p_value;
+	double unc;
+	char *source;
+} frag_corr;
+
+/* Reagent bases for base matching (fragments/bases.tsv). */
+typedef struct frag_base {
+	char *name, *aliases, *conjugate_acid, *conj_smiles, *scale, *byproduct, *hazards, *source;
+	double pka;
+	int organometallic; /* quenched by any free OH / NH */
+} frag_base;
+
+struct pred_model {
+	pred_param *params;
+	size_t n_params;
+	frag_site *sites;
+	size_t n_sites;
+	frag_subst *substs;
+	size_t n_substs;
+	frag_corr *corrs;
+	size_t n_corrs;
+	frag_base *bases;
+	size_t n_bases;
+	char params_version[128];
+	char data_version[128];
+	/* global parameter indices */
+	int p_falloff;      /* attenuation per intervening bond of the Taft walk */
+	int p_interaction;  /* charge-interaction scale (pKa units at distance 1) */
+	int p_interaction_decay; /* per-bond decay of the charge interaction */
+};
+
+/* Index of the parameter with this id, or -1. */
+int model_param_find(const pred_model *m, const char *id);
+/* Adds a parameter (or returns the existing one's index); -1 on allocation failure. */
+int model_param_add(pred_model *m, const char *id, double value, double prior_sd);
+
+/* Design row of one predicted site, for `pkad fit`: the site's pKa equals
+ * sum_k feature[k] * param_value[param[k]] + constant. Terms that no parameter scales
+ * (interaction, statistical, generic estimates) are folded into the constant. */
+typedef struct pred_design {
+	size_t n;
+	const int *param;
+	const double *feature;
+	double constant;
+} pred_design;
+
+/* Design of site i of a result; borrowed. */
+void pred_result_design(const pred_result *r, size_t i, pred_design *out);
+
+#endif

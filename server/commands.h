@@ -1,0 +1,10 @@
+/* SPDX-License-Identifier: MIT */
+/* commands.h: the pkad subcommands that main.c dispatches. */
+#ifndef PKAD_COMMANDS_H
+#define PKAD_COMMANDS_H
+
+/* Each returns the process exit status: 0 success, 1 failure, 2 usage error.
+ * argv[0] is the subcommand name. */
+int cmd_predict(int argc, char **argv);
+
+#endif
