@@ -1,6 +1,7 @@
 /* SPDX-License-Identifier: MIT */
 /* obwrap.cpp: the thin Open Babel wrapper behind obwrap.h; the only C++ in pkad. */
 #include "obwrap.h"
+#include "smiles_check.h"
 
 #include <openbabel/atom.h>
 #include <openbabel/bond.h>
@@ -241,112 +242,6 @@ static void fold_hydrogens(obw_mol *m)
 	m->orig.swap(orig);
 }
 
-/* ---- SMILES checks Open Babel does not make ------------------------------------------- */
-
-/* Open Babel accepts "C(C" and "CC=" silently; these checks catch what its parser lets
- * through. Returns 0 or writes the problem into msg and returns E_PARSE. */
-static bool is_bond_char(char ch)
-{
-	return strchr("-=#$:/\\~", ch) != nullptr;
-}
-
-static bool is_organic_start(const char *s)
-{
-	return strchr("BCNOPSFIbcnops*", s[0]) != nullptr;
-}
-
-static int scan_fail(char *msg, size_t msgn, const char *what, size_t pos)
-{
-	set_msg(msg, msgn, "%s at position %zu", what, pos + 1);
-	return E_PARSE;
-}
-
-/* Skips a ring-closure label (digit or %nn) at s[i]; returns its length, 0 if none. */
-static size_t ring_label(const std::string &s, size_t i)
-{
-	if (isdigit((unsigned char)s[i]))
-		return 1;
-	if (s[i] == '%' && i + 2 < s.size() && isdigit((unsigned char)s[i + 1]) &&
-	    isdigit((unsigned char)s[i + 2]))
-		return 3;
-	return 0;
-}
-
-enum scan_last { L_START, L_ATOM, L_BOND, L_OPEN, L_DOT };
-
-/* Classifies the token at s[i]: 'a' atom, 'r' ring label, or the character itself; sets
- * *len to the token length (0: not a SMILES token). */
-static char scan_token(const std::string &s, size_t i, size_t *len)
-{
-	*len = 1;
-	if (s[i] == '[') {
-		size_t close = s.find(']', i);
-		*len = close == std::string::npos ? 0 : close - i + 1;
-		return 'a';
-	}
-	if ((*len = ring_label(s, i)))
-		return 'r';
-	*len = 1;
-	if (s.compare(i, 2, "Cl") == 0 || s.compare(i, 2, "Br") == 0)
-		*len = 2;
-	if (is_organic_start(&s[i]))
-		return 'a';
-	if (is_bond_char(s[i]))
-		return '-';
-	if (!strchr("().", s[i]))
-		*len = 0;
-	return s[i];
-}
-
-static int scan_smiles(const std::string &s, char *msg, size_t msgn)
-{
-	int depth = 0, last = L_START;
-	for (size_t i = 0, len = 0; i < s.size(); i += len) {
-		char t = scan_token(s, i, &len);
-		if (!len && s[i] == '[')
-			return scan_fail(msg, msgn, "unclosed '['", i);
-		if (!len)
-			return scan_fail(msg, msgn, (std::string("unexpected character '") + s[i] + "'").c_str(), i);
-		bool after_atom = last == L_ATOM;
-		if (t == 'r' && !after_atom && last != L_BOND)
-			return scan_fail(msg, msgn, "ring bond without an atom", i);
-		if ((t == '(' || t == ')' || t == '.') && !after_atom)
-			return scan_fail(msg, msgn, "misplaced branch, dot or bond", i);
-		if (t == '-' && !after_atom && last != L_OPEN)
-			return scan_fail(msg, msgn, "bond without an atom before it", i);
-		if (t == ')' && depth == 0)
-			return scan_fail(msg, msgn, "unbalanced ')'", i);
-		depth += t == '(' ? 1 : t == ')' ? -1 : 0;
-		last = t == '(' ? L_OPEN : t == '-' ? L_BOND : t == '.' ? L_DOT : L_ATOM;
-	}
-	if (depth > 0)
-		return scan_fail(msg, msgn, "unclosed '('", s.size() - 1);
-	if (last != L_ATOM)
-		return scan_fail(msg, msgn, "smiles ends with a bond, branch or dot", s.size() - 1);
-	return 0;
-}
-
-/* Lower-case (aromatic) atoms written in the text, inside and outside brackets. */
-static int written_aromatic(const std::string &s)
-{
-	int n = 0;
-	for (size_t i = 0; i < s.size(); i++) {
-		if (s[i] == '[') {
-			size_t j = i + 1;
-			while (j < s.size() && isdigit((unsigned char)s[j]))
-				j++;
-			if (j < s.size() && islower((unsigned char)s[j]))
-				n++;
-			i = s.find(']', i);
-			if (i == std::string::npos)
-				break;
-		} else if (strchr("bcnops", s[i])) {
-			n++;
-		}
-	}
-	return n;
-}
-
 /* ---- lifecycle ------------------------------------------------------------------------ */
 
 static int warm_up(char *msg, size_t msgn);
@@ -419,7 +314,7 @@ static int parse_smiles(obw_mol *m, obw_ctx *c, const char *text, char *msg, siz
 		return E_PARSE;
 	}
 	char why[160] = "";
-	if (scan_smiles(smi, why, sizeof why)) {
+	if (obw_smiles_check(smi.data(), smi.size(), why, sizeof why)) {
 		set_msg(msg, msgn, "invalid smiles '%s': %s", excerpt(smi).c_str(), why);
 		return E_PARSE;
 	}
@@ -431,7 +326,7 @@ static int parse_smiles(obw_mol *m, obw_ctx *c, const char *text, char *msg, siz
 	int arom = 0;
 	FOR_ATOMS_OF_MOL (a, m->mol)
 		arom += a->IsAromatic() ? 1 : 0;
-	if (arom < written_aromatic(smi)) {
+	if (arom < obw_smiles_aromatic_count(smi.data(), smi.size())) {
 		set_msg(msg, msgn, "cannot kekulize the aromatic atoms of '%s'", excerpt(smi).c_str());
 		return E_PARSE;
 	}
