@@ -70,9 +70,26 @@ static const char *misplaced(char t, int last, int depth)
 	return NULL;
 }
 
+static int ring_number(const char *s, size_t i)
+{
+	if (s[i] != '%')
+		return s[i] - '0';
+	return (s[i + 1] - '0') * 10 + (s[i + 2] - '0');
+}
+
+/* Ring-closure labels still open at the end: the first one, or -1. */
+static int open_ring(const unsigned char *open)
+{
+	for (int k = 0; k < 100; k++)
+		if (open[k])
+			return k;
+	return -1;
+}
+
 int obw_smiles_check(const char *s, size_t n, char *why, size_t whyn)
 {
 	int depth = 0, last = L_START;
+	unsigned char open[100] = {0};
 	size_t len = 0;
 	for (size_t i = 0; i < n; i += len) {
 		char t = token(s, n, i, &len);
@@ -82,11 +99,18 @@ int obw_smiles_check(const char *s, size_t n, char *why, size_t whyn)
 		const char *bad = misplaced(t, last, depth);
 		if (bad)
 			return fail(why, whyn, bad, t == 'r' || t == '-' ? 0 : t, i);
+		if (t == 'r')
+			open[ring_number(s, i)] ^= 1;
 		depth += t == '(' ? 1 : t == ')' ? -1 : 0;
 		last = t == '(' ? L_OPEN : t == '-' ? L_BOND : t == '.' ? L_DOT : L_ATOM;
 	}
 	if (depth > 0)
 		return fail(why, whyn, "unclosed", '(', n - 1);
+	if (open_ring(open) >= 0) {
+		if (why && whyn)
+			snprintf(why, whyn, "ring bond %d is never closed", open_ring(open));
+		return -2;
+	}
 	if (last != L_ATOM)
 		return fail(why, whyn, "smiles ends with a bond, branch or dot", 0, n ? n - 1 : 0);
 	return 0;
