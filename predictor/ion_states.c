@@ -34,12 +34,12 @@ static int site_bonds(const ion_input *in, size_t i, size_t j)
  * decide the species there); ties keep input order. Both lists end up in site order. */
 static void choose_cluster(ion_work *w, double ph)
 {
-	const pred_site *s = w->r->sites;
+	const double *pk = w->pka;
 	int *order = w->ex; /* borrowed as scratch before it is filled */
 	for (size_t i = 0; i < w->n; i++)
 		order[i] = (int)i;
 	for (size_t i = 1; i < w->n; i++)
-		for (size_t j = i; j > 0 && fabs(s[order[j]].pka - ph) < fabs(s[order[j - 1]].pka - ph);
+		for (size_t j = i; j > 0 && fabs(pk[order[j]] - ph) < fabs(pk[order[j - 1]] - ph);
 		     j--) {
 			int t = order[j];
 			order[j] = order[j - 1];
@@ -65,13 +65,13 @@ static void enumerate(ion_work *w)
 		double lw = 0;
 		int nrem = 0, q = 0;
 		for (size_t c = 0; c < w->nc; c++) {
-			const pred_site *site = &st[w->cl[c]];
+			double pka = w->pka[w->cl[c]];
 			int on = (int)((s >> c) & 1u);
-			if (site->kind == PRED_ACID) {
-				lw -= on ? site->pka : 0;
+			if (st[w->cl[c]].kind == PRED_ACID) {
+				lw -= on ? pka : 0;
 				nrem += on;
 			} else {
-				lw += on ? site->pka : 0;
+				lw += on ? pka : 0;
 				nrem += !on;
 			}
 			q += on ? w->q_on[w->cl[c]] : 0;
@@ -129,6 +129,16 @@ int ion_work_init(ion_work *w, pred_result *r, const pred_model *m, const ion_in
 	w->ns = (size_t)1 << w->nc;
 	if (alloc_all(w, r))
 		return PRED_ENOMEM;
+	if (r->micro) {
+		w->pka = r->micro;
+	} else {
+		double *pk = res_alloc(r, w->n * sizeof *pk + 1);
+		if (!pk)
+			return PRED_ENOMEM;
+		for (size_t i = 0; i < w->n; i++)
+			pk[i] = r->sites[i].pka;
+		w->pka = pk;
+	}
 	for (size_t i = 0; i < w->n; i++) {
 		w->q_on[i] = r->sites[i].kind == PRED_ACID ? -1 : 1;
 		for (size_t j = 0; j < w->n; j++)
@@ -156,7 +166,7 @@ static void eval_extras(ion_work *w, double ph)
 	for (int sweep = 0; sweep < 8; sweep++)
 		for (size_t x = 0; x < w->nx; x++) {
 			int i = w->ex[x];
-			double eff = w->r->sites[i].pka - field_on(w, i);
+			double eff = w->pka[i] - field_on(w, i);
 			double lg = w->q_on[i] < 0 ? ph - eff : eff - ph;
 			w->xp[x] = 1.0 / (1.0 + pow(10.0, -lg));
 			w->qbar[i] = w->q_on[i] * w->xp[x];
@@ -226,6 +236,6 @@ void ion_work_macro(ion_work *w, double ph, double *out)
 		out[k - 1] = P[k - 1] - P[k];
 	ion_work_eval(w, ph);
 	for (size_t x = 0; x < w->nx; x++)
-		out[w->nc + x] = w->r->sites[w->ex[x]].pka - field_on(w, w->ex[x]);
+		out[w->nc + x] = w->pka[w->ex[x]] - field_on(w, w->ex[x]);
 	qsort(out, w->n, sizeof *out, cmp_double);
 }

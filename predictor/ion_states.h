@@ -18,6 +18,7 @@
 typedef struct ion_work {
 	const pred_result *r;
 	size_t n;        /* all sites */
+	const double *pka; /* micro pKa per site: r->micro, or the site values */
 	double *W;       /* n x n pair shifts, pKa units, 0 on the diagonal */
 	int *q_on;       /* per site: charge of the charged form, -1 acid, +1 base */
 	int fixed;       /* formal charge outside the sites (quaternary N, ...) */

@@ -10,7 +10,7 @@
  * tests/tools/fit_interaction.py on 69 symmetric diacids and diamines of the shared
  * reference data (handbook tables, IUPAC digitized dataset), see fragments/params.tsv. */
 #define ION_INTERACTION_DEFAULT 5.96
-#define ION_DECAY_DEFAULT 0.66
+#define ION_DECAY_DEFAULT 0.42
 
 #define ION_PH_MIN (-2.0)
 #define ION_PH_MAX 16.0
@@ -33,7 +33,8 @@ double ionization_pair_shift(const pred_model *m, int bonds)
 			       ION_INTERACTION_DEFAULT);
 	double decay = param_value(m, m ? m->p_interaction_decay : -1,
 				   "global.interaction_decay", ION_DECAY_DEFAULT);
-	return a * pow(decay, bonds - 1);
+	/* W(d) = A exp(-k (d - 1)), the form fragment_table.c documents for these parameters */
+	return a * exp(-decay * (bonds - 1));
 }
 
 static int set_err(pred_error *err, int code, const char *msg)

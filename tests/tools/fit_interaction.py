@@ -7,7 +7,7 @@
 # (data/handbook-acids.csv, handbook-bases.csv, iupac-pka.csv). For two equivalent sites with
 # micro value p and interaction W, the exact two-site model gives pKa1 = p - log10(2) and
 # pKa2 = p + W + log10(2), so W = pKa2 - pKa1 - 2 log10(2) (common practice: Adams 1916,
-# Bjerrum 1923 treatment of symmetric diacids). W(d) = interaction * decay^(d - 1), d = bonds
+# Bjerrum 1923 treatment of symmetric diacids). W(d) = interaction * exp(-decay (d - 1)), d = bonds
 # between the site atoms; fitted by least squares on W (grid search, no dependency beyond RDKit).
 # Usage: fit_interaction.py DATA_DIR   (prints the rows and the params.tsv lines)
 import csv, math, sys
@@ -85,6 +85,7 @@ def main():
     for d in range(1, 9):
         print(f"# W({d}) = {a * r ** (d - 1):.2f}")
     print(f"global.interaction\t{a:.2f}")
-    print(f"global.interaction_decay\t{r:.2f}")
+    # params.tsv form: W(d) = interaction * exp(-decay * (d - 1))
+    print(f"global.interaction_decay\t{-math.log(r):.2f}")
 
 main()
