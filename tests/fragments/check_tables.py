@@ -65,7 +65,7 @@ ANY_KIND = {"amino_acid_zwitterion"}
 # handbook rows the tables knowingly do not answer as the handbook labels them, with the reason
 KNOWN_GAPS = {
     ("creatinine", "amidine"): "acylguanidine in a ring: perceived as guanidine (N-acyl term)",
-}
+}  # tests/predictor/test_handbook.c also lists rows whose predicted step order differs
 SOURCE_WORDS = re.compile(r"from memory|common practice|estimate|IUPAC|HLT1991|Taft|PDS1981|"
                           r"Perrin|Serjeant|Hammett|csv|Clark|DEVELOPERS|attenuation", re.I)
 
