@@ -351,9 +351,19 @@ static int parse_smiles(obw_mol *m, obw_ctx *c, const char *text, char *msg, siz
 	return 0;
 }
 
+/* The MDL reader calls the global OBLocale's SetLocale/RestoreLocale on every record, and
+ * two threads doing that race on its saved-locale string (ThreadSanitizer, see
+ * test_obwrap_threads). Mol-block reads are therefore serialised; SMILES reads are not. */
+static std::mutex molblock_lock;
+
 static int parse_molblock(obw_mol *m, obw_ctx *c, const char *text, char *msg, size_t msgn)
 {
-	if (read_with(c, c->sdf, text, m->mol) || m->mol.NumAtoms() == 0) {
+	int rc;
+	{
+		std::lock_guard<std::mutex> hold(molblock_lock);
+		rc = read_with(c, c->sdf, text, m->mol);
+	}
+	if (rc || m->mol.NumAtoms() == 0) {
 		set_msg(msg, msgn, "cannot read mol block (bad counts line or atom block)");
 		return E_PARSE;
 	}
