@@ -115,10 +115,11 @@ static int find_azine(const graph *g, int o, int c1, shift *s)
 	return 0;
 }
 
-/* Whether a neighbour of c1 or c2 (other than o, c1, c2) carries a double or triple bond to
- * N, O or S: a carbonyl, imine, nitrile, nitro or sulfonyl conjugated with the C=C, which
- * keeps 1,3-dicarbonyl enols and reductones (ascorbic acid) as drawn. */
-static int conjugated_acceptor(const graph *g, int o, int c1, int c2)
+/* Whether a neighbour of c1 or c2 (other than o, c1, c2) carries a non-aromatic double or
+ * triple bond: a carbonyl, imine, nitrile, nitro, sulfonyl or C=C conjugated with the enol,
+ * which keeps 1,3-dicarbonyl enols, hydroxyquinones and reductones (ascorbic acid) as
+ * drawn (DESIGN.md: conjugation keeps the enol). */
+static int conjugated(const graph *g, int o, int c1, int c2)
 {
 	for (size_t i = 0; i < g->nb; i++) {
 		int x = g->b[i].a, y = g->b[i].b;
@@ -129,21 +130,20 @@ static int conjugated_acceptor(const graph *g, int o, int c1, int c2)
 			continue;
 		for (size_t k = 0; k < g->nb; k++) {
 			int p = g->b[k].a == nb ? g->b[k].b : g->b[k].b == nb ? g->b[k].a : -1;
-			int z = p >= 0 ? g->a[p].element : 0;
-			if (p != c1 && p != c2 && g->b[k].order >= 2 && (z == 7 || z == 8 || z == 16))
+			if (p >= 0 && p != c1 && p != c2 && g->b[k].order >= 2 && !g->b[k].aromatic)
 				return 1;
 		}
 	}
 	return 0;
 }
 
-/* HO-C=C, neither carbon aromatic, no conjugated acceptor: 1,3 shift to the carbon. */
+/* HO-C=C, neither carbon aromatic, not conjugated: 1,3 shift to the carbon. */
 static int find_enol(const graph *g, int o, int c1, shift *s)
 {
 	if (g->a[o].element != 8 || g->a[c1].aromatic)
 		return 0;
 	for (int k = 0, c2; (c2 = nbr(g, c1, 2, k)) >= 0; k++) {
-		if (!neutral(g, c2, 6) || g->a[c2].aromatic || conjugated_acceptor(g, o, c1, c2))
+		if (!neutral(g, c2, 6) || g->a[c2].aromatic || conjugated(g, o, c1, c2))
 			continue;
 		*s = (shift){SHIFT_ENOL, {o, c1, c2, 0, 0}, 3};
 		return 1;

@@ -8,9 +8,10 @@
 /** Moves H and bond orders only (no atom added or removed, so atom indices and orig_index
  *  stay): hydroxy-azines (2-/4-hydroxypyridine type, hydroxypyrimidines, 2-/4-quinolinols)
  *  and iminols HO-C=N become lactams and amides (the same for SH: thiones); simple enols
- *  HO-C=C become the keto form unless the C=C is conjugated with an acceptor (1,3-dicarbonyl
- *  enols, reductones such as ascorbic acid) or aromatic (phenols). Each change is reported
- *  as "input tautomer changed: ...". Returns 0 or a PRED_E* code with err set. */
+ *  HO-C=C become the keto form unless the C=C is conjugated with a non-aromatic pi bond
+ *  (1,3-dicarbonyl enols, hydroxyquinones, reductones such as ascorbic acid) or aromatic
+ *  (phenols). Each change is reported as "input tautomer changed: ...". Returns 0 or a
+ *  PRED_E* code with err set. */
 int taut_standardise(obw_mol *m, norm_report *rep, pred_error *err);
 
 #endif
