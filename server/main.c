@@ -14,6 +14,7 @@ typedef struct command {
 
 static const command commands[] = {
 	{"predict", cmd_predict, "predict the pKa of every site of SMILES or SD records"},
+	{"serve", cmd_serve, "run the HTTP/JSON daemon"},
 };
 
 static void usage(FILE *f)
