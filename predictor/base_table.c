@@ -12,9 +12,9 @@
 
 static const char *const columns[] = {"name", "aliases", "conjugate_acid",
 				      "conjugate_acid_smiles", "pka", "scale", "pka_dmso",
-				      "organometallic", "byproduct", "hazards", "source"};
+				      "organometallic", "byproduct", "escapes", "hazards", "source"};
 enum { C_NAME, C_ALIASES, C_ACID, C_ACID_SMILES, C_PKA, C_SCALE, C_DMSO, C_ORGMET, C_BYPRODUCT,
-       C_HAZARDS, C_SOURCE, N_COLUMNS };
+       C_ESCAPES, C_HAZARDS, C_SOURCE, N_COLUMNS };
 
 static const char *const scales[] = {"water", "dmso", "thf", "estimate"};
 
@@ -102,10 +102,13 @@ static int check_row(const tsv_table *t, const tsv_row *row, pred_error *err)
 	for (size_t i = 0; i < sizeof cols / sizeof cols[0]; i++)
 		if (!row->fields[cols[i]][0])
 			return tsv_fail(err, PRED_EDATA, t, row->line, "empty %s", required[i]);
-	const char *om = row->fields[C_ORGMET];
-	if (strcmp(om, "0") && strcmp(om, "1"))
-		return tsv_fail(err, PRED_EDATA, t, row->line, "organometallic '%s' is not 0 or 1",
-				om);
+	const int flags[] = {C_ORGMET, C_ESCAPES};
+	for (size_t i = 0; i < 2; i++) {
+		const char *v = row->fields[flags[i]];
+		if (strcmp(v, "0") && strcmp(v, "1"))
+			return tsv_fail(err, PRED_EDATA, t, row->line, "%s '%s' is not 0 or 1",
+					columns[flags[i]], v);
+	}
 	return check_scale(t, row, err);
 }
 
@@ -151,6 +154,7 @@ static int add_base(pred_model *m, const tsv_table *t, const tsv_row *row, doubl
 	b->pka = pka;
 	b->pka_dmso = dmso;
 	b->organometallic = row->fields[C_ORGMET][0] == '1';
+	b->escapes = row->fields[C_ESCAPES][0] == '1';
 	for (size_t i = 0; i < sizeof src / sizeof src[0]; i++)
 		if (!(*dst[i] = strdup(row->fields[src[i]])))
 			return tsv_fail(err, PRED_ENOMEM, t, row->line, "out of memory");

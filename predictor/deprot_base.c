@@ -1,0 +1,161 @@
+/* SPDX-License-Identifier: MIT */
+/* deprot_base.c: the base of a base-matching request, from the table or as a predicted SMILES. */
+#include <math.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "base_table.h"
+#include "deprotonate.h"
+
+static int fail(pred_error *err, int code, const char *msg)
+{
+	if (err) {
+		err->code = code;
+		snprintf(err->msg, sizeof err->msg, "%s", msg);
+	}
+	return code;
+}
+
+/* "unknown base 'x'; known: NaHCO3, Na2CO3, ..." with the first alias (short) of each. */
+static int unknown_base(const pred_model *m, const char *base, pred_error *err)
+{
+	char msg[sizeof err->msg];
+	int n = snprintf(msg, sizeof msg, "unknown base '%.40s'; known:", base);
+	for (size_t i = 0; i < m->n_bases && n > 0 && (size_t)n < sizeof msg; i++) {
+		const char *a = m->bases[i].aliases, *nm = a && *a ? a : m->bases[i].name;
+		size_t len = strcspn(nm, ",");
+		n += snprintf(msg + n, sizeof msg - (size_t)n, "%s %.*s", i ? "," : "", (int)len, nm);
+	}
+	return fail(err, PRED_EINVAL, msg);
+}
+
+static int split_hazards(pred_deprotonation *d, const char *hazards)
+{
+	for (const char *p = hazards; *p;) {
+		p += strspn(p, " ");
+		size_t len = strcspn(p, ";");
+		while (len && p[len - 1] == ' ')
+			len--;
+		if (len && deprot_caution(d, "%.*s", (int)len, p))
+			return PRED_ENOMEM;
+		p += strcspn(p, ";");
+		p += *p == ';';
+	}
+	return 0;
+}
+
+static int from_table(pred_deprotonation *d, const frag_base *b)
+{
+	pred_result *r = d->sub;
+	d->base = res_strdup(r, b->name);
+	d->conj_acid = res_printf(r, "%s (%s)", b->conjugate_acid, b->conj_smiles);
+	d->scale = res_strdup(r, b->scale);
+	d->byproduct = res_strdup(r, b->byproduct);
+	d->base_pka = b->pka;
+	d->organometallic = b->organometallic;
+	d->escapes = b->escapes;
+	if (!d->base || !d->conj_acid || !d->scale || !d->byproduct)
+		return PRED_ENOMEM;
+	return split_hazards(d, b->hazards);
+}
+
+/* Input index of an anionic centre (negative atom with no positive neighbour: not the O of
+ * a nitro group or an N-oxide), or -1 for a neutral base. */
+static int anionic_centre(const obw_mol *mol)
+{
+	const obw_atom *at;
+	const obw_bond *bd;
+	size_t nat = obw_mol_atoms(mol, &at), nb = obw_mol_bonds(mol, &bd);
+	for (size_t i = 0; i < nat; i++) {
+		int balanced = 0;
+		for (size_t k = 0; at[i].charge < 0 && k < nb; k++) {
+			int o = bd[k].a == (int)i ? bd[k].b : bd[k].b == (int)i ? bd[k].a : -1;
+			balanced |= o >= 0 && at[o].charge > 0;
+		}
+		if (at[i].charge < 0 && !balanced)
+			return at[i].orig_index;
+	}
+	return -1;
+}
+
+/* The site that takes the proton: the acid site at the anionic centre (its conjugate acid
+ * is the neutral form the engine predicted), else the most basic base site. */
+static const pred_site *proton_site(const pred_result *br, int centre)
+{
+	const pred_site *best = NULL;
+	for (size_t i = 0; i < pred_result_site_count(br); i++) {
+		const pred_site *s = pred_result_site(br, i);
+		if (centre >= 0 && s->kind == PRED_ACID && s->atom == centre)
+			return s;
+		if (centre < 0 && s->kind == PRED_BASE && (!best || s->pka > best->pka))
+			best = s;
+	}
+	return best;
+}
+
+static int from_smiles_sites(pred_deprotonation *d, const pred_result *br, int centre,
+			     const char *smiles, pred_error *err)
+{
+	pred_result *r = d->sub;
+	const pred_site *s = proton_site(br, centre);
+	if (!s) {
+		char msg[200];
+		snprintf(msg, sizeof msg, "base '%.60s' has no site that takes a proton", smiles);
+		return fail(err, PRED_EINVAL, msg);
+	}
+	d->base_pka = s->pka;
+	d->base = res_strdup(r, smiles);
+	d->scale = res_strdup(r, "water");
+	d->conj_acid = res_printf(r, "conjugate acid of %s at atom %d (%s, predicted pKa %.2f)",
+				  smiles, s->atom, s->group, s->pka);
+	d->byproduct = res_printf(r, "the conjugate acid of %s (protonated at atom %d)", smiles,
+				  s->atom);
+	d->predicted = 1;
+	if (!d->base || !d->scale || !d->conj_acid || !d->byproduct)
+		return PRED_ENOMEM;
+	return deprot_caution(d, "no hazard data for a base given as SMILES: read its safety "
+				 "data sheet");
+}
+
+static int from_smiles(pred_deprotonation *d, pred_worker *w, const char *smiles,
+		       const pred_options *opt, pred_error *err)
+{
+	pred_result *br = NULL;
+	obw_mol *mol = NULL;
+	char msg[200] = "";
+	int rc = pred_predict(&br, w, smiles, PRED_FMT_SMILES, opt, err);
+	if (rc == PRED_EPARSE)
+		rc = unknown_base(w->m, smiles, err);
+	if (!rc && (rc = obw_mol_parse(&mol, w->ctx, smiles, OBW_SMILES, msg, sizeof msg)))
+		rc = fail(err, rc, msg);
+	if (!rc)
+		rc = from_smiles_sites(d, br, anionic_centre(mol), smiles, err);
+	obw_mol_free(mol);
+	pred_result_free(br);
+	return rc;
+}
+
+int deprot_resolve_base(pred_deprotonation *d, pred_worker *w, const char *base,
+			const pred_options *opt, pred_error *err)
+{
+	int k = base_table_find(w->m, base);
+	if (k >= 0)
+		return from_table(d, &w->m->bases[k]) ? fail(err, PRED_ENOMEM, "out of memory") : 0;
+	return from_smiles(d, w, base, opt, err);
+}
+
+int deprot_free_oh_nh(int *out, size_t max, pred_worker *w, const char *smiles)
+{
+	obw_mol *mol = NULL;
+	const obw_atom *at;
+	int rc = obw_mol_parse(&mol, w->ctx, smiles, OBW_SMILES, NULL, 0);
+	if (rc)
+		return rc;
+	size_t nat = obw_mol_atoms(mol, &at), n = 0;
+	for (size_t i = 0; i < nat; i++)
+		if ((at[i].element == 7 || at[i].element == 8) && at[i].hcount > 0 && n < max)
+			out[n++] = at[i].orig_index;
+	obw_mol_free(mol);
+	return (int)n;
+}
