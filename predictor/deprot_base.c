@@ -60,8 +60,8 @@ static int from_table(pred_deprotonation *d, const frag_base *b)
 	return split_hazards(d, b->hazards);
 }
 
-/* Input index of an anionic centre (negative atom with no positive neighbour: not the O of
- * a nitro group or an N-oxide), or -1 for a neutral base. */
+/* Molecule index of an anionic centre (negative atom with no positive neighbour: not the O
+ * of a nitro group or an N-oxide), or -1 for a neutral base. */
 static int anionic_centre(const obw_mol *mol)
 {
 	const obw_atom *at;
@@ -74,43 +74,69 @@ static int anionic_centre(const obw_mol *mol)
 			balanced |= o >= 0 && at[o].charge > 0;
 		}
 		if (at[i].charge < 0 && !balanced)
-			return at[i].orig_index;
+			return (int)i;
 	}
 	return -1;
 }
 
-/* The site that takes the proton: the acid site at the anionic centre (its conjugate acid
- * is the neutral form the engine predicted), else the most basic base site. */
-static const pred_site *proton_site(const pred_result *br, int centre)
+/* The strongest conjugate-acid site: for an anionic base the weakest acid site of its
+ * protonated form, for a neutral base its most basic site. */
+static const pred_site *proton_site(const pred_result *br, pred_kind kind)
 {
 	const pred_site *best = NULL;
 	for (size_t i = 0; i < pred_result_site_count(br); i++) {
 		const pred_site *s = pred_result_site(br, i);
-		if (centre >= 0 && s->kind == PRED_ACID && s->atom == centre)
-			return s;
-		if (centre < 0 && s->kind == PRED_BASE && (!best || s->pka > best->pka))
+		if (s->kind == kind && (!best || s->pka > best->pka))
 			best = s;
 	}
 	return best;
 }
 
-static int from_smiles_sites(pred_deprotonation *d, const pred_result *br, int centre,
-			     const char *smiles, pred_error *err)
+/* Adds one proton at molecule atom a (keeping only a's fragment, which drops counter-ions
+ * such as Na+) and returns the canonical SMILES of that conjugate acid, malloc'd. */
+static char *protonated(obw_mol *mol, obw_ctx *ctx, int a, char *msg, size_t msgn)
+{
+	const obw_atom *at;
+	size_t nat = obw_mol_atoms(mol, &at);
+	int *comp = calloc(nat + 1, sizeof *comp);
+	unsigned char *keep = calloc(nat + 1, 1);
+	char *out = NULL;
+	int rc = comp && keep ? obw_mol_set_atom(mol, a, at[a].charge + 1, at[a].hcount + 1)
+			      : PRED_ENOMEM;
+	if (!rc) {
+		obw_mol_components(mol, comp, nat);
+		for (size_t i = 0; i < nat; i++)
+			keep[i] = comp[i] == comp[a];
+		rc = obw_mol_keep_atoms(mol, keep, nat, msg, msgn);
+	}
+	if (!rc)
+		rc = obw_mol_refresh(mol, msg, msgn);
+	if (!rc)
+		out = obw_mol_canonical(mol, ctx, msg, msgn);
+	free(comp);
+	free(keep);
+	return out;
+}
+
+static int mol_index(const obw_mol *mol, int orig)
+{
+	const obw_atom *at;
+	size_t nat = obw_mol_atoms(mol, &at);
+	for (size_t i = 0; i < nat; i++)
+		if (at[i].orig_index == orig)
+			return (int)i;
+	return -1;
+}
+
+static int set_predicted(pred_deprotonation *d, const char *smiles, const pred_site *s,
+			 const char *conj)
 {
 	pred_result *r = d->sub;
-	const pred_site *s = proton_site(br, centre);
-	if (!s) {
-		char msg[200];
-		snprintf(msg, sizeof msg, "base '%.60s' has no site that takes a proton", smiles);
-		return fail(err, PRED_EINVAL, msg);
-	}
 	d->base_pka = s->pka;
 	d->base = res_strdup(r, smiles);
 	d->scale = res_strdup(r, "water");
-	d->conj_acid = res_printf(r, "conjugate acid of %s at atom %d (%s, predicted pKa %.2f)",
-				  smiles, s->atom, s->group, s->pka);
-	d->byproduct = res_printf(r, "the conjugate acid of %s (protonated at atom %d)", smiles,
-				  s->atom);
+	d->conj_acid = res_printf(r, "%s (%s site, predicted pKa %.2f)", conj, s->group, s->pka);
+	d->byproduct = res_printf(r, "the conjugate acid %s", conj);
 	d->predicted = 1;
 	if (!d->base || !d->scale || !d->conj_acid || !d->byproduct)
 		return PRED_ENOMEM;
@@ -118,21 +144,61 @@ static int from_smiles_sites(pred_deprotonation *d, const pred_result *br, int c
 				 "data sheet");
 }
 
+static int no_site(const char *smiles, pred_error *err)
+{
+	char msg[200];
+	snprintf(msg, sizeof msg, "base '%.60s' has no site that takes a proton", smiles);
+	return fail(err, PRED_EINVAL, msg);
+}
+
+/* Anionic base: predict its conjugate acid and take that acid's weakest acid site. */
+static int anionic_base(pred_deprotonation *d, pred_worker *w, obw_mol *mol, int centre,
+			const char *smiles, const pred_options *opt, pred_error *err)
+{
+	pred_result *cr = NULL;
+	char msg[200] = "";
+	char *conj = protonated(mol, w->ctx, centre, msg, sizeof msg);
+	if (!conj)
+		return fail(err, PRED_EINTERNAL, msg[0] ? msg : "cannot protonate the base");
+	int rc = pred_predict(&cr, w, conj, PRED_FMT_SMILES, opt, err);
+	const pred_site *s = rc ? NULL : proton_site(cr, PRED_ACID);
+	if (!rc)
+		rc = s ? set_predicted(d, smiles, s, conj) : no_site(smiles, err);
+	pred_result_free(cr);
+	free(conj);
+	return rc;
+}
+
+/* Neutral base: predict it and take its most basic site. */
+static int neutral_base(pred_deprotonation *d, pred_worker *w, obw_mol *mol,
+			const char *smiles, const pred_options *opt, pred_error *err)
+{
+	pred_result *br = NULL;
+	char msg[200] = "", *conj = NULL;
+	int rc = pred_predict(&br, w, smiles, PRED_FMT_SMILES, opt, err);
+	const pred_site *s = rc ? NULL : proton_site(br, PRED_BASE);
+	if (!rc && !s)
+		rc = no_site(smiles, err);
+	if (!rc && !(conj = protonated(mol, w->ctx, mol_index(mol, s->atom), msg, sizeof msg)))
+		rc = fail(err, PRED_EINTERNAL, msg[0] ? msg : "cannot protonate the base");
+	if (!rc)
+		rc = set_predicted(d, smiles, s, conj);
+	pred_result_free(br);
+	free(conj);
+	return rc;
+}
+
 static int from_smiles(pred_deprotonation *d, pred_worker *w, const char *smiles,
 		       const pred_options *opt, pred_error *err)
 {
-	pred_result *br = NULL;
 	obw_mol *mol = NULL;
 	char msg[200] = "";
-	int rc = pred_predict(&br, w, smiles, PRED_FMT_SMILES, opt, err);
-	if (rc == PRED_EPARSE)
-		rc = unknown_base(w->m, smiles, err);
-	if (!rc && (rc = obw_mol_parse(&mol, w->ctx, smiles, OBW_SMILES, msg, sizeof msg)))
-		rc = fail(err, rc, msg);
-	if (!rc)
-		rc = from_smiles_sites(d, br, anionic_centre(mol), smiles, err);
+	if (obw_mol_parse(&mol, w->ctx, smiles, OBW_SMILES, msg, sizeof msg))
+		return unknown_base(w->m, smiles, err);
+	int centre = anionic_centre(mol);
+	int rc = centre >= 0 ? anionic_base(d, w, mol, centre, smiles, opt, err)
+			     : neutral_base(d, w, mol, smiles, opt, err);
 	obw_mol_free(mol);
-	pred_result_free(br);
 	return rc;
 }
 

@@ -14,6 +14,7 @@ typedef struct command {
 
 static const command commands[] = {
 	{"predict", cmd_predict, "predict the pKa of every site of SMILES or SD records"},
+	{"deprotonate", cmd_deprotonate, "will a base deprotonate the acid sites of a molecule"},
 };
 
 static void usage(FILE *f)
