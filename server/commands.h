@@ -7,5 +7,6 @@
  * argv[0] is the subcommand name. */
 int cmd_predict(int argc, char **argv);
 int cmd_serve(int argc, char **argv);
+int cmd_deprotonate(int argc, char **argv);
 
 #endif

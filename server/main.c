@@ -15,6 +15,7 @@ typedef struct command {
 static const command commands[] = {
 	{"predict", cmd_predict, "predict the pKa of every site of SMILES or SD records"},
 	{"serve", cmd_serve, "run the HTTP/JSON daemon"},
+	{"deprotonate", cmd_deprotonate, "will a base deprotonate the acid sites of a molecule"},
 };
 
 static void usage(FILE *f)
