@@ -11,7 +11,8 @@
 
 /* Input of the microstate model. site_mol_atom[i] is the molecule atom index (obw_mol
  * order) of r->sites[i]; dist is the nat x nat topological distance matrix (bonds; -1 when
- * not connected). The site pKa values in r->sites are used as microscopic values. */
+ * not connected). The microscopic pKa of site i is r->micro[i] (the site's pKa without the
+ * stepwise statistical and interaction terms, which the microstate model accounts for). */
 typedef struct ion_input {
 	obw_mol *mol;
 	obw_ctx *ctx;

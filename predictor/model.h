@@ -26,7 +26,7 @@ typedef struct frag_site {
 	char group[48];
 	char *smarts;
 	int centre;
-	int p_parent, p_rho, p_rho_star; /* parameter indices */
+	int p_parent, p_rho, p_rho_star, p_ortho; /* parameter indices */
 	sigma_scale sigma_para;
 	double unc;
 	char *source;

@@ -22,6 +22,7 @@ struct pred_result {
 	char *smiles;
 	pred_site *sites;
 	site_design *design;
+	double *micro; /* per site: pKa without the statistical and interaction terms */
 	size_t n_sites;
 	char **warnings;
 	size_t n_warnings;

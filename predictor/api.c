@@ -1,0 +1,129 @@
+/* SPDX-License-Identifier: MIT */
+/* api.c: status names, version, global initialisation, options and workers. */
+#include <locale.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "engine.h"
+
+const char *pred_status_name(int code)
+{
+	switch (code) {
+	case PRED_OK: return "ok";
+	case PRED_EINVAL: return "invalid_argument";
+	case PRED_EPARSE: return "invalid_smiles";
+	case PRED_EDATA: return "bad_data";
+	case PRED_ENOMEM: return "out_of_memory";
+	case PRED_ELIMIT: return "too_many_atoms";
+	case PRED_ETIMEOUT: return "timeout";
+	case PRED_EUNSUPPORTED: return "unsupported_structure";
+	default: return "internal_error";
+	}
+}
+
+const char *pred_version(void)
+{
+	return PKAD_VERSION;
+}
+
+int pred_global_init(pred_error *err)
+{
+	setlocale(LC_NUMERIC, "C");
+	char msg[200] = "";
+	int rc = obw_global_init(msg, sizeof msg);
+	if (rc && err) {
+		err->code = rc;
+		snprintf(err->msg, sizeof err->msg, "%s", msg);
+	}
+	return rc;
+}
+
+void pred_options_init(pred_options *opt)
+{
+	opt->ph = 7.4;
+	opt->max_heavy_atoms = 200;
+	opt->max_seconds = 10.0;
+	opt->curves = 0;
+	opt->curve_step = 0.25;
+}
+
+static int compile_all(obw_pattern ***out, size_t n, const char *(*smarts)(const pred_model *,
+							 size_t),
+		       const pred_model *m, pred_error *err)
+{
+	*out = calloc(n + 1, sizeof **out);
+	if (!*out)
+		return PRED_ENOMEM;
+	for (size_t i = 0; i < n; i++) {
+		char msg[200] = "";
+		(*out)[i] = obw_pattern_parse(smarts(m, i), msg, sizeof msg);
+		if (!(*out)[i]) {
+			if (err) {
+				err->code = PRED_EDATA;
+				snprintf(err->msg, sizeof err->msg, "invalid SMARTS '%s': %s",
+					 smarts(m, i), msg);
+			}
+			return PRED_EDATA;
+		}
+	}
+	return 0;
+}
+
+static const char *site_smarts(const pred_model *m, size_t i)
+{
+	return m->sites[i].smarts;
+}
+
+static const char *subst_smarts(const pred_model *m, size_t i)
+{
+	return m->substs[i].smarts;
+}
+
+static const char *corr_smarts(const pred_model *m, size_t i)
+{
+	return m->corrs[i].smarts;
+}
+
+int pred_worker_new(pred_worker **out, const pred_model *m, pred_error *err)
+{
+	*out = NULL;
+	pred_worker *w = calloc(1, sizeof *w);
+	if (!w)
+		return PRED_ENOMEM;
+	w->m = m;
+	w->ctx = obw_ctx_new();
+	int rc = w->ctx ? 0 : PRED_ENOMEM;
+	if (!rc)
+		rc = compile_all(&w->site_pat, m->n_sites, site_smarts, m, err);
+	if (!rc)
+		rc = compile_all(&w->subst_pat, m->n_substs, subst_smarts, m, err);
+	if (!rc)
+		rc = compile_all(&w->corr_pat, m->n_corrs, corr_smarts, m, err);
+	if (rc) {
+		pred_worker_free(w);
+		return rc;
+	}
+	*out = w;
+	return 0;
+}
+
+static void free_patterns(obw_pattern **p, size_t n)
+{
+	if (!p)
+		return;
+	for (size_t i = 0; i < n; i++)
+		obw_pattern_free(p[i]);
+	free(p);
+}
+
+void pred_worker_free(pred_worker *w)
+{
+	if (!w)
+		return;
+	free_patterns(w->site_pat, w->m->n_sites);
+	free_patterns(w->subst_pat, w->m->n_substs);
+	free_patterns(w->corr_pat, w->m->n_corrs);
+	obw_ctx_free(w->ctx);
+	free(w);
+}

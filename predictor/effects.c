@@ -1,0 +1,345 @@
+/* SPDX-License-Identifier: MIT */
+/* effects.c: substituent effects of one site: Hammett ring, Taft walk, corrections. */
+#include <math.h>
+#include <stdarg.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "engine.h"
+
+enum { WALK_DEPTH = 6 };
+
+void terms_add(term_list *tl, const pred_model *m, const char *term, int param, double feature,
+	       const char *fmt, ...)
+{
+	if (tl->n == TERMS_MAX)
+		return;
+	size_t i = tl->n++;
+	va_list ap;
+	va_start(ap, fmt);
+	vsnprintf(tl->detail[i], sizeof tl->detail[i], fmt, ap);
+	va_end(ap);
+	tl->t[i].term = term;
+	tl->t[i].detail = tl->detail[i];
+	tl->t[i].value = param >= 0 ? m->params[param].value * feature : feature;
+	tl->param[i] = param;
+	tl->feature[i] = feature;
+}
+
+double terms_sum(const term_list *tl)
+{
+	double s = 0;
+	for (size_t i = 0; i < tl->n; i++)
+		s += tl->t[i].value;
+	return s;
+}
+
+static int in_match(const eng_site *s, int atom)
+{
+	for (int i = 0; i < s->n_match; i++)
+		if (s->match[i] == atom)
+			return 1;
+	return 0;
+}
+
+static int ring_index_of(const obw_rings *R, size_t k, int atom)
+{
+	for (int j = 0; j < R->sizes[k]; j++)
+		if (R->atoms[R->offsets[k] + j] == atom)
+			return j;
+	return -1;
+}
+
+static int ring_is_aromatic6(const eng_mol *e, size_t k)
+{
+	if (e->rings.sizes[k] != 6)
+		return 0;
+	for (int j = 0; j < 6; j++)
+		if (!e->atoms[e->rings.atoms[e->rings.offsets[k] + j]].aromatic)
+			return 0;
+	return 1;
+}
+
+/* The Hammett ring of a site: an aromatic six-ring holding the centre, or bonded to it. */
+static int hammett_ring(const eng_mol *e, const eng_site *s, int *ipso)
+{
+	for (size_t k = 0; k < e->rings.n_rings; k++)
+		if (ring_is_aromatic6(e, k) && ring_index_of(&e->rings, k, s->centre) >= 0) {
+			*ipso = s->centre;
+			return (int)k;
+		}
+	int n;
+	const int *nb = eng_nbrs(e, s->centre, &n);
+	for (int j = 0; j < n; j++)
+		for (size_t k = 0; k < e->rings.n_rings; k++)
+			if (ring_is_aromatic6(e, k) && ring_index_of(&e->rings, k, nb[j]) >= 0) {
+				*ipso = nb[j];
+				return (int)k;
+			}
+	return -1;
+}
+
+/* Atoms a and x share a ring other than ring k (ring fusion, not a substituent). */
+static int fused_with(const eng_mol *e, size_t k, int a, int x)
+{
+	for (size_t q = 0; q < e->rings.n_rings; q++)
+		if (q != k && ring_index_of(&e->rings, q, a) >= 0 &&
+		    ring_index_of(&e->rings, q, x) >= 0)
+			return 1;
+	return 0;
+}
+
+typedef struct sigmas {
+	double m, p, p_minus, p_plus, star;
+	const char *label;
+	int generic; /* 0 tabulated, 1 estimated from element and charge */
+} sigmas;
+
+static int has_hetero_multiple_bond(const eng_mol *e, int x)
+{
+	for (size_t i = 0; i < e->nbonds; i++) {
+		const obw_bond *b = &e->bonds[i];
+		int other = b->a == x ? b->b : b->b == x ? b->a : -1;
+		if (other >= 0 && b->order >= 2 && e->atoms[other].element != 6)
+			return 1;
+	}
+	return 0;
+}
+
+/* Estimate for an atom no substituent row claims, from element, bonding and charge. The
+ * values are rough class averages of substituent-constants.csv rows (estimates, flagged). */
+static void generic_sigmas(sigmas *g, const eng_mol *e, int x)
+{
+	const obw_atom *a = &e->atoms[x];
+	static const struct {
+		int el;
+		double m, p, star;
+		const char *label;
+	} by_element[] = {
+		{7, -0.15, -0.60, 0.60, "amino-like N"},   {8, 0.10, -0.30, 1.50, "ether-like O"},
+		{16, 0.15, 0.00, 1.20, "sulfur group"},    {15, 0.30, 0.40, 1.50, "phosphorus group"},
+		{5, 0.00, 0.10, 0.00, "boron group"},      {14, -0.05, -0.07, -0.80, "silyl group"},
+		{34, 0.15, 0.00, 1.10, "selenium group"},  {9, 0.34, 0.06, 3.10, "fluoro"},
+		{17, 0.37, 0.23, 2.96, "chloro"},          {35, 0.39, 0.23, 2.84, "bromo"},
+		{53, 0.35, 0.18, 2.46, "iodo"},
+	};
+	memset(g, 0, sizeof *g);
+	g->generic = 1;
+	if (a->charge > 0) {
+		*g = (sigmas){0.85, 0.80, 0.80, 0.80, 3.70, "cationic group", 1};
+		return;
+	}
+	if (a->charge < 0) {
+		*g = (sigmas){-0.10, -0.10, 0.30, -0.10, -1.00, "anionic group", 1};
+		return;
+	}
+	if (a->element == 6) {
+		if (has_hetero_multiple_bond(e, x))
+			*g = (sigmas){0.35, 0.45, 0.85, 0.45, 1.60, "acyl-like C", 1};
+		else
+			*g = (sigmas){-0.07, -0.15, -0.15, -0.30, 0.0, "alkyl", 0};
+		return;
+	}
+	for (size_t i = 0; i < sizeof by_element / sizeof by_element[0]; i++)
+		if (by_element[i].el == a->element) {
+			*g = (sigmas){by_element[i].m, by_element[i].p, by_element[i].p,
+				      by_element[i].p, by_element[i].star, by_element[i].label, 1};
+			return;
+		}
+	*g = (sigmas){0.20, 0.20, 0.20, 0.20, 1.00, "unknown group", 1};
+}
+
+static void group_sigmas(sigmas *g, const eng_mol *e, const pred_model *m, int x)
+{
+	int k = e->group[x];
+	if (k < 0 || e->group_root[x] != x) {
+		generic_sigmas(g, e, x);
+		return;
+	}
+	const frag_subst *t = &m->substs[k];
+	*g = (sigmas){t->sigma_m, t->sigma_p, t->sigma_p_minus, t->sigma_p_plus, t->sigma_star,
+		      t->id, 0};
+}
+
+static int find_subst(const pred_model *m, const char *id)
+{
+	for (size_t k = 0; k < m->n_substs; k++)
+		if (!strcmp(m->substs[k].id, id))
+			return (int)k;
+	return -1;
+}
+
+static void hammett_term(term_list *tl, const pred_model *m, const frag_site *row, int pos,
+			 const sigmas *g)
+{
+	double sigma = g->m;
+	const char *name = "sigma_m";
+	if (pos != 3) {
+		static const char *const names[] = {"sigma_p", "sigma_p-", "sigma_p+"};
+		const double v[] = {g->p, g->p_minus, g->p_plus};
+		sigma = v[row->sigma_para];
+		name = names[row->sigma_para];
+	}
+	terms_add(tl, m, g->generic ? "generic_substituent" : "hammett", row->p_rho, -sigma,
+		  "%d-%s, %s %.2f, rho %.2f", pos, g->label, name, sigma,
+		  m->params[row->p_rho].value);
+	if (g->generic) {
+		tl->n_generic++;
+		tl->extra_var += 0.16;
+	}
+	if (pos == 2 && row->p_ortho >= 0)
+		terms_add(tl, m, "ortho", row->p_ortho, 1.0, "2-%s, ortho proximity", g->label);
+}
+
+static void mark_group(unsigned char *seen, const eng_mol *e, int x)
+{
+	seen[x] = 1;
+	if (e->group_root[x] < 0)
+		return;
+	for (size_t a = 0; a < e->nat; a++)
+		if (e->group_root[a] == e->group_root[x])
+			seen[a] = 1;
+}
+
+/* Substituents of the Hammett ring k (ipso at ring index i0). Marks what it counted. */
+static void ring_effects(term_list *tl, const eng_mol *e, const pred_model *m,
+			 const eng_site *s, size_t k, int ipso, unsigned char *seen)
+{
+	const frag_site *row = &m->sites[s->row];
+	const obw_rings *R = &e->rings;
+	int i0 = ring_index_of(R, k, ipso), aza = find_subst(m, "aza");
+	for (int j = 0; j < 6; j++) {
+		int a = R->atoms[R->offsets[k] + j], d = abs(j - i0);
+		int pos = (d < 6 - d ? d : 6 - d) + 1;
+		seen[a] = 1;
+		if (a == ipso)
+			continue;
+		if (e->atoms[a].element != 6 && !in_match(s, a) && aza >= 0) {
+			sigmas g = {m->substs[aza].sigma_m, m->substs[aza].sigma_p,
+				     m->substs[aza].sigma_p_minus, m->substs[aza].sigma_p_plus, 0,
+				     "aza", 0};
+			hammett_term(tl, m, row, pos, &g);
+		}
+		int n;
+		const int *nb = eng_nbrs(e, a, &n);
+		for (int q = 0; q < n; q++) {
+			int x = nb[q];
+			if (ring_index_of(R, k, x) >= 0 || in_match(s, x) || fused_with(e, k, a, x))
+				continue;
+			sigmas g;
+			group_sigmas(&g, e, m, x);
+			hammett_term(tl, m, row, pos, &g);
+			mark_group(seen, e, x);
+		}
+	}
+}
+
+static int plain_carbon(const eng_mol *e, int x)
+{
+	const obw_atom *a = &e->atoms[x];
+	return a->element == 6 && a->charge == 0 && !has_hetero_multiple_bond(e, x);
+}
+
+/* Taft walk: breadth-first from the centre; each group adds -rho* sigma* f^(d-1). */
+static void walk_effects(term_list *tl, const eng_mol *e, const pred_model *m,
+			 const eng_site *s, unsigned char *seen, int *queue, int *depth)
+{
+	const frag_site *row = &m->sites[s->row];
+	if (m->params[row->p_rho_star].value == 0)
+		return;
+	double f = m->params[m->p_falloff].value;
+	int head = 0, tail = 0, n;
+	seen[s->centre] = 1;
+	const int *nb = eng_nbrs(e, s->centre, &n);
+	for (int j = 0; j < n; j++)
+		if (!seen[nb[j]]) {
+			seen[nb[j]] = 1;
+			depth[tail] = 1;
+			queue[tail++] = nb[j];
+		}
+	while (head < tail) {
+		int x = queue[head], d = depth[head++];
+		int g = e->group[x];
+		int transparent = g >= 0 ? m->substs[g].transparent : plain_carbon(e, x);
+		if (!transparent) {
+			sigmas sg;
+			group_sigmas(&sg, e, m, x);
+			double att = pow(f, d - 1);
+			terms_add(tl, m, sg.generic ? "generic_substituent" : "taft", row->p_rho_star,
+				  -sg.star * att, "%s at %d bond%s, sigma* %.2f x %.2f", sg.label, d,
+				  d > 1 ? "s" : "", sg.star, att);
+			if (sg.generic) {
+				tl->n_generic++;
+				tl->extra_var += 0.16 * att;
+			}
+			mark_group(seen, e, x);
+			continue;
+		}
+		if (d >= WALK_DEPTH)
+			continue;
+		nb = eng_nbrs(e, x, &n);
+		for (int j = 0; j < n; j++)
+			if (!seen[nb[j]]) {
+				seen[nb[j]] = 1;
+				depth[tail] = d + 1;
+				queue[tail++] = nb[j];
+			}
+	}
+}
+
+static int corr_applies(const frag_corr *c, const frag_site *row)
+{
+	if (!strcmp(c->sites, "*"))
+		return 1;
+	size_t li = strlen(row->id), lg = strlen(row->group);
+	for (const char *p = c->sites; *p;) {
+		size_t len = strcspn(p, ",");
+		if ((len == li && !strncmp(p, row->id, li)) ||
+		    (len == lg && !strncmp(p, row->group, lg)))
+			return 1;
+		p += len;
+		if (*p == ',')
+			p++;
+	}
+	return 0;
+}
+
+static void correction_effects(term_list *tl, const eng_mol *e, const pred_model *m,
+			       const eng_site *s)
+{
+	const frag_site *row = &m->sites[s->row];
+	for (size_t k = 0; k < m->n_corrs; k++) {
+		const frag_corr *c = &m->corrs[k];
+		if (!corr_applies(c, row))
+			continue;
+		for (int i = e->corr_start[k]; i < e->corr_start[k + 1]; i++)
+			if (e->corr_atom[i] == s->atom) {
+				terms_add(tl, m, c->term, c->p_value, 1.0, "%s", c->id);
+				tl->extra_var += c->unc * c->unc;
+				break;
+			}
+	}
+}
+
+void eng_site_effects(term_list *tl, const eng_mol *e, const pred_worker *w, const eng_site *s)
+{
+	const pred_model *m = w->m;
+	const frag_site *row = &m->sites[s->row];
+	terms_add(tl, m, "parent", row->p_parent, 1.0, "%s", row->id);
+	unsigned char *seen = calloc(e->nat + 1, 1);
+	int *queue = malloc((e->nat + 1) * sizeof *queue);
+	int *depth = malloc((e->nat + 1) * sizeof *depth);
+	if (seen && queue && depth) {
+		for (int i = 0; i < s->n_match; i++)
+			seen[s->match[i]] = 1;
+		int ipso = -1, k = m->params[row->p_rho].value != 0 ? hammett_ring(e, s, &ipso) : -1;
+		if (k >= 0)
+			ring_effects(tl, e, m, s, (size_t)k, ipso, seen);
+		walk_effects(tl, e, m, s, seen, queue, depth);
+		correction_effects(tl, e, m, s);
+	}
+	free(seen);
+	free(queue);
+	free(depth);
+}

@@ -1,0 +1,86 @@
+/* SPDX-License-Identifier: MIT */
+/* engine.h: private interfaces between the steps of one prediction. */
+#ifndef PKAD_ENGINE_H
+#define PKAD_ENGINE_H
+
+#include <stddef.h>
+
+#include "model.h"
+#include "obwrap.h"
+#include "result.h"
+
+struct pred_worker {
+	const pred_model *m;
+	obw_ctx *ctx;
+	obw_pattern **site_pat;  /* one per m->sites row */
+	obw_pattern **subst_pat; /* one per m->substs row */
+	obw_pattern **corr_pat;  /* one per m->corrs row */
+};
+
+/* The perceived molecule: graph, substituent claims and the sites found. */
+typedef struct eng_site {
+	int row;       /* index into m->sites */
+	int atom;      /* ionizable atom (molecule index) */
+	int centre;    /* centre atom of substituent effects */
+	int *match;    /* atoms of the site's SMARTS match */
+	int n_match;
+} eng_site;
+
+typedef struct eng_mol {
+	obw_mol *mol;
+	const obw_atom *atoms;
+	size_t nat;
+	const obw_bond *bonds;
+	size_t nbonds;
+	int *adj_start; /* CSR adjacency: neighbours of a in adj[adj_start[a] .. adj_start[a+1]) */
+	int *adj;
+	int *group;     /* substituent row claiming each atom, -1 none */
+	int *group_root; /* root atom of the claim each atom belongs to, -1 none */
+	obw_rings rings;
+	eng_site *sites;
+	size_t n_sites;
+	int *dist;      /* n_sites x nat: bonds from each site's ionizable atom */
+	int *corr_start; /* CSR: first atoms matched by correction k in corr_atom[..] */
+	int *corr_atom;
+} eng_mol;
+
+/* Builds graph, claims and sites from a normalised molecule. */
+int eng_perceive(eng_mol *e, pred_worker *w, obw_mol *mol, pred_error *err);
+void eng_free(eng_mol *e);
+
+/* Neighbours of atom a. */
+static inline const int *eng_nbrs(const eng_mol *e, int a, int *n)
+{
+	*n = e->adj_start[a + 1] - e->adj_start[a];
+	return e->adj + e->adj_start[a];
+}
+
+/* Accumulates the terms of one site; the engine then copies them into the result. */
+enum { TERMS_MAX = 64 };
+typedef struct term_list {
+	size_t n;
+	pred_term t[TERMS_MAX];
+	int param[TERMS_MAX];     /* parameter scaling the term, -1 for a constant */
+	double feature[TERMS_MAX];
+	char detail[TERMS_MAX][96];
+	double extra_var; /* uncertainty added in quadrature by extrapolation */
+	int n_generic;
+} term_list;
+
+/* Adds a term; value = param value * feature (param >= 0) or feature (param < 0). */
+void terms_add(term_list *tl, const pred_model *m, const char *term, int param, double feature,
+	       const char *fmt, ...);
+double terms_sum(const term_list *tl);
+
+/* Hammett ring, Taft walk and corrections of site s. */
+void eng_site_effects(term_list *tl, const eng_mol *e, const pred_worker *w, const eng_site *s);
+
+/* Stepwise statistical and interaction terms (see DEVELOPERS.md): a titration from the fully
+ * protonated form, each step ionising the site of lowest effective pKa. tls[i] holds the
+ * terms of e->sites[i] and gains the two terms; symclass gives atom symmetry classes. */
+int eng_stepwise(term_list *tls, const eng_mol *e, const pred_model *m, const int *symclass);
+
+/* Normalisation and tautomer step on the parsed molecule; warnings go to r. */
+int eng_normalise(pred_result *r, obw_mol *mol, pred_error *err);
+
+#endif

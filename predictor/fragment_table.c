@@ -1,0 +1,381 @@
+/* SPDX-License-Identifier: MIT */
+/* fragment_table.c: loads the model (fragments/*.tsv) from the embedded copy or a directory. */
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "fragment_table.h"
+#include "fragments_embedded.h"
+#include "model.h"
+#include "obwrap.h"
+#include "tsv.h"
+
+/* Reads one table; *out is NULL (and 0 returned) when optional and absent. */
+static int table_text(char **out, const char *dir, const char *name, int required,
+		      pred_error *err)
+{
+	*out = NULL;
+	if (!dir) {
+		for (const frag_embedded *e = frag_embedded_files; e->name; e++)
+			if (!strcmp(e->name, name))
+				return (*out = strdup(e->content)) ? 0 : PRED_ENOMEM;
+		goto absent;
+	}
+	char path[1024];
+	snprintf(path, sizeof path, "%s/%s", dir, name);
+	FILE *f = fopen(path, "rb");
+	if (!f)
+		goto absent;
+	fseek(f, 0, SEEK_END);
+	long n = ftell(f);
+	fseek(f, 0, SEEK_SET);
+	char *buf = n >= 0 ? malloc((size_t)n + 1) : NULL;
+	if (buf && fread(buf, 1, (size_t)n, f) == (size_t)n) {
+		buf[n] = '\0';
+		*out = buf;
+	} else {
+		free(buf);
+	}
+	fclose(f);
+	return *out ? 0 : PRED_ENOMEM;
+absent:
+	if (!required)
+		return 0;
+	if (err) {
+		err->code = PRED_EDATA;
+		snprintf(err->msg, sizeof err->msg, "fragments/%s: table not found%s%s", name,
+			 dir ? " in " : "", dir ? dir : "");
+	}
+	return PRED_EDATA;
+}
+
+static int check_smarts(const tsv_table *t, const tsv_row *row, const char *smarts,
+			pred_error *err)
+{
+	char msg[200] = "";
+	obw_pattern *p = obw_pattern_parse(smarts, msg, sizeof msg);
+	if (!p)
+		return tsv_fail(err, PRED_EDATA, t, row->line, "invalid SMARTS '%s': %s", smarts,
+				msg);
+	obw_pattern_free(p);
+	return 0;
+}
+
+static int dup_field(char **out, const tsv_table *t, const tsv_row *row, int col,
+		     pred_error *err)
+{
+	*out = strdup(row->fields[col]);
+	return *out ? 0 : tsv_fail(err, PRED_ENOMEM, t, row->line, "out of memory");
+}
+
+static int copy_id(char *dst, size_t cap, const tsv_table *t, const tsv_row *row, int col,
+		   pred_error *err)
+{
+	const char *s = row->fields[col];
+	if (!*s || strlen(s) >= cap)
+		return tsv_fail(err, PRED_EDATA, t, row->line, "id '%s' is empty or too long", s);
+	memcpy(dst, s, strlen(s) + 1);
+	return 0;
+}
+
+/* Resolve named columns into idx[]; NULL-terminated names. */
+static int columns(int *idx, const tsv_table *t, const char *const *names, pred_error *err)
+{
+	for (size_t i = 0; names[i]; i++)
+		if ((idx[i] = tsv_column(t, names[i], err)) < 0)
+			return PRED_EDATA;
+	return 0;
+}
+
+static int parse_with(pred_model *m, const char *dir, const char *name, int required,
+		      int (*fn)(pred_model *, const tsv_table *, pred_error *), pred_error *err)
+{
+	char *text = NULL;
+	int rc = table_text(&text, dir, name, required, err);
+	if (rc || !text)
+		return rc;
+	tsv_table t;
+	char file[80];
+	snprintf(file, sizeof file, "fragments/%s", name);
+	rc = tsv_parse(&t, text, file, err);
+	free(text);
+	if (rc)
+		return rc;
+	rc = fn(m, &t, err);
+	tsv_free(&t);
+	return rc;
+}
+
+/* ---- sites.tsv ---------------------------------------------------------------------- */
+
+static int site_param(pred_model *m, const frag_site *s, const char *suffix, double v,
+		      double sd)
+{
+	char id[128];
+	snprintf(id, sizeof id, "%s.%s", s->id, suffix);
+	return model_param_add(m, id, v, sd);
+}
+
+static int parse_site_row(pred_model *m, frag_site *s, const tsv_table *t, const tsv_row *r,
+			  const int *c, pred_error *err)
+{
+	double parent, rho, rho_star, centre;
+	int rc;
+	if ((rc = copy_id(s->id, sizeof s->id, t, r, c[0], err)) ||
+	    (rc = copy_id(s->group, sizeof s->group, t, r, c[2], err)) ||
+	    (rc = tsv_number(&centre, t, r, c[4], 0, 0, err)) ||
+	    (rc = tsv_number(&parent, t, r, c[5], 0, 0, err)) ||
+	    (rc = tsv_number(&rho, t, r, c[6], 1, 0, err)) ||
+	    (rc = tsv_number(&rho_star, t, r, c[8], 1, 0, err)) ||
+	    (rc = tsv_number(&s->unc, t, r, c[9], 0, 0, err)))
+		return rc;
+	const char *kind = r->fields[c[1]], *sig = r->fields[c[7]];
+	if (strcmp(kind, "acid") && strcmp(kind, "base"))
+		return tsv_fail(err, PRED_EDATA, t, r->line, "kind '%s' is not acid or base", kind);
+	s->kind = !strcmp(kind, "acid") ? PRED_ACID : PRED_BASE;
+	if (!strcmp(sig, "sigma") || !*sig)
+		s->sigma_para = SIGMA_PLAIN;
+	else if (!strcmp(sig, "sigma_minus"))
+		s->sigma_para = SIGMA_MINUS;
+	else if (!strcmp(sig, "sigma_plus"))
+		s->sigma_para = SIGMA_PLUS;
+	else
+		return tsv_fail(err, PRED_EDATA, t, r->line, "unknown sigma_para '%s'", sig);
+	s->centre = (int)centre;
+	if ((rc = dup_field(&s->smarts, t, r, c[3], err)) ||
+	    (rc = dup_field(&s->source, t, r, c[10], err)) ||
+	    (rc = check_smarts(t, r, s->smarts, err)))
+		return rc;
+	s->p_parent = site_param(m, s, "parent", parent, 1.0);
+	s->p_rho = site_param(m, s, "rho", rho, rho != 0 ? 0.2 * (rho < 0 ? -rho : rho) : 0);
+	s->p_rho_star = site_param(m, s, "rho_star", rho_star,
+				   rho_star != 0 ? 0.3 * (rho_star < 0 ? -rho_star : rho_star) : 0);
+	/* Ortho substituents: sigma_p plus a series-specific proximity term (attenuation.md
+	 * section 3: ortho constants do not transfer between series), fitted per class. */
+	s->p_ortho = rho != 0 ? site_param(m, s, "ortho", 0.0, 0.5) : -1;
+	if (s->p_parent < 0 || s->p_rho < 0 || s->p_rho_star < 0 || (rho != 0 && s->p_ortho < 0))
+		return tsv_fail(err, PRED_ENOMEM, t, r->line, "out of memory");
+	return 0;
+}
+
+static int parse_sites(pred_model *m, const tsv_table *t, pred_error *err)
+{
+	static const char *const names[] = {"id", "kind", "group", "smarts", "centre", "parent",
+					    "rho", "sigma_para", "rho_star", "unc", "source",
+					    NULL};
+	int c[11];
+	if (columns(c, t, names, err))
+		return PRED_EDATA;
+	if (t->n_cols != 11)
+		return tsv_fail(err, PRED_EDATA, t, 0, "expected 11 columns, got %zu", t->n_cols);
+	m->sites = calloc(t->n_rows ? t->n_rows : 1, sizeof *m->sites);
+	if (!m->sites)
+		return PRED_ENOMEM;
+	for (size_t i = 0; i < t->n_rows; i++) {
+		for (size_t j = 0; j < i; j++)
+			if (!strcmp(t->rows[i].fields[c[0]], m->sites[j].id))
+				return tsv_fail(err, PRED_EDATA, t, t->rows[i].line,
+						"duplicate id '%s'", m->sites[j].id);
+		int rc = parse_site_row(m, &m->sites[i], t, &t->rows[i], c, err);
+		m->n_sites = i + 1;
+		if (rc)
+			return rc;
+	}
+	return 0;
+}
+
+/* ---- substituents.tsv --------------------------------------------------------------- */
+
+static int parse_subst_row(frag_subst *s, const tsv_table *t, const tsv_row *r, const int *c,
+			   pred_error *err)
+{
+	int rc;
+	double tr;
+	if ((rc = copy_id(s->id, sizeof s->id, t, r, c[0], err)) ||
+	    (rc = tsv_number(&s->sigma_m, t, r, c[2], 1, 0, err)) ||
+	    (rc = tsv_number(&s->sigma_p, t, r, c[3], 1, 0, err)) ||
+	    (rc = tsv_number(&s->sigma_i, t, r, c[7], 1, 0, err)) ||
+	    (rc = tsv_number(&s->sigma_p_minus, t, r, c[4], 1, s->sigma_p, err)) ||
+	    (rc = tsv_number(&s->sigma_p_plus, t, r, c[5], 1, s->sigma_p, err)) ||
+	    (rc = tsv_number(&s->sigma_star, t, r, c[6], 1, 6.5 * s->sigma_i, err)) ||
+	    (rc = tsv_number(&tr, t, r, c[8], 1, 0, err)))
+		return rc;
+	s->transparent = tr != 0;
+	if ((rc = dup_field(&s->smarts, t, r, c[1], err)) ||
+	    (rc = dup_field(&s->source, t, r, c[9], err)))
+		return rc;
+	return check_smarts(t, r, s->smarts, err);
+}
+
+static int parse_substs(pred_model *m, const tsv_table *t, pred_error *err)
+{
+	static const char *const names[] = {"id", "smarts", "sigma_m", "sigma_p", "sigma_p_minus",
+					    "sigma_p_plus", "sigma_star", "sigma_i", "transparent",
+					    "source", NULL};
+	int c[10];
+	if (columns(c, t, names, err))
+		return PRED_EDATA;
+	if (t->n_cols != 10)
+		return tsv_fail(err, PRED_EDATA, t, 0, "expected 10 columns, got %zu", t->n_cols);
+	m->substs = calloc(t->n_rows ? t->n_rows : 1, sizeof *m->substs);
+	if (!m->substs)
+		return PRED_ENOMEM;
+	for (size_t i = 0; i < t->n_rows; i++) {
+		for (size_t j = 0; j < i; j++)
+			if (!strcmp(t->rows[i].fields[c[0]], m->substs[j].id))
+				return tsv_fail(err, PRED_EDATA, t, t->rows[i].line,
+						"duplicate id '%s'", m->substs[j].id);
+		int rc = parse_subst_row(&m->substs[i], t, &t->rows[i], c, err);
+		m->n_substs = i + 1;
+		if (rc)
+			return rc;
+	}
+	return 0;
+}
+
+/* ---- corrections.tsv ---------------------------------------------------------------- */
+
+static int parse_corr_row(pred_model *m, frag_corr *k, const tsv_table *t, const tsv_row *r,
+			  const int *c, pred_error *err)
+{
+	int rc;
+	double value;
+	if ((rc = copy_id(k->id, sizeof k->id, t, r, c[0], err)) ||
+	    (rc = copy_id(k->term, sizeof k->term, t, r, c[1], err)) ||
+	    (rc = tsv_number(&value, t, r, c[4], 0, 0, err)) ||
+	    (rc = tsv_number(&k->unc, t, r, c[5], 1, 0, err)) ||
+	    (rc = dup_field(&k->sites, t, r, c[2], err)) ||
+	    (rc = dup_field(&k->smarts, t, r, c[3], err)) ||
+	    (rc = dup_field(&k->source, t, r, c[6], err)) ||
+	    (rc = check_smarts(t, r, k->smarts, err)))
+		return rc;
+	char id[128];
+	snprintf(id, sizeof id, "corr.%s", k->id);
+	k->p_value = model_param_add(m, id, value, 0.5);
+	return k->p_value < 0 ? tsv_fail(err, PRED_ENOMEM, t, r->line, "out of memory") : 0;
+}
+
+static int parse_corrs(pred_model *m, const tsv_table *t, pred_error *err)
+{
+	static const char *const names[] = {"id", "term", "sites", "smarts", "value", "unc",
+					    "source", NULL};
+	int c[7];
+	if (columns(c, t, names, err))
+		return PRED_EDATA;
+	if (t->n_cols != 7)
+		return tsv_fail(err, PRED_EDATA, t, 0, "expected 7 columns, got %zu", t->n_cols);
+	m->corrs = calloc(t->n_rows ? t->n_rows : 1, sizeof *m->corrs);
+	if (!m->corrs)
+		return PRED_ENOMEM;
+	for (size_t i = 0; i < t->n_rows; i++) {
+		for (size_t j = 0; j < i; j++)
+			if (!strcmp(t->rows[i].fields[c[0]], m->corrs[j].id))
+				return tsv_fail(err, PRED_EDATA, t, t->rows[i].line,
+						"duplicate id '%s'", m->corrs[j].id);
+		int rc = parse_corr_row(m, &m->corrs[i], t, &t->rows[i], c, err);
+		m->n_corrs = i + 1;
+		if (rc)
+			return rc;
+	}
+	return 0;
+}
+
+/* ---- params.tsv: fitted values override the tables ---------------------------------- */
+
+static void header_versions(pred_model *m, const char *text)
+{
+	const char *p = strstr(text, "# params_version:");
+	if (p)
+		sscanf(p + 17, " %127[^\n]", m->params_version);
+	p = strstr(text, "# data_version:");
+	if (p)
+		sscanf(p + 15, " %127[^\n]", m->data_version);
+}
+
+static int parse_params(pred_model *m, const tsv_table *t, pred_error *err)
+{
+	static const char *const names[] = {"id", "value", "prior", "prior_sd", "n", "rmse_cv",
+					    "note", NULL};
+	int c[7];
+	if (columns(c, t, names, err))
+		return PRED_EDATA;
+	for (size_t i = 0; i < t->n_rows; i++) {
+		const tsv_row *r = &t->rows[i];
+		int k = model_param_find(m, r->fields[c[0]]);
+		if (k < 0)
+			return tsv_fail(err, PRED_EDATA, t, r->line, "unknown parameter '%s'",
+					r->fields[c[0]]);
+		pred_param *p = &m->params[k];
+		double n;
+		int rc;
+		if ((rc = tsv_number(&p->value, t, r, c[1], 0, 0, err)) ||
+		    (rc = tsv_number(&p->prior_sd, t, r, c[3], 1, p->prior_sd, err)) ||
+		    (rc = tsv_number(&n, t, r, c[4], 1, 0, err)) ||
+		    (rc = tsv_number(&p->rmse_cv, t, r, c[5], 1, 0, err)))
+			return rc;
+		p->n = (int)n;
+	}
+	return 0;
+}
+
+static int load_params(pred_model *m, const char *dir, pred_error *err)
+{
+	char *text = NULL;
+	int rc = table_text(&text, dir, "params.tsv", 0, err);
+	if (rc || !text)
+		return rc;
+	header_versions(m, text);
+	free(text);
+	return parse_with(m, dir, "params.tsv", 0, parse_params, err);
+}
+
+static int add_globals(pred_model *m)
+{
+	/* 0.4 per bond: attenuation.md section 1 (chlorobutanoic acids, Perrin's rule). */
+	m->p_falloff = model_param_add(m, "global.falloff", 0.4, 0);
+	/* Charge interaction W(d) = A exp(-k (d - 1)) between two unit charges d bonds apart:
+	 * starting values from the gaps between the two pKa values less the statistical log 4
+	 * of ethylenediamine (3 bonds, about 2.4) and succinic acid (5 bonds, about 0.8),
+	 * handbook values in shared data/handbook-*.csv; refit by pkad fit. */
+	m->p_interaction = model_param_add(m, "global.interaction", 7.0, 1.0);
+	m->p_interaction_decay = model_param_add(m, "global.interaction_decay", 0.53, 0.1);
+	return m->p_falloff < 0 || m->p_interaction < 0 || m->p_interaction_decay < 0
+		       ? PRED_ENOMEM
+		       : 0;
+}
+
+int pred_model_load(pred_model **out, const char *dir, pred_error *err)
+{
+	*out = NULL;
+	pred_model *m = calloc(1, sizeof *m);
+	if (!m)
+		return PRED_ENOMEM;
+	if (!dir)
+		dir = getenv("PKAD_FRAGMENTS");
+	if (dir && !*dir)
+		dir = NULL;
+	snprintf(m->params_version, sizeof m->params_version, "unfitted");
+	snprintf(m->data_version, sizeof m->data_version, "none");
+	int rc = add_globals(m);
+	if (!rc)
+		rc = parse_with(m, dir, "sites.tsv", 1, parse_sites, err);
+	if (!rc)
+		rc = parse_with(m, dir, "substituents.tsv", 1, parse_substs, err);
+	if (!rc)
+		rc = parse_with(m, dir, "corrections.tsv", 0, parse_corrs, err);
+	if (!rc)
+		rc = frag_load_bases(m, dir, err);
+	if (!rc)
+		rc = load_params(m, dir, err);
+	if (rc) {
+		pred_model_free(m);
+		return rc;
+	}
+	*out = m;
+	return 0;
+}
+
+int frag_table_read(char **out, const char *dir, const char *name, pred_error *err)
+{
+	return table_text(out, dir, name, 0, err);
+}

@@ -1,0 +1,96 @@
+/* SPDX-License-Identifier: MIT */
+/* model.c: parameters of the loaded model, versions and release of the model. */
+#include <stdlib.h>
+#include <string.h>
+
+#include "fragment_table.h"
+#include "model.h"
+
+int model_param_find(const pred_model *m, const char *id)
+{
+	for (size_t i = 0; i < m->n_params; i++)
+		if (!strcmp(m->params[i].id, id))
+			return (int)i;
+	return -1;
+}
+
+int model_param_add(pred_model *m, const char *id, double value, double prior_sd)
+{
+	int k = model_param_find(m, id);
+	if (k >= 0)
+		return k;
+	if (strlen(id) >= sizeof m->params[0].id)
+		return -1;
+	pred_param *grown = realloc(m->params, (m->n_params + 1) * sizeof *grown);
+	if (!grown)
+		return -1;
+	m->params = grown;
+	pred_param *p = &m->params[m->n_params];
+	memset(p, 0, sizeof *p);
+	memcpy(p->id, id, strlen(id) + 1);
+	p->value = p->prior = value;
+	p->prior_sd = prior_sd;
+	return (int)m->n_params++;
+}
+
+int frag_load_bases(pred_model *m, const char *dir, pred_error *err)
+{
+	char *text = NULL;
+	int rc = frag_table_read(&text, dir, "bases.tsv", err);
+	if (rc || !text)
+		return rc;
+	rc = base_table_parse(m, text, "fragments/bases.tsv", err);
+	free(text);
+	return rc;
+}
+
+const char *pred_model_params_version(const pred_model *m)
+{
+	return m->params_version;
+}
+
+const char *pred_model_data_version(const pred_model *m)
+{
+	return m->data_version;
+}
+
+static void free_bases(pred_model *m)
+{
+	for (size_t i = 0; i < m->n_bases; i++) {
+		frag_base *b = &m->bases[i];
+		free(b->name);
+		free(b->aliases);
+		free(b->conjugate_acid);
+		free(b->conj_smiles);
+		free(b->scale);
+		free(b->byproduct);
+		free(b->hazards);
+		free(b->source);
+	}
+	free(m->bases);
+}
+
+void pred_model_free(pred_model *m)
+{
+	if (!m)
+		return;
+	for (size_t i = 0; i < m->n_sites; i++) {
+		free(m->sites[i].smarts);
+		free(m->sites[i].source);
+	}
+	for (size_t i = 0; i < m->n_substs; i++) {
+		free(m->substs[i].smarts);
+		free(m->substs[i].source);
+	}
+	for (size_t i = 0; i < m->n_corrs; i++) {
+		free(m->corrs[i].sites);
+		free(m->corrs[i].smarts);
+		free(m->corrs[i].source);
+	}
+	free(m->sites);
+	free(m->substs);
+	free(m->corrs);
+	free_bases(m);
+	free(m->params);
+	free(m);
+}

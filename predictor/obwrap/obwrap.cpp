@@ -1,0 +1,705 @@
+/* SPDX-License-Identifier: MIT */
+/* obwrap.cpp: the thin Open Babel wrapper behind obwrap.h; the only C++ in pkad. */
+#include "obwrap.h"
+#include "smiles_check.h"
+
+#include <openbabel/atom.h>
+#include <openbabel/bond.h>
+#include <openbabel/graphsym.h>
+#include <openbabel/mol.h>
+#include <openbabel/obconversion.h>
+#include <openbabel/oberror.h>
+#include <openbabel/obiter.h>
+#include <openbabel/parsmart.h>
+#include <openbabel/ring.h>
+
+#include <cctype>
+#include <clocale>
+#include <cstdarg>
+#include <cstdio>
+#include <cstdlib>
+#include <cstring>
+#include <mutex>
+#include <new>
+#include <sstream>
+#include <string>
+#include <vector>
+
+using namespace OpenBabel;
+
+enum { E_INVAL = -1, E_PARSE = -2, E_NOMEM = -4, E_INTERNAL = -5, E_UNSUPPORTED = -8 };
+
+struct obw_ctx {
+	OBConversion conv;
+	OBFormat *smi = nullptr;
+	OBFormat *can = nullptr;
+	OBFormat *sdf = nullptr;
+};
+
+struct obw_mol {
+	OBMol mol;
+	std::vector<int> orig; /* input index of each OB atom (idx - 1) */
+	std::vector<obw_atom> atoms;
+	std::vector<obw_bond> bonds;
+	std::vector<int> ring_sizes, ring_offsets, ring_atoms;
+};
+
+struct obw_pattern {
+	OBSmartsPattern pat;
+};
+
+static void set_msg(char *msg, size_t msgn, const char *fmt, ...)
+{
+	if (!msg || !msgn)
+		return;
+	va_list ap;
+	va_start(ap, fmt);
+	vsnprintf(msg, msgn, fmt, ap);
+	va_end(ap);
+}
+
+/* A short, printable excerpt of user text for messages. */
+static std::string excerpt(const std::string &s)
+{
+	if (s.size() <= 60)
+		return s;
+	return s.substr(0, 57) + "...";
+}
+
+static char *dup_string(const std::string &s)
+{
+	char *p = static_cast<char *>(malloc(s.size() + 1));
+	if (p)
+		memcpy(p, s.c_str(), s.size() + 1);
+	return p;
+}
+
+/* ---- cached views --------------------------------------------------------------------- */
+
+static int heavy_degree(OBAtom *a, int *valence)
+{
+	int deg = 0, val = 0;
+	FOR_BONDS_OF_ATOM (b, a) {
+		OBAtom *nb = b->GetNbrAtom(a);
+		if (nb->GetAtomicNum() == 1)
+			continue;
+		deg++;
+		val += (int)b->GetBondOrder();
+	}
+	*valence = val;
+	return deg;
+}
+
+static int explicit_h(OBAtom *a)
+{
+	int n = 0;
+	FOR_NBORS_OF_ATOM (nb, a)
+		if (nb->GetAtomicNum() == 1)
+			n++;
+	return n;
+}
+
+static int hyb_of(OBAtom *a)
+{
+	int h = (int)a->GetHyb();
+	return (h >= 1 && h <= 3) ? h : 0;
+}
+
+/* Orders the atoms of a ring along its bonds; falls back to OB's path order when the set
+ * has chords (then any walk would be ambiguous). */
+static std::vector<int> ring_order(OBMol &mol, const std::vector<int> &path)
+{
+	std::vector<int> out;
+	std::vector<bool> used(path.size(), false);
+	out.push_back(path[0]);
+	used[0] = true;
+	for (size_t step = 1; step < path.size(); step++) {
+		bool found = false;
+		for (size_t j = 0; j < path.size() && !found; j++) {
+			if (used[j] || !mol.GetBond(out.back(), path[j]))
+				continue;
+			out.push_back(path[j]);
+			used[j] = true;
+			found = true;
+		}
+		if (!found)
+			return path;
+	}
+	return out;
+}
+
+static void build_rings(obw_mol *m)
+{
+	m->ring_sizes.clear();
+	m->ring_offsets.clear();
+	m->ring_atoms.clear();
+	std::vector<OBRing *> sssr = m->mol.GetSSSR();
+	for (OBRing *r : sssr) {
+		std::vector<int> ord = ring_order(m->mol, r->_path);
+		m->ring_offsets.push_back((int)m->ring_atoms.size());
+		m->ring_sizes.push_back((int)ord.size());
+		for (int idx : ord)
+			m->ring_atoms.push_back(idx - 1);
+	}
+}
+
+static void smallest_ring_sizes(obw_mol *m)
+{
+	for (size_t k = 0; k < m->ring_sizes.size(); k++) {
+		int size = m->ring_sizes[k];
+		for (int i = 0; i < size; i++) {
+			obw_atom &a = m->atoms[(size_t)m->ring_atoms[(size_t)(m->ring_offsets[k] + i)]];
+			if (!a.ring_size || size < a.ring_size)
+				a.ring_size = size;
+		}
+	}
+}
+
+static obw_atom atom_view(OBAtom *a, int orig)
+{
+	obw_atom v;
+	memset(&v, 0, sizeof v);
+	v.element = (int)a->GetAtomicNum();
+	v.charge = a->GetFormalCharge();
+	v.hcount = (int)a->GetImplicitHCount() + explicit_h(a);
+	v.isotope = (int)a->GetIsotope();
+	v.aromatic = a->IsAromatic() ? 1 : 0;
+	v.in_ring = a->IsInRing() ? 1 : 0;
+	v.degree = heavy_degree(a, &v.valence);
+	v.hyb = hyb_of(a);
+	v.radical = (int)a->GetSpinMultiplicity();
+	v.orig_index = orig;
+	return v;
+}
+
+/* Forgets every perception so the next query recomputes it from the current graph. */
+static void reset_perception(OBMol &mol)
+{
+	mol.SetAromaticPerceived(false);
+	mol.SetSSSRPerceived(false);
+	mol.SetLSSRPerceived(false);
+	mol.SetRingAtomsAndBondsPerceived(false);
+	mol.SetRingTypesPerceived(false);
+	mol.SetAtomTypesPerceived(false);
+	mol.SetHybridizationPerceived(false);
+	mol.SetClosureBondsPerceived(false);
+}
+
+static void rebuild_cache(obw_mol *m)
+{
+	OBMol &mol = m->mol;
+	reset_perception(mol);
+	m->atoms.clear();
+	m->bonds.clear();
+	FOR_ATOMS_OF_MOL (a, mol)
+		m->atoms.push_back(atom_view(&*a, m->orig[a->GetIdx() - 1]));
+	FOR_BONDS_OF_MOL (b, mol) {
+		obw_bond v;
+		v.a = (int)b->GetBeginAtomIdx() - 1;
+		v.b = (int)b->GetEndAtomIdx() - 1;
+		v.order = (int)b->GetBondOrder();
+		v.aromatic = b->IsAromatic() ? 1 : 0;
+		v.in_ring = b->IsInRing() ? 1 : 0;
+		m->bonds.push_back(v);
+	}
+	build_rings(m);
+	smallest_ring_sizes(m);
+}
+
+/* ---- hydrogens ------------------------------------------------------------------------ */
+
+/* An ordinary explicit hydrogen: no isotope, no charge, one bond, to a non-hydrogen. */
+static bool foldable_h(OBAtom *a)
+{
+	if (a->GetAtomicNum() != 1 || a->GetIsotope() || a->GetFormalCharge())
+		return false;
+	if (a->GetExplicitDegree() != 1)
+		return false;
+	OBBond *b = *a->BeginBonds();
+	return b->GetBondOrder() == 1 && b->GetNbrAtom(a)->GetAtomicNum() != 1;
+}
+
+static void fold_hydrogens(obw_mol *m)
+{
+	OBMol &mol = m->mol;
+	std::vector<OBAtom *> gone;
+	FOR_ATOMS_OF_MOL (a, mol)
+		if (foldable_h(&*a))
+			gone.push_back(&*a);
+	for (OBAtom *h : gone) {
+		OBAtom *heavy = (*h->BeginBonds())->GetNbrAtom(h);
+		heavy->SetImplicitHCount(heavy->GetImplicitHCount() + 1);
+	}
+	std::vector<bool> drop(m->orig.size(), false);
+	for (OBAtom *h : gone)
+		drop[h->GetIdx() - 1] = true;
+	std::vector<int> orig;
+	for (size_t i = 0; i < drop.size(); i++)
+		if (!drop[i])
+			orig.push_back(m->orig[i]);
+	for (size_t i = gone.size(); i-- > 0;)
+		mol.DeleteAtom(gone[i], true);
+	m->orig.swap(orig);
+}
+
+/* ---- lifecycle ------------------------------------------------------------------------ */
+
+static int warm_up(char *msg, size_t msgn);
+
+static std::once_flag init_once;
+static int init_status = E_INTERNAL;
+static char init_msg[256];
+
+extern "C" int obw_global_init(char *msg, size_t msgn)
+{
+	try {
+		std::call_once(init_once, [] {
+			setlocale(LC_NUMERIC, "C");
+			obErrorLog.StopLogging();
+			obErrorLog.SetOutputLevel(obError);
+			init_status = warm_up(init_msg, sizeof init_msg);
+		});
+		if (init_status)
+			set_msg(msg, msgn, "%s", init_msg);
+		return init_status;
+	} catch (...) {
+		set_msg(msg, msgn, "open babel initialisation failed");
+		return E_INTERNAL;
+	}
+}
+
+extern "C" obw_ctx *obw_ctx_new(void)
+{
+	try {
+		obw_ctx *c = new obw_ctx;
+		c->smi = OBConversion::FindFormat("smi");
+		c->can = OBConversion::FindFormat("can");
+		c->sdf = OBConversion::FindFormat("sdf");
+		if (!c->smi || !c->can || !c->sdf) {
+			delete c;
+			return nullptr;
+		}
+		return c;
+	} catch (...) {
+		return nullptr;
+	}
+}
+
+extern "C" void obw_ctx_free(obw_ctx *c)
+{
+	try {
+		delete c;
+	} catch (...) {
+	}
+}
+
+/* ---- parsing -------------------------------------------------------------------------- */
+
+static int read_with(obw_ctx *c, OBFormat *f, const std::string &text, OBMol &mol)
+{
+	std::istringstream in(text);
+	c->conv.SetInFormat(f);
+	c->conv.SetInStream(&in, false);
+	bool ok = f->ReadMolecule(&mol, &c->conv);
+	c->conv.SetInStream(nullptr, false);
+	return ok ? 0 : E_PARSE;
+}
+
+static int parse_smiles(obw_mol *m, obw_ctx *c, const char *text, char *msg, size_t msgn)
+{
+	size_t n = strcspn(text, " \t\r\n\v\f");
+	std::string smi(text, n);
+	if (smi.empty()) {
+		set_msg(msg, msgn, "empty smiles");
+		return E_PARSE;
+	}
+	char why[160] = "";
+	if (obw_smiles_check(smi.data(), smi.size(), why, sizeof why)) {
+		set_msg(msg, msgn, "invalid smiles '%s': %s", excerpt(smi).c_str(), why);
+		return E_PARSE;
+	}
+	if (read_with(c, c->smi, smi, m->mol) || m->mol.NumAtoms() == 0) {
+		set_msg(msg, msgn, "cannot read smiles '%s' (unknown element, bad ring closure or "
+				   "bracket atom)", excerpt(smi).c_str());
+		return E_PARSE;
+	}
+	int arom = 0;
+	FOR_ATOMS_OF_MOL (a, m->mol)
+		arom += a->IsAromatic() ? 1 : 0;
+	if (arom < obw_smiles_aromatic_count(smi.data(), smi.size())) {
+		set_msg(msg, msgn, "cannot kekulize the aromatic atoms of '%s'", excerpt(smi).c_str());
+		return E_PARSE;
+	}
+	return 0;
+}
+
+static int parse_molblock(obw_mol *m, obw_ctx *c, const char *text, char *msg, size_t msgn)
+{
+	if (read_with(c, c->sdf, text, m->mol) || m->mol.NumAtoms() == 0) {
+		set_msg(msg, msgn, "cannot read mol block (bad counts line or atom block)");
+		return E_PARSE;
+	}
+	return 0;
+}
+
+static int parse_into(obw_mol *m, obw_ctx *c, const char *text, int format, char *msg,
+		      size_t msgn)
+{
+	int rc = format == OBW_SMILES ? parse_smiles(m, c, text, msg, msgn)
+				      : parse_molblock(m, c, text, msg, msgn);
+	if (rc)
+		return rc;
+	m->orig.resize(m->mol.NumAtoms());
+	for (size_t i = 0; i < m->orig.size(); i++)
+		m->orig[i] = (int)i;
+	fold_hydrogens(m);
+	rebuild_cache(m);
+	return 0;
+}
+
+extern "C" int obw_mol_parse(obw_mol **out, obw_ctx *c, const char *text, int format,
+			     char *msg, size_t msgn)
+{
+	*out = nullptr;
+	if (!c || !text || (format != OBW_SMILES && format != OBW_MOLBLOCK)) {
+		set_msg(msg, msgn, "invalid argument to obw_mol_parse");
+		return E_INVAL;
+	}
+	obw_mol *m = nullptr;
+	try {
+		m = new obw_mol;
+		int rc = parse_into(m, c, text, format, msg, msgn);
+		if (rc) {
+			delete m;
+			return rc;
+		}
+		*out = m;
+		return 0;
+	} catch (const std::bad_alloc &) {
+		delete m;
+		set_msg(msg, msgn, "out of memory reading molecule");
+		return E_NOMEM;
+	} catch (...) {
+		delete m;
+		set_msg(msg, msgn, "open babel failed on this molecule");
+		return E_INTERNAL;
+	}
+}
+
+extern "C" void obw_mol_free(obw_mol *m)
+{
+	try {
+		delete m;
+	} catch (...) {
+	}
+}
+
+extern "C" int obw_mol_clone(obw_mol **out, const obw_mol *m)
+{
+	*out = nullptr;
+	try {
+		*out = new obw_mol(*m);
+		return 0;
+	} catch (const std::bad_alloc &) {
+		return E_NOMEM;
+	} catch (...) {
+		return E_INTERNAL;
+	}
+}
+
+/* ---- read access ---------------------------------------------------------------------- */
+
+extern "C" size_t obw_mol_atoms(const obw_mol *m, const obw_atom **out)
+{
+	*out = m->atoms.data();
+	return m->atoms.size();
+}
+
+extern "C" size_t obw_mol_bonds(const obw_mol *m, const obw_bond **out)
+{
+	*out = m->bonds.data();
+	return m->bonds.size();
+}
+
+extern "C" void obw_mol_rings(const obw_mol *m, obw_rings *out)
+{
+	out->n_rings = m->ring_sizes.size();
+	out->sizes = m->ring_sizes.data();
+	out->offsets = m->ring_offsets.data();
+	out->atoms = m->ring_atoms.data();
+}
+
+extern "C" int obw_mol_symmetry(obw_mol *m, int *cls, size_t n, char *msg, size_t msgn)
+{
+	try {
+		if (n != m->atoms.size()) {
+			set_msg(msg, msgn, "symmetry array has %zu slots for %zu atoms", n,
+				m->atoms.size());
+			return E_INVAL;
+		}
+		std::vector<unsigned int> sym;
+		OBGraphSym gs(&m->mol);
+		gs.GetSymmetry(sym);
+		if (sym.size() != n) {
+			set_msg(msg, msgn, "symmetry perception failed");
+			return E_INTERNAL;
+		}
+		for (size_t i = 0; i < n; i++)
+			cls[i] = (int)sym[i];
+		return 0;
+	} catch (...) {
+		set_msg(msg, msgn, "symmetry perception failed");
+		return E_INTERNAL;
+	}
+}
+
+static std::string write_canonical(obw_mol *m, obw_ctx *c)
+{
+	std::ostringstream os;
+	c->conv.SetOutFormat(c->can);
+	c->conv.SetOutStream(&os, false);
+	bool ok = c->can->WriteMolecule(&m->mol, &c->conv);
+	c->conv.SetOutStream(nullptr, false);
+	if (!ok)
+		return std::string();
+	std::string s = os.str();
+	return s.substr(0, s.find_first_of(" \t\r\n"));
+}
+
+extern "C" char *obw_mol_canonical(obw_mol *m, obw_ctx *c, char *msg, size_t msgn)
+{
+	try {
+		std::string s = write_canonical(m, c);
+		if (s.empty()) {
+			set_msg(msg, msgn, "cannot write canonical smiles");
+			return nullptr;
+		}
+		char *p = dup_string(s);
+		if (!p)
+			set_msg(msg, msgn, "out of memory writing smiles");
+		return p;
+	} catch (...) {
+		set_msg(msg, msgn, "cannot write canonical smiles");
+		return nullptr;
+	}
+}
+
+/* ---- editing -------------------------------------------------------------------------- */
+
+extern "C" size_t obw_mol_components(const obw_mol *m, int *comp, size_t n)
+{
+	size_t na = m->atoms.size();
+	if (n < na)
+		return 0;
+	for (size_t i = 0; i < na; i++)
+		comp[i] = -1;
+	std::vector<std::vector<int>> adj(na);
+	for (const obw_bond &b : m->bonds) {
+		adj[(size_t)b.a].push_back(b.b);
+		adj[(size_t)b.b].push_back(b.a);
+	}
+	int count = 0;
+	std::vector<int> stack;
+	for (size_t s = 0; s < na; s++) {
+		if (comp[s] >= 0)
+			continue;
+		comp[s] = count;
+		stack.assign(1, (int)s);
+		while (!stack.empty()) {
+			int a = stack.back();
+			stack.pop_back();
+			for (int nb : adj[(size_t)a])
+				if (comp[nb] < 0) {
+					comp[nb] = count;
+					stack.push_back(nb);
+				}
+		}
+		count++;
+	}
+	return (size_t)count;
+}
+
+extern "C" int obw_mol_keep_atoms(obw_mol *m, const unsigned char *keep, size_t n, char *msg,
+				  size_t msgn)
+{
+	try {
+		if (n != m->atoms.size()) {
+			set_msg(msg, msgn, "keep array has %zu slots for %zu atoms", n,
+				m->atoms.size());
+			return E_INVAL;
+		}
+		std::vector<OBAtom *> gone;
+		std::vector<int> orig;
+		for (size_t i = 0; i < n; i++) {
+			if (keep[i])
+				orig.push_back(m->orig[i]);
+			else
+				gone.push_back(m->mol.GetAtom((int)i + 1));
+		}
+		for (size_t i = gone.size(); i-- > 0;)
+			m->mol.DeleteAtom(gone[i], true);
+		m->orig.swap(orig);
+		rebuild_cache(m);
+		return 0;
+	} catch (...) {
+		set_msg(msg, msgn, "cannot delete atoms");
+		return E_INTERNAL;
+	}
+}
+
+extern "C" int obw_mol_set_atom(obw_mol *m, int atom, int charge, int hcount)
+{
+	try {
+		if (atom < 0 || (size_t)atom >= m->atoms.size() || hcount < 0)
+			return E_INVAL;
+		OBAtom *a = m->mol.GetAtom(atom + 1);
+		int implicit = hcount - explicit_h(a);
+		if (implicit < 0)
+			return E_INVAL;
+		a->SetFormalCharge(charge);
+		a->SetImplicitHCount((unsigned int)implicit);
+		m->atoms[(size_t)atom].charge = charge;
+		m->atoms[(size_t)atom].hcount = hcount;
+		return 0;
+	} catch (...) {
+		return E_INTERNAL;
+	}
+}
+
+extern "C" int obw_mol_set_bond_order(obw_mol *m, int a, int b, int order)
+{
+	try {
+		int n = (int)m->atoms.size();
+		if (a < 0 || b < 0 || a >= n || b >= n || order < 1 || order > 3)
+			return E_INVAL;
+		OBBond *bond = m->mol.GetBond(a + 1, b + 1);
+		if (!bond)
+			return E_INVAL;
+		bond->SetBondOrder(order);
+		for (obw_bond &v : m->bonds)
+			if ((v.a == a && v.b == b) || (v.a == b && v.b == a))
+				v.order = order;
+		return 0;
+	} catch (...) {
+		return E_INTERNAL;
+	}
+}
+
+extern "C" int obw_mol_refresh(obw_mol *m, char *msg, size_t msgn)
+{
+	try {
+		rebuild_cache(m);
+		return 0;
+	} catch (const std::bad_alloc &) {
+		set_msg(msg, msgn, "out of memory re-perceiving molecule");
+		return E_NOMEM;
+	} catch (...) {
+		set_msg(msg, msgn, "cannot re-perceive molecule");
+		return E_INTERNAL;
+	}
+}
+
+/* ---- SMARTS --------------------------------------------------------------------------- */
+
+extern "C" obw_pattern *obw_pattern_parse(const char *smarts, char *msg, size_t msgn)
+{
+	obw_pattern *p = nullptr;
+	try {
+		if (!smarts || !*smarts) {
+			set_msg(msg, msgn, "empty smarts");
+			return nullptr;
+		}
+		p = new obw_pattern;
+		if (!p->pat.Init(smarts) || p->pat.NumAtoms() == 0) {
+			set_msg(msg, msgn, "invalid smarts '%s'", excerpt(smarts).c_str());
+			delete p;
+			return nullptr;
+		}
+		return p;
+	} catch (...) {
+		delete p;
+		set_msg(msg, msgn, "invalid smarts '%s'", excerpt(smarts).c_str());
+		return nullptr;
+	}
+}
+
+extern "C" void obw_pattern_free(obw_pattern *p)
+{
+	try {
+		delete p;
+	} catch (...) {
+	}
+}
+
+extern "C" int obw_pattern_atom_count(const obw_pattern *p)
+{
+	return (int)p->pat.NumAtoms();
+}
+
+extern "C" int obw_pattern_match(int **out, const obw_pattern *p, obw_mol *m)
+{
+	*out = nullptr;
+	try {
+		std::vector<std::vector<int>> ml;
+		if (!p->pat.Match(m->mol, ml, OBSmartsPattern::AllUnique) || ml.empty())
+			return 0;
+		size_t na = p->pat.NumAtoms();
+		int *v = static_cast<int *>(malloc(ml.size() * na * sizeof(int)));
+		if (!v)
+			return E_NOMEM;
+		for (size_t k = 0; k < ml.size(); k++)
+			for (size_t j = 0; j < na; j++)
+				v[k * na + j] = ml[k][j] - 1;
+		*out = v;
+		return (int)ml.size();
+	} catch (const std::bad_alloc &) {
+		return E_NOMEM;
+	} catch (...) {
+		return E_INTERNAL;
+	}
+}
+
+/* ---- warm-up -------------------------------------------------------------------------- */
+
+/* One full parse / match / symmetry / write so that Open Babel's lazily built global tables
+ * (element data, typers, aromaticity model) exist before any worker thread starts. */
+static const char warm_molblock[] = "\n  warm-up\n\n"
+				    "  2  1  0  0  0  0  0  0  0  0999 V2000\n"
+				    "    0.0000    0.0000    0.0000 C   0  0  0  0  0  0  0  0  0  0  0  0\n"
+				    "    1.5000    0.0000    0.0000 O   0  0  0  0  0  0  0  0  0  0  0  0\n"
+				    "  1  2  1  0  0  0  0  0  0  0  0  0\n"
+				    "M  END\n";
+
+static int warm_up(char *msg, size_t msgn)
+{
+	obw_ctx *c = obw_ctx_new();
+	if (!c) {
+		set_msg(msg, msgn, "open babel formats smi, can or sdf are missing");
+		return E_INTERNAL;
+	}
+	obw_mol *m = nullptr, *mb = nullptr;
+	obw_pattern *p = obw_pattern_parse("[OX2H1]-[CX3]=O", msg, msgn);
+	int rc = p ? obw_mol_parse(&m, c, "OC(=O)c1ccc[nH+]c1C[NH3+].[Cl-]", OBW_SMILES, msg, msgn)
+		   : E_INTERNAL;
+	if (!rc)
+		rc = obw_mol_parse(&mb, c, warm_molblock, OBW_MOLBLOCK, msg, msgn);
+	if (!rc) {
+		int *hits = nullptr;
+		std::vector<int> cls(m->atoms.size());
+		rc = obw_pattern_match(&hits, p, m) == 1 ? 0 : E_INTERNAL;
+		free(hits);
+		if (!rc)
+			rc = obw_mol_symmetry(m, cls.data(), cls.size(), msg, msgn);
+		char *can = rc ? nullptr : obw_mol_canonical(m, c, msg, msgn);
+		if (!rc && !can)
+			rc = E_INTERNAL;
+		free(can);
+	}
+	if (rc && msg && !*msg)
+		set_msg(msg, msgn, "open babel warm-up failed");
+	obw_mol_free(mb);
+	obw_mol_free(m);
+	obw_pattern_free(p);
+	obw_ctx_free(c);
+	return rc;
+}

@@ -1,0 +1,215 @@
+/* SPDX-License-Identifier: MIT */
+/* perceive.c: graph, substituent claims and ionizable sites of one molecule. */
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "engine.h"
+
+static int build_graph(eng_mol *e)
+{
+	e->adj_start = calloc(e->nat + 1, sizeof *e->adj_start);
+	e->adj = malloc((2 * e->nbonds + 1) * sizeof *e->adj);
+	if (!e->adj_start || !e->adj)
+		return PRED_ENOMEM;
+	for (size_t i = 0; i < e->nbonds; i++) {
+		e->adj_start[e->bonds[i].a + 1]++;
+		e->adj_start[e->bonds[i].b + 1]++;
+	}
+	for (size_t a = 0; a < e->nat; a++)
+		e->adj_start[a + 1] += e->adj_start[a];
+	int *fill = calloc(e->nat + 1, sizeof *fill);
+	if (!fill)
+		return PRED_ENOMEM;
+	for (size_t i = 0; i < e->nbonds; i++) {
+		int a = e->bonds[i].a, b = e->bonds[i].b;
+		e->adj[e->adj_start[a] + fill[a]++] = b;
+		e->adj[e->adj_start[b] + fill[b]++] = a;
+	}
+	free(fill);
+	return 0;
+}
+
+/* Substituent groups claim their atoms in table order; an atom belongs to one group. */
+static int claim_groups(eng_mol *e, const pred_worker *w)
+{
+	const pred_model *m = w->m;
+	for (size_t a = 0; a < e->nat; a++)
+		e->group[a] = e->group_root[a] = -1;
+	for (size_t g = 0; g < m->n_substs; g++) {
+		int *hits = NULL;
+		int n = obw_pattern_match(&hits, w->subst_pat[g], e->mol);
+		if (n < 0)
+			return n;
+		int k = obw_pattern_atom_count(w->subst_pat[g]);
+		for (int i = 0; i < n; i++) {
+			const int *mt = hits + (size_t)i * k;
+			int free_all = 1;
+			for (int j = 0; j < k && free_all; j++)
+				free_all = e->group[mt[j]] < 0;
+			if (!free_all)
+				continue;
+			for (int j = 0; j < k; j++) {
+				e->group[mt[j]] = (int)g;
+				e->group_root[mt[j]] = mt[0];
+			}
+		}
+		free(hits);
+	}
+	return 0;
+}
+
+static int has_site(const eng_mol *e, int atom, pred_kind kind, const pred_model *m)
+{
+	for (size_t i = 0; i < e->n_sites; i++)
+		if (e->sites[i].atom == atom && m->sites[e->sites[i].row].kind == kind)
+			return 1;
+	return 0;
+}
+
+static int add_site(eng_mol *e, int row, const int *mt, int k, int centre)
+{
+	eng_site *grown = realloc(e->sites, (e->n_sites + 1) * sizeof *grown);
+	if (!grown)
+		return PRED_ENOMEM;
+	e->sites = grown;
+	eng_site *s = &e->sites[e->n_sites];
+	s->match = malloc((size_t)k * sizeof *s->match);
+	if (!s->match)
+		return PRED_ENOMEM;
+	memcpy(s->match, mt, (size_t)k * sizeof *s->match);
+	s->n_match = k;
+	s->row = row;
+	s->atom = mt[0];
+	s->centre = mt[centre < k ? centre : 0];
+	e->n_sites++;
+	return 0;
+}
+
+/* Site rows in table order; the first row matching an atom claims it for its kind. */
+static int find_sites(eng_mol *e, const pred_worker *w)
+{
+	const pred_model *m = w->m;
+	for (size_t r = 0; r < m->n_sites; r++) {
+		int *hits = NULL;
+		int n = obw_pattern_match(&hits, w->site_pat[r], e->mol);
+		if (n < 0)
+			return n;
+		int k = obw_pattern_atom_count(w->site_pat[r]);
+		int rc = 0;
+		for (int i = 0; i < n && !rc; i++) {
+			const int *mt = hits + (size_t)i * k;
+			if (!has_site(e, mt[0], m->sites[r].kind, m))
+				rc = add_site(e, (int)r, mt, k, m->sites[r].centre);
+		}
+		free(hits);
+		if (rc)
+			return rc;
+	}
+	return 0;
+}
+
+/* First atoms of every correction pattern's matches, once per molecule. */
+static int match_corrections(eng_mol *e, const pred_worker *w)
+{
+	const pred_model *m = w->m;
+	e->corr_start = calloc(m->n_corrs + 1, sizeof *e->corr_start);
+	if (!e->corr_start)
+		return PRED_ENOMEM;
+	size_t used = 0, cap = 0;
+	for (size_t k = 0; k < m->n_corrs; k++) {
+		int *hits = NULL;
+		int n = obw_pattern_match(&hits, w->corr_pat[k], e->mol);
+		if (n < 0)
+			return n;
+		int na = obw_pattern_atom_count(w->corr_pat[k]);
+		for (int i = 0; i < n; i++) {
+			if (used == cap) {
+				cap = cap ? 2 * cap : 16;
+				int *grown = realloc(e->corr_atom, cap * sizeof *grown);
+				if (!grown) {
+					free(hits);
+					return PRED_ENOMEM;
+				}
+				e->corr_atom = grown;
+			}
+			e->corr_atom[used++] = hits[(size_t)i * na];
+		}
+		free(hits);
+		e->corr_start[k + 1] = (int)used;
+	}
+	return 0;
+}
+
+static void bfs(const eng_mol *e, int from, int *dist, int *queue)
+{
+	for (size_t a = 0; a < e->nat; a++)
+		dist[a] = -1;
+	int head = 0, tail = 0;
+	dist[from] = 0;
+	queue[tail++] = from;
+	while (head < tail) {
+		int a = queue[head++], n;
+		const int *nb = eng_nbrs(e, a, &n);
+		for (int j = 0; j < n; j++)
+			if (dist[nb[j]] < 0) {
+				dist[nb[j]] = dist[a] + 1;
+				queue[tail++] = nb[j];
+			}
+	}
+}
+
+static int site_distances(eng_mol *e)
+{
+	e->dist = malloc((e->n_sites * e->nat + 1) * sizeof *e->dist);
+	int *queue = malloc((e->nat + 1) * sizeof *queue);
+	if (!e->dist || !queue) {
+		free(queue);
+		return PRED_ENOMEM;
+	}
+	for (size_t i = 0; i < e->n_sites; i++)
+		bfs(e, e->sites[i].atom, e->dist + i * e->nat, queue);
+	free(queue);
+	return 0;
+}
+
+int eng_perceive(eng_mol *e, pred_worker *w, obw_mol *mol, pred_error *err)
+{
+	memset(e, 0, sizeof *e);
+	e->mol = mol;
+	e->nat = obw_mol_atoms(mol, &e->atoms);
+	e->nbonds = obw_mol_bonds(mol, &e->bonds);
+	obw_mol_rings(mol, &e->rings);
+	e->group = malloc((e->nat + 1) * sizeof *e->group);
+	e->group_root = malloc((e->nat + 1) * sizeof *e->group_root);
+	int rc = e->group && e->group_root ? build_graph(e) : PRED_ENOMEM;
+	if (!rc)
+		rc = claim_groups(e, w);
+	if (!rc)
+		rc = find_sites(e, w);
+	if (!rc)
+		rc = site_distances(e);
+	if (!rc)
+		rc = match_corrections(e, w);
+	if (rc && err) {
+		err->code = rc;
+		snprintf(err->msg, sizeof err->msg, "site perception failed (%s)",
+			 pred_status_name(rc));
+	}
+	return rc;
+}
+
+void eng_free(eng_mol *e)
+{
+	for (size_t i = 0; i < e->n_sites; i++)
+		free(e->sites[i].match);
+	free(e->sites);
+	free(e->dist);
+	free(e->corr_start);
+	free(e->corr_atom);
+	free(e->adj);
+	free(e->adj_start);
+	free(e->group);
+	free(e->group_root);
+	memset(e, 0, sizeof *e);
+}

@@ -1,0 +1,304 @@
+/* SPDX-License-Identifier: MIT */
+/* predict.c: one prediction: parse, normalise, perceive, model terms, ionization. */
+#include <ctype.h>
+#include <math.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+#include <time.h>
+
+#include "engine.h"
+#include "ionization.h"
+
+enum { MAX_INPUT_BYTES = 100000 };
+
+static int fail(pred_error *err, int code, const char *fmt, const char *a, double x, double y)
+{
+	if (err) {
+		err->code = code;
+		char buf[256];
+		snprintf(buf, sizeof buf, fmt, a, x, y);
+		memcpy(err->msg, buf, sizeof err->msg);
+	}
+	return code;
+}
+
+static double now_seconds(void)
+{
+	struct timespec ts;
+	clock_gettime(CLOCK_MONOTONIC, &ts);
+	return (double)ts.tv_sec + ts.tv_nsec * 1e-9;
+}
+
+/* Upper bound on the heavy atoms of a SMILES, counted before parsing so that a huge input
+ * never reaches the toolkit: every bracket atom and every organic-subset letter. */
+static long smiles_atom_estimate(const char *s)
+{
+	long n = 0;
+	for (; *s && !isspace((unsigned char)*s); s++) {
+		if (*s == '[') {
+			const char *close = strchr(s, ']');
+			if (!close)
+				break;
+			n++;
+			s = close;
+		} else if (strchr("BCNOPSFIbcnops", *s)) {
+			n++;
+		}
+	}
+	return n;
+}
+
+static int check_input(const char *input, pred_format fmt, const pred_options *opt,
+		       pred_error *err)
+{
+	if (!(opt->ph >= -2 && opt->ph <= 16))
+		return fail(err, PRED_EINVAL, "ph %s%.2f is outside -2..16", "", opt->ph, 0);
+	if (opt->max_heavy_atoms < 1)
+		return fail(err, PRED_EINVAL, "%sheavy-atom limit %.0f must be positive", "",
+			    opt->max_heavy_atoms, 0);
+	if (!input)
+		return fail(err, PRED_EPARSE, "%sno input", "", 0, 0);
+	while (fmt == PRED_FMT_SMILES && isspace((unsigned char)*input))
+		input++;
+	if (!*input)
+		return fail(err, PRED_EPARSE, "empty %s", fmt ? "mol block" : "smiles", 0, 0);
+	size_t len = strnlen(input, MAX_INPUT_BYTES + 1);
+	if (len > MAX_INPUT_BYTES)
+		return fail(err, PRED_ELIMIT, "input longer than %s%.0f bytes", "",
+			    MAX_INPUT_BYTES, 0);
+	long est = fmt == PRED_FMT_SMILES ? smiles_atom_estimate(input) : 0;
+	if (est > 4L * opt->max_heavy_atoms)
+		return fail(err, PRED_ELIMIT, "%sabout %.0f heavy atoms, over the limit of %.0f",
+			    "", (double)est, opt->max_heavy_atoms);
+	return 0;
+}
+
+/* Elements the model has constants for; anything else is refused, not guessed. */
+static const char *element_symbol(int z)
+{
+	static const struct {
+		int z;
+		const char *sym;
+	} table[] = {{1, "H"},   {5, "B"},   {6, "C"},   {7, "N"},  {8, "O"},
+		     {9, "F"},   {14, "Si"}, {15, "P"},  {16, "S"}, {17, "Cl"},
+		     {34, "Se"}, {35, "Br"}, {53, "I"}};
+	for (size_t i = 0; i < sizeof table / sizeof table[0]; i++)
+		if (table[i].z == z)
+			return table[i].sym;
+	return NULL;
+}
+
+static int check_atoms(obw_mol *mol, const pred_options *opt, pred_error *err)
+{
+	const obw_atom *atoms;
+	size_t n = obw_mol_atoms(mol, &atoms), heavy = 0;
+	for (size_t i = 0; i < n; i++) {
+		if (!element_symbol(atoms[i].element)) {
+			char what[32];
+			snprintf(what, sizeof what, "%d", atoms[i].element);
+			return fail(err, PRED_EUNSUPPORTED,
+				    "unsupported element (atomic number %s) at atom %.0f%.0s", what,
+				    atoms[i].orig_index, 0);
+		}
+		heavy += atoms[i].element != 1;
+	}
+	if (heavy == 0)
+		return fail(err, PRED_EPARSE, "%sno heavy atoms", "", 0, 0);
+	if (heavy > (size_t)opt->max_heavy_atoms)
+		return fail(err, PRED_ELIMIT, "%s%.0f heavy atoms, over the limit of %.0f", "",
+			    (double)heavy, opt->max_heavy_atoms);
+	return 0;
+}
+
+static const char *confidence_word(double u)
+{
+	return u <= 0.5 ? "high" : u <= 1.0 ? "medium" : "low";
+}
+
+/* Uncertainty: the class's cross-validated error (or table value before fitting), widened
+ * for estimated substituents, for corrections and for large extrapolated shifts. */
+static double site_uncertainty(const term_list *tl, const pred_model *m, const frag_site *row)
+{
+	double base = m->params[row->p_parent].rmse_cv > 0 ? m->params[row->p_parent].rmse_cv
+							  : row->unc;
+	double shift = 0;
+	for (size_t i = 1; i < tl->n; i++)
+		shift += fabs(tl->t[i].value);
+	double var = base * base + tl->extra_var + (0.08 * shift) * (0.08 * shift);
+	return sqrt(var);
+}
+
+static int copy_site(pred_result *r, size_t i, const term_list *tl, const eng_mol *e,
+		     const pred_model *m, double micro)
+{
+	const eng_site *s = &e->sites[i];
+	const frag_site *row = &m->sites[s->row];
+	pred_site *out = &r->sites[i];
+	site_design *d = &r->design[i];
+	pred_term *terms = res_alloc(r, (tl->n + 1) * sizeof *terms);
+	d->param = res_alloc(r, (tl->n + 1) * sizeof *d->param);
+	d->feature = res_alloc(r, (tl->n + 1) * sizeof *d->feature);
+	if (!terms || !d->param || !d->feature)
+		return PRED_ENOMEM;
+	for (size_t k = 0; k < tl->n; k++) {
+		terms[k].term = tl->t[k].term;
+		terms[k].value = tl->t[k].value;
+		if (!(terms[k].detail = res_strdup(r, tl->detail[k])))
+			return PRED_ENOMEM;
+		if (tl->param[k] >= 0) {
+			d->param[d->n] = tl->param[k];
+			d->feature[d->n++] = tl->feature[k];
+		} else {
+			d->constant += tl->t[k].value;
+		}
+	}
+	out->atom = e->atoms[s->atom].orig_index;
+	out->element = element_symbol(e->atoms[s->atom].element);
+	out->group = row->group;
+	out->kind = row->kind;
+	out->pka = terms_sum(tl);
+	out->uncertainty = site_uncertainty(tl, m, row);
+	out->confidence = confidence_word(out->uncertainty);
+	out->n_terms = tl->n;
+	out->terms = terms;
+	r->micro[i] = micro;
+	return 0;
+}
+
+static int build_sites(pred_result *r, const eng_mol *e, pred_worker *w, pred_error *err)
+{
+	size_t n = e->n_sites;
+	term_list *tls = calloc(n + 1, sizeof *tls);
+	double *micro = calloc(n + 1, sizeof *micro);
+	int *sym = calloc(e->nat + 1, sizeof *sym);
+	r->sites = res_alloc(r, (n + 1) * sizeof *r->sites);
+	r->design = res_alloc(r, (n + 1) * sizeof *r->design);
+	r->micro = res_alloc(r, (n + 1) * sizeof *r->micro);
+	int rc = tls && micro && sym && r->sites && r->design && r->micro ? 0 : PRED_ENOMEM;
+	if (!rc)
+		rc = obw_mol_symmetry(e->mol, sym, e->nat, NULL, 0);
+	for (size_t i = 0; i < n && !rc; i++) {
+		eng_site_effects(&tls[i], e, w, &e->sites[i]);
+		micro[i] = terms_sum(&tls[i]);
+	}
+	if (!rc)
+		rc = eng_stepwise(tls, e, w->m, sym);
+	for (size_t i = 0; i < n && !rc; i++)
+		rc = copy_site(r, i, &tls[i], e, w->m, micro[i]);
+	r->n_sites = rc ? 0 : n;
+	free(tls);
+	free(micro);
+	free(sym);
+	if (rc)
+		fail(err, rc, "%scould not build the sites", "", 0, 0);
+	return rc;
+}
+
+static int parse_input(obw_mol **mol, pred_worker *w, const char *input, pred_format fmt,
+		       pred_error *err)
+{
+	char msg[256] = "";
+	int rc = obw_mol_parse(mol, w->ctx, input, fmt == PRED_FMT_MOLBLOCK ? OBW_MOLBLOCK
+									    : OBW_SMILES,
+			       msg, sizeof msg);
+	if (rc)
+		fail(err, rc, "%s", msg[0] ? msg : "unreadable molecule", 0, 0);
+	return rc;
+}
+
+static int out_of_time(double start, const pred_options *opt, pred_error *err)
+{
+	double spent = now_seconds() - start;
+	if (spent <= opt->max_seconds)
+		return 0;
+	return fail(err, PRED_ETIMEOUT, "%stook %.1f s, over the budget of %.1f s", "", spent,
+		    opt->max_seconds);
+}
+
+static int finish(pred_result *r, eng_mol *e, pred_worker *w, const pred_options *opt,
+		  pred_error *err)
+{
+	char msg[256] = "";
+	char *can = obw_mol_canonical(e->mol, w->ctx, msg, sizeof msg);
+	r->smiles = can ? res_strdup(r, can) : NULL;
+	free(can);
+	if (!r->smiles)
+		return fail(err, PRED_EINTERNAL, "canonical smiles: %s", msg, 0, 0);
+	int *site_atoms = calloc(e->n_sites + 1, sizeof *site_atoms);
+	if (!site_atoms)
+		return PRED_ENOMEM;
+	for (size_t i = 0; i < e->n_sites; i++)
+		site_atoms[i] = e->sites[i].atom;
+	ion_input in = {e->mol, w->ctx, site_atoms, e->dist, e->nat};
+	int rc = ionization_fill(r, w->m, &in, opt, err);
+	free(site_atoms);
+	if (!rc && r->n_sites == 0)
+		rc = res_note(r, "no ionizable site found");
+	return rc;
+}
+
+/* Sites in input atom order (acid before base on the same atom). */
+static void sort_sites(pred_result *r)
+{
+	for (size_t i = 1; i < r->n_sites; i++)
+		for (size_t j = i; j > 0; j--) {
+			pred_site *a = &r->sites[j - 1], *b = &r->sites[j];
+			if (a->atom < b->atom || (a->atom == b->atom && a->kind <= b->kind))
+				break;
+			pred_site ts = *a;
+			*a = *b;
+			*b = ts;
+			site_design td = r->design[j - 1];
+			r->design[j - 1] = r->design[j];
+			r->design[j] = td;
+			double tm = r->micro[j - 1];
+			r->micro[j - 1] = r->micro[j];
+			r->micro[j] = tm;
+		}
+}
+
+int pred_predict(pred_result **out, pred_worker *w, const char *input, pred_format fmt,
+		 const pred_options *opt, pred_error *err)
+{
+	*out = NULL;
+	pred_options dflt;
+	if (!opt) {
+		pred_options_init(&dflt);
+		opt = &dflt;
+	}
+	int rc = check_input(input, fmt, opt, err);
+	if (rc)
+		return rc;
+	double start = now_seconds();
+	obw_mol *mol = NULL;
+	eng_mol e = {0};
+	pred_result *r = calloc(1, sizeof *r);
+	if (!r)
+		return fail(err, PRED_ENOMEM, "%sout of memory", "", 0, 0);
+	r->ph = opt->ph;
+	rc = parse_input(&mol, w, input, fmt, err);
+	if (!rc)
+		rc = eng_normalise(r, mol, err);
+	if (!rc)
+		rc = check_atoms(mol, opt, err);
+	if (!rc)
+		rc = eng_perceive(&e, w, mol, err);
+	if (!rc)
+		rc = out_of_time(start, opt, err);
+	if (!rc)
+		rc = build_sites(r, &e, w, err);
+	if (!rc)
+		rc = finish(r, &e, w, opt, err);
+	if (!rc)
+		rc = out_of_time(start, opt, err);
+	eng_free(&e);
+	obw_mol_free(mol);
+	if (rc) {
+		pred_result_free(r);
+		return rc;
+	}
+	sort_sites(r);
+	*out = r;
+	return 0;
+}

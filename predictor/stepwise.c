@@ -1,0 +1,111 @@
+/* SPDX-License-Identifier: MIT */
+/* stepwise.c: statistical and charge-interaction terms of multiprotic molecules. */
+#include <math.h>
+#include <stdlib.h>
+
+#include "engine.h"
+#include "ionization.h"
+
+typedef struct step_state {
+	double *micro;
+	int *charge;  /* current charge of each site: base +1 while protonated, acid -1 when ionised */
+	int *done;
+	int *eq_n;    /* size of the equivalence class of each site */
+	int *eq_done; /* members of that class already ionised (indexed by the class leader) */
+	int *leader;
+} step_state;
+
+/* Sites are equivalent when the same row matches symmetry-equivalent atoms. */
+static void equivalence(step_state *st, const eng_mol *e, const int *symclass)
+{
+	for (size_t i = 0; i < e->n_sites; i++) {
+		st->leader[i] = (int)i;
+		for (size_t j = 0; j < i; j++)
+			if (e->sites[j].row == e->sites[i].row &&
+			    symclass[e->sites[j].atom] == symclass[e->sites[i].atom]) {
+				st->leader[i] = st->leader[j];
+				break;
+			}
+		st->eq_n[st->leader[i]]++;
+	}
+}
+
+static double interaction(const step_state *st, const eng_mol *e, const pred_model *m,
+			  size_t i)
+{
+	double sum = 0;
+	for (size_t j = 0; j < e->n_sites; j++) {
+		int d = e->dist[i * e->nat + (size_t)e->sites[j].atom];
+		if (j == i || d <= 0 || !st->charge[j])
+			continue;
+		/* losing a proton lowers the site's charge by one: like charges nearby make that
+		 * easier (positive) or harder (negative). */
+		sum -= st->charge[j] * ionization_pair_shift(m, d);
+	}
+	return sum;
+}
+
+static double statistical(const step_state *st, size_t i)
+{
+	int n = st->eq_n[st->leader[i]], k = st->eq_done[st->leader[i]] + 1;
+	return n > 1 ? log10((double)k / (double)(n - k + 1)) : 0.0;
+}
+
+static void step_once(term_list *tls, step_state *st, const eng_mol *e, const pred_model *m)
+{
+	size_t best = 0;
+	double best_eff = HUGE_VAL, best_stat = 0, best_int = 0;
+	for (size_t i = 0; i < e->n_sites; i++) {
+		if (st->done[i])
+			continue;
+		double stat = statistical(st, i), inter = interaction(st, e, m, i);
+		double eff = st->micro[i] + stat + inter;
+		if (eff < best_eff) {
+			best = i;
+			best_eff = eff;
+			best_stat = stat;
+			best_int = inter;
+		}
+	}
+	term_list *tl = &tls[best];
+	if (best_stat != 0)
+		terms_add(tl, m, "statistical", -1, best_stat, "%d equivalent sites",
+			  st->eq_n[st->leader[best]]);
+	if (fabs(best_int) >= 0.005)
+		terms_add(tl, m, "interaction", -1, best_int,
+			  "charges of sites ionised before this one");
+	st->done[best] = 1;
+	st->charge[best] -= 1;
+	st->eq_done[st->leader[best]]++;
+}
+
+int eng_stepwise(term_list *tls, const eng_mol *e, const pred_model *m, const int *symclass)
+{
+	size_t n = e->n_sites;
+	step_state st;
+	st.micro = calloc(n + 1, sizeof *st.micro);
+	st.charge = calloc(n + 1, sizeof *st.charge);
+	st.done = calloc(n + 1, sizeof *st.done);
+	st.eq_n = calloc(n + 1, sizeof *st.eq_n);
+	st.eq_done = calloc(n + 1, sizeof *st.eq_done);
+	st.leader = calloc(n + 1, sizeof *st.leader);
+	int rc = st.micro && st.charge && st.done && st.eq_n && st.eq_done && st.leader
+			 ? 0
+			 : PRED_ENOMEM;
+	if (!rc) {
+		for (size_t i = 0; i < n; i++) {
+			st.micro[i] = terms_sum(&tls[i]);
+			st.charge[i] = m->sites[e->sites[i].row].kind == PRED_BASE ? 1 : 0;
+		}
+		equivalence(&st, e, symclass);
+		for (size_t k = 0; k < n; k++)
+			step_once(tls, &st, e, m);
+	}
+	free(st.micro);
+	free(st.charge);
+	free(st.done);
+	free(st.eq_n);
+	free(st.eq_done);
+	free(st.leader);
+	return rc;
+}
