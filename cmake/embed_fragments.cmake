@@ -1,7 +1,7 @@
 # Writes a C file holding every fragments/*.tsv as a NUL-terminated byte array.
 file(GLOB files RELATIVE ${DIR} ${DIR}/*.tsv)
 list(SORT files)
-set(body "/* generated from fragments/*.tsv by cmake/embed_fragments.cmake: do not edit */\n")
+set(body "/* generated from the fragments tables by cmake/embed_fragments.cmake: do not edit */\n")
 string(APPEND body "#include <stddef.h>\n#include \"fragments_embedded.h\"\n")
 set(table "")
 set(i 0)

@@ -261,7 +261,11 @@ static void walk_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 	while (head < tail) {
 		int x = queue[head], d = depth[head++];
 		int g = e->group[x];
-		int transparent = g >= 0 ? m->substs[g].transparent : plain_carbon(e, x);
+		int root = g >= 0 && e->group_root[x] == x && !m->substs[g].transparent;
+		/* atoms of the site's own match belong to the parent: passed through, not counted,
+		 * unless a substituent group is rooted there (the R of R-COOH may be a CF3) */
+		int transparent = !root && (in_match(s, x) || (g >= 0 ? m->substs[g].transparent
+								       : plain_carbon(e, x)));
 		if (!transparent) {
 			sigmas sg;
 			group_sigmas(&sg, e, m, x);
@@ -331,8 +335,6 @@ void eng_site_effects(term_list *tl, const eng_mol *e, const pred_worker *w, con
 	int *queue = malloc((e->nat + 1) * sizeof *queue);
 	int *depth = malloc((e->nat + 1) * sizeof *depth);
 	if (seen && queue && depth) {
-		for (int i = 0; i < s->n_match; i++)
-			seen[s->match[i]] = 1;
 		int ipso = -1, k = m->params[row->p_rho].value != 0 ? hammett_ring(e, s, &ipso) : -1;
 		if (k >= 0)
 			ring_effects(tl, e, m, s, (size_t)k, ipso, seen);

@@ -1,5 +1,5 @@
 /* SPDX-License-Identifier: MIT */
-/* fragment_table.c: loads the model (fragments/*.tsv) from the embedded copy or a directory. */
+/* fragment_table.c: loads the model (the fragments tables) from the embedded copy or a directory. */
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>

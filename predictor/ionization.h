@@ -10,9 +10,10 @@
 #include "result.h"
 
 /* Input of the microstate model. site_mol_atom[i] is the molecule atom index (obw_mol
- * order) of r->sites[i]; dist is the nat x nat topological distance matrix (bonds; -1 when
- * not connected). The microscopic pKa of site i is r->micro[i] (the site's pKa without the
- * stepwise statistical and interaction terms, which the microstate model accounts for). */
+ * order) of r->sites[i]; dist holds one row of nat distances (bonds; -1 when not connected)
+ * per site: dist[i * nat + a] is the distance from site i's atom to atom a. The microscopic
+ * pKa of site i is r->micro[i] (the site's pKa without the stepwise statistical and
+ * interaction terms, which the microstate model accounts for). */
 typedef struct ion_input {
 	obw_mol *mol;
 	obw_ctx *ctx;

@@ -2,6 +2,7 @@
 /* predict.c: one prediction: parse, normalise, perceive, model terms, ionization. */
 #include <ctype.h>
 #include <math.h>
+#include <stdarg.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -12,13 +13,17 @@
 
 enum { MAX_INPUT_BYTES = 100000 };
 
-static int fail(pred_error *err, int code, const char *fmt, const char *a, double x, double y)
+static int fail(pred_error *err, int code, const char *fmt, ...)
+	__attribute__((format(printf, 3, 4)));
+
+static int fail(pred_error *err, int code, const char *fmt, ...)
 {
 	if (err) {
 		err->code = code;
-		char buf[256];
-		snprintf(buf, sizeof buf, fmt, a, x, y);
-		memcpy(err->msg, buf, sizeof err->msg);
+		va_list ap;
+		va_start(ap, fmt);
+		vsnprintf(err->msg, sizeof err->msg, fmt, ap);
+		va_end(ap);
 	}
 	return code;
 }
@@ -53,24 +58,22 @@ static int check_input(const char *input, pred_format fmt, const pred_options *o
 		       pred_error *err)
 {
 	if (!(opt->ph >= -2 && opt->ph <= 16))
-		return fail(err, PRED_EINVAL, "ph %s%.2f is outside -2..16", "", opt->ph, 0);
+		return fail(err, PRED_EINVAL, "ph %.2f is outside -2..16", opt->ph);
 	if (opt->max_heavy_atoms < 1)
-		return fail(err, PRED_EINVAL, "%sheavy-atom limit %.0f must be positive", "",
-			    opt->max_heavy_atoms, 0);
+		return fail(err, PRED_EINVAL, "heavy-atom limit %d must be positive", opt->max_heavy_atoms);
 	if (!input)
-		return fail(err, PRED_EPARSE, "%sno input", "", 0, 0);
+		return fail(err, PRED_EPARSE, "no input");
 	while (fmt == PRED_FMT_SMILES && isspace((unsigned char)*input))
 		input++;
 	if (!*input)
-		return fail(err, PRED_EPARSE, "empty %s", fmt ? "mol block" : "smiles", 0, 0);
+		return fail(err, PRED_EPARSE, "empty %s", fmt ? "mol block" : "smiles");
 	size_t len = strnlen(input, MAX_INPUT_BYTES + 1);
 	if (len > MAX_INPUT_BYTES)
-		return fail(err, PRED_ELIMIT, "input longer than %s%.0f bytes", "",
-			    MAX_INPUT_BYTES, 0);
+		return fail(err, PRED_ELIMIT, "input longer than %d bytes", MAX_INPUT_BYTES);
 	long est = fmt == PRED_FMT_SMILES ? smiles_atom_estimate(input) : 0;
 	if (est > 4L * opt->max_heavy_atoms)
-		return fail(err, PRED_ELIMIT, "%sabout %.0f heavy atoms, over the limit of %.0f",
-			    "", (double)est, opt->max_heavy_atoms);
+		return fail(err, PRED_ELIMIT, "about %ld heavy atoms, over the limit of %d", est,
+			    opt->max_heavy_atoms);
 	return 0;
 }
 
@@ -95,19 +98,17 @@ static int check_atoms(obw_mol *mol, const pred_options *opt, pred_error *err)
 	size_t n = obw_mol_atoms(mol, &atoms), heavy = 0;
 	for (size_t i = 0; i < n; i++) {
 		if (!element_symbol(atoms[i].element)) {
-			char what[32];
-			snprintf(what, sizeof what, "%d", atoms[i].element);
 			return fail(err, PRED_EUNSUPPORTED,
-				    "unsupported element (atomic number %s) at atom %.0f%.0s", what,
-				    atoms[i].orig_index, 0);
+				    "unsupported element (atomic number %d) at atom %d",
+				    atoms[i].element, atoms[i].orig_index);
 		}
 		heavy += atoms[i].element != 1;
 	}
 	if (heavy == 0)
-		return fail(err, PRED_EPARSE, "%sno heavy atoms", "", 0, 0);
+		return fail(err, PRED_EPARSE, "no heavy atoms");
 	if (heavy > (size_t)opt->max_heavy_atoms)
-		return fail(err, PRED_ELIMIT, "%s%.0f heavy atoms, over the limit of %.0f", "",
-			    (double)heavy, opt->max_heavy_atoms);
+		return fail(err, PRED_ELIMIT, "%zu heavy atoms, over the limit of %d", heavy,
+			    opt->max_heavy_atoms);
 	return 0;
 }
 
@@ -191,7 +192,7 @@ static int build_sites(pred_result *r, const eng_mol *e, pred_worker *w, pred_er
 	free(micro);
 	free(sym);
 	if (rc)
-		fail(err, rc, "%scould not build the sites", "", 0, 0);
+		fail(err, rc, "could not build the sites");
 	return rc;
 }
 
@@ -203,7 +204,7 @@ static int parse_input(obw_mol **mol, pred_worker *w, const char *input, pred_fo
 									    : OBW_SMILES,
 			       msg, sizeof msg);
 	if (rc)
-		fail(err, rc, "%s", msg[0] ? msg : "unreadable molecule", 0, 0);
+		fail(err, rc, "%s", msg[0] ? msg : "unreadable molecule");
 	return rc;
 }
 
@@ -212,7 +213,7 @@ static int out_of_time(double start, const pred_options *opt, pred_error *err)
 	double spent = now_seconds() - start;
 	if (spent <= opt->max_seconds)
 		return 0;
-	return fail(err, PRED_ETIMEOUT, "%stook %.1f s, over the budget of %.1f s", "", spent,
+	return fail(err, PRED_ETIMEOUT, "took %.1f s, over the budget of %.1f s", spent,
 		    opt->max_seconds);
 }
 
@@ -224,7 +225,7 @@ static int finish(pred_result *r, eng_mol *e, pred_worker *w, const pred_options
 	r->smiles = can ? res_strdup(r, can) : NULL;
 	free(can);
 	if (!r->smiles)
-		return fail(err, PRED_EINTERNAL, "canonical smiles: %s", msg, 0, 0);
+		return fail(err, PRED_EINTERNAL, "canonical smiles: %s", msg);
 	int *site_atoms = calloc(e->n_sites + 1, sizeof *site_atoms);
 	if (!site_atoms)
 		return PRED_ENOMEM;
@@ -275,7 +276,7 @@ int pred_predict(pred_result **out, pred_worker *w, const char *input, pred_form
 	eng_mol e = {0};
 	pred_result *r = calloc(1, sizeof *r);
 	if (!r)
-		return fail(err, PRED_ENOMEM, "%sout of memory", "", 0, 0);
+		return fail(err, PRED_ENOMEM, "out of memory");
 	r->ph = opt->ph;
 	rc = parse_input(&mol, w, input, fmt, err);
 	if (!rc)

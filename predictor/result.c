@@ -5,6 +5,7 @@
 #include <stdlib.h>
 #include <string.h>
 
+#include "model.h"
 #include "result.h"
 
 struct res_chunk {

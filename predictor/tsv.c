@@ -75,7 +75,9 @@ static int add_row(tsv_table *t, char *line, int lineno, pred_error *err)
 
 static int set_header(tsv_table *t, char *line, int lineno, pred_error *err)
 {
-	size_t n = split_fields(line, NULL, 0);
+	size_t n = 1;
+	for (const char *p = line; *p; p++)
+		n += *p == '\t';
 	t->header = calloc(n, sizeof *t->header);
 	if (!t->header)
 		return tsv_fail(err, PRED_ENOMEM, t, lineno, "out of memory");

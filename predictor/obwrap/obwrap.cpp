@@ -99,10 +99,28 @@ static int explicit_h(OBAtom *a)
 	return n;
 }
 
+/* Hybridisation counted from the bonds, not from OBAtom::GetHyb(): Open Babel's atom typer
+ * switches the process locale on every call, which races between threads. A triple bond or
+ * two double bonds on C/N is sp, a double or aromatic bond sp2, otherwise sp3 (and
+ * four-connected S/P/Si... sp3); lone-pair atoms
+ * next to a pi system (amide N, phenol O) therefore read sp3. */
 static int hyb_of(OBAtom *a)
 {
-	int h = (int)a->GetHyb();
-	return (h >= 1 && h <= 3) ? h : 0;
+	int doubles = 0, triple = 0, aromatic = 0, bonds = 0;
+	FOR_BONDS_OF_ATOM (b, a) {
+		bonds++;
+		aromatic |= b->IsAromatic() ? 1 : 0;
+		doubles += b->GetBondOrder() == 2 ? 1 : 0;
+		triple |= b->GetBondOrder() == 3 ? 1 : 0;
+	}
+	if (a->GetAtomicNum() == 1 || (bonds == 0 && a->GetImplicitHCount() == 0))
+		return 0;
+	int z = (int)a->GetAtomicNum();
+	if (z > 10 && bonds + (int)a->GetImplicitHCount() >= 4)
+		return 3; /* sulfone S, phosphate P: tetrahedral despite the double bonds */
+	if (triple || (doubles >= 2 && (z == 6 || z == 7)))
+		return a->IsAromatic() ? 2 : 1;
+	return (doubles || aromatic || a->IsAromatic()) ? 2 : 3;
 }
 
 /* Orders the atoms of a ring along its bonds; falls back to OB's path order when the set

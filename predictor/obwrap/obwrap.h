@@ -47,7 +47,7 @@ typedef struct obw_atom {
 	int degree;     /* heavy-atom neighbours */
 	int valence;    /* sum of bond orders to heavy atoms (aromatic counted as 1.5 rounded
 			   the way Open Babel's kekulé form gives) */
-	int hyb;        /* 1 sp, 2 sp2, 3 sp3, 0 unknown */
+	int hyb;        /* 1 sp, 2 sp2, 3 sp3, 0 unknown; from the bonds (amide N reads 3) */
 	int radical;    /* spin multiplicity, 0 none */
 	int orig_index; /* 0-based index in the input's atom order */
 } obw_atom;

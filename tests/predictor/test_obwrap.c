@@ -63,6 +63,14 @@ static void test_obwrap__explicit_h_folds_and_keeps_input_index(void)
 	CHECK_INT_EQ(a[3].hcount, 3);
 	CHECK_INT_EQ(a[3].hyb, 3);
 	obw_mol_free(m);
+	m = parse("CC#N"); /* acetonitrile: sp carbon and nitrogen */
+	obw_mol_atoms(m, &a);
+	CHECK(m && a[1].hyb == 1 && a[2].hyb == 1 && a[0].hyb == 3);
+	obw_mol_free(m);
+	m = parse("CS(=O)(=O)O"); /* methanesulfonic acid: tetrahedral S */
+	obw_mol_atoms(m, &a);
+	CHECK(m && a[1].hyb == 3 && a[2].hyb == 2);
+	obw_mol_free(m);
 }
 
 /* Deuterium stays an atom; H2 and the proton stay what they are (common practice). */

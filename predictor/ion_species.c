@@ -1,0 +1,173 @@
+/* SPDX-License-Identifier: MIT */
+/* ion_species.c: the microspecies at one pH, written as SMILES with formal charges. */
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "ion_states.h"
+
+/* States below this fraction are not written out (symmetry-equivalent states are merged by
+ * SMILES first, so a group of small equivalent states can still pass the 1% report cut). */
+#define ION_CANDIDATE_MIN 0.001
+#define ION_CANDIDATE_MAX 64
+#define ION_REPORT_MIN 0.01
+
+typedef struct candidate {
+	size_t state;
+	double fraction;
+	int charge;
+	char *smiles; /* in the result arena, NULL without a molecule */
+} candidate;
+
+static int cmp_candidate(const void *a, const void *b)
+{
+	double x = ((const candidate *)a)->fraction, y = ((const candidate *)b)->fraction;
+	return (x < y) - (x > y);
+}
+
+/* Whether site i is charged in the species built from cluster state s: cluster sites from
+ * the bits, extra sites in their more likely form. */
+static int site_on(const ion_work *w, size_t s, size_t i, const unsigned char *is_extra)
+{
+	for (size_t x = 0; is_extra[i] && x < w->nx; x++)
+		if ((size_t)w->ex[x] == i)
+			return w->xp[x] >= 0.5;
+	for (size_t c = 0; c < w->nc; c++)
+		if ((size_t)w->cl[c] == i)
+			return (int)((s >> c) & 1u);
+	return 0;
+}
+
+static char *species_smiles(pred_result *r, const ion_work *w, const ion_input *in,
+			    size_t s, const unsigned char *is_extra, pred_error *err)
+{
+	obw_mol *mol = NULL;
+	char *smi = NULL, *out = NULL, *msg = err ? err->msg : NULL;
+	size_t msgn = err ? sizeof err->msg : 0;
+	const obw_atom *at; /* of the input molecule: the clone's arrays change with each edit */
+	int rc = obw_mol_clone(&mol, in->mol);
+	obw_mol_atoms(in->mol, &at);
+	for (size_t i = 0; i < w->n && !rc; i++) {
+		if (!site_on(w, s, i, is_extra))
+			continue;
+		int a = in->site_mol_atom[i], d = w->q_on[i];
+		/* acid: lose H+ (charge -1, one H fewer); base: gain H+ (charge +1, one H more) */
+		rc = obw_mol_set_atom(mol, a, at[a].charge + d, at[a].hcount + d);
+	}
+	if (rc && msg)
+		snprintf(msg, msgn, "cannot build a microspecies (code %d)", rc);
+	if (!rc)
+		rc = obw_mol_refresh(mol, msg, msgn);
+	if (!rc && !(smi = obw_mol_canonical(mol, in->ctx, msg, msgn)))
+		rc = PRED_EINTERNAL;
+	if (!rc && !(out = res_strdup(r, smi)))
+		rc = PRED_ENOMEM;
+	if (rc && err)
+		err->code = rc;
+	free(smi);
+	obw_mol_free(mol);
+	return out;
+}
+
+/* Without a molecule (tests of the model on hand-built sites) a species is written as one
+ * character per site in site order: '-' ionised acid, '+' protonated base, '0' neutral. */
+static char *state_string(pred_result *r, const ion_work *w, size_t s,
+			  const unsigned char *is_extra)
+{
+	char *out = res_alloc(r, w->n + 1);
+	for (size_t i = 0; out && i < w->n; i++)
+		out[i] = site_on(w, s, i, is_extra) ? (w->q_on[i] < 0 ? '-' : '+') : '0';
+	return out;
+}
+
+/* Insert into the most-abundant-first list cand[0..nc), at most ION_CANDIDATE_MAX long. */
+static size_t insert_candidate(candidate *cand, size_t nc, size_t s, double f)
+{
+	size_t at = nc < ION_CANDIDATE_MAX ? nc : ION_CANDIDATE_MAX - 1;
+	if (nc == ION_CANDIDATE_MAX && f <= cand[at].fraction)
+		return nc;
+	while (at > 0 && cand[at - 1].fraction < f) {
+		cand[at] = cand[at - 1];
+		at--;
+	}
+	cand[at] = (candidate){s, f, 0, NULL};
+	return nc < ION_CANDIDATE_MAX ? nc + 1 : nc;
+}
+
+/* Cluster states worth writing (the dominant one always), most abundant first. */
+static size_t pick_states(const ion_work *w, candidate *cand)
+{
+	size_t nc = 0, top = 0;
+	double ext = 1;
+	for (size_t x = 0; x < w->nx; x++)
+		ext *= w->xp[x] >= 0.5 ? w->xp[x] : 1 - w->xp[x];
+	for (size_t s = 1; s < w->ns; s++)
+		if (w->frac[s] > w->frac[top])
+			top = s;
+	for (size_t s = 0; s < w->ns; s++)
+		if (s == top || w->frac[s] * ext >= ION_CANDIDATE_MIN)
+			nc = insert_candidate(cand, nc, s, w->frac[s] * ext);
+	return nc;
+}
+
+static int state_charge(const ion_work *w, size_t s, const unsigned char *is_extra)
+{
+	int q = w->fixed;
+	for (size_t i = 0; i < w->n; i++)
+		q += site_on(w, s, i, is_extra) ? w->q_on[i] : 0;
+	return q;
+}
+
+/* Merge candidates with the same SMILES (symmetry-equivalent microstates). */
+static size_t merge_same(candidate *cand, size_t nc)
+{
+	size_t out = 0;
+	for (size_t i = 0; i < nc; i++) {
+		size_t j = 0;
+		while (j < out && !(cand[i].smiles && cand[j].smiles &&
+				    !strcmp(cand[i].smiles, cand[j].smiles)))
+			j++;
+		if (j < out)
+			cand[j].fraction += cand[i].fraction;
+		else
+			cand[out++] = cand[i];
+	}
+	qsort(cand, out, sizeof *cand, cmp_candidate);
+	return out;
+}
+
+static int write_species(pred_result *r, const candidate *cand, size_t nc)
+{
+	size_t keep = 1;
+	while (keep < nc && cand[keep].fraction >= ION_REPORT_MIN)
+		keep++;
+	r->species = res_alloc(r, keep * sizeof *r->species);
+	if (!r->species)
+		return PRED_ENOMEM;
+	for (size_t i = 0; i < keep; i++)
+		r->species[i] = (pred_species){cand[i].smiles, cand[i].fraction, cand[i].charge};
+	r->n_species = keep;
+	return 0;
+}
+
+int ion_species_fill(pred_result *r, const ion_work *w, const ion_input *in, pred_error *err)
+{
+	candidate *cand = res_alloc(r, ION_CANDIDATE_MAX * sizeof *cand);
+	unsigned char *is_extra = res_alloc(r, w->n + 1);
+	if (!cand || !is_extra)
+		return PRED_ENOMEM;
+	for (size_t x = 0; x < w->nx; x++)
+		is_extra[w->ex[x]] = 1;
+	size_t nc = pick_states(w, cand);
+	for (size_t i = 0; i < nc; i++) {
+		cand[i].charge = state_charge(w, cand[i].state, is_extra);
+		if (!in || !in->mol) {
+			if (!(cand[i].smiles = state_string(r, w, cand[i].state, is_extra)))
+				return PRED_ENOMEM;
+			continue;
+		}
+		if (!(cand[i].smiles = species_smiles(r, w, in, cand[i].state, is_extra, err)))
+			return err ? err->code : PRED_EINTERNAL;
+	}
+	return write_species(r, cand, merge_same(cand, nc));
+}

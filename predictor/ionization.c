@@ -1,0 +1,168 @@
+/* SPDX-License-Identifier: MIT */
+/* ionization.c: the ionization block of a result (macro pKa, charge, species, pI, curves). */
+#include <math.h>
+#include <stdio.h>
+#include <string.h>
+
+#include "ion_states.h"
+
+/* Used when the model has no global.interaction / global.interaction_decay rows: the fit of
+ * tests/tools/fit_interaction.py on 69 symmetric diacids and diamines of the shared
+ * reference data (handbook tables, IUPAC digitized dataset), see fragments/params.tsv. */
+#define ION_INTERACTION_DEFAULT 5.96
+#define ION_DECAY_DEFAULT 0.42
+
+#define ION_PH_MIN (-2.0)
+#define ION_PH_MAX 16.0
+#define ION_CURVE_MAX 14.0
+
+static double param_value(const pred_model *m, int idx, const char *id, double fallback)
+{
+	if (!m)
+		return fallback;
+	if (idx < 0 || (size_t)idx >= m->n_params || strcmp(m->params[idx].id, id))
+		idx = model_param_find(m, id);
+	return idx >= 0 ? m->params[idx].value : fallback;
+}
+
+double ionization_pair_shift(const pred_model *m, int bonds)
+{
+	if (bonds < 1)
+		return 0; /* same atom or not connected (separate fragments) */
+	double a = param_value(m, m ? m->p_interaction : -1, "global.interaction",
+			       ION_INTERACTION_DEFAULT);
+	double decay = param_value(m, m ? m->p_interaction_decay : -1,
+				   "global.interaction_decay", ION_DECAY_DEFAULT);
+	/* W(d) = A exp(-k (d - 1)), the form fragment_table.c documents for these parameters */
+	return a * exp(-decay * (bonds - 1));
+}
+
+static int set_err(pred_error *err, int code, const char *msg)
+{
+	if (err) {
+		err->code = code;
+		snprintf(err->msg, sizeof err->msg, "%s", msg);
+	}
+	return code;
+}
+
+static void kinds_present(const pred_result *r, int *acid, int *base)
+{
+	*acid = *base = 0;
+	for (size_t i = 0; i < r->n_sites; i++) {
+		*acid |= r->sites[i].kind == PRED_ACID;
+		*base |= r->sites[i].kind == PRED_BASE;
+	}
+}
+
+/* Isoelectric point: the root of net charge = 0, by bisection (the charge falls
+ * monotonically with pH). Only for molecules with both acid and base sites. */
+static void fill_isoelectric(pred_result *r, ion_work *w)
+{
+	int acid, base;
+	kinds_present(r, &acid, &base);
+	if (!acid || !base)
+		return;
+	double lo = ION_PH_MIN, hi = ION_PH_MAX;
+	if (ion_work_eval(w, lo) <= 0 || ion_work_eval(w, hi) >= 0)
+		return;
+	for (int it = 0; it < 60; it++) {
+		double mid = 0.5 * (lo + hi);
+		if (ion_work_eval(w, mid) > 0)
+			lo = mid;
+		else
+			hi = mid;
+	}
+	r->has_pi = 1;
+	r->pi = 0.5 * (lo + hi);
+}
+
+static int alloc_curves(pred_result *r, size_t np, size_t nq)
+{
+	pred_curves *c = res_alloc(r, sizeof *c);
+	double *ph = res_alloc(r, np * sizeof *ph), *charge = res_alloc(r, np * sizeof *charge);
+	double *frac = res_alloc(r, np * nq * sizeof *frac);
+	int *series = res_alloc(r, nq * sizeof *series);
+	if (!c || !ph || !charge || !frac || !series)
+		return PRED_ENOMEM;
+	*c = (pred_curves){np, ph, charge, nq, series, frac};
+	r->curves = c;
+	return 0;
+}
+
+/* Charge and fraction by net charge state over pH 0..14; one series per possible charge,
+ * from the most negative (every acid ionised) to the most positive. */
+static int fill_curves(pred_result *r, ion_work *w, double step)
+{
+	int na = 0, nb = 0;
+	for (size_t i = 0; i < w->n; i++)
+		*(w->q_on[i] < 0 ? &na : &nb) += 1;
+	size_t np = (size_t)floor(ION_CURVE_MAX / step + 1e-9) + 1, nq = (size_t)(na + nb + 1);
+	int lo = w->fixed - na;
+	double *dist = res_alloc(r, nq * sizeof *dist);
+	if (!dist || alloc_curves(r, np, nq))
+		return PRED_ENOMEM;
+	double *ph = (double *)r->curves->ph, *charge = (double *)r->curves->charge;
+	double *frac = (double *)r->curves->fraction;
+	for (size_t q = 0; q < nq; q++)
+		((int *)r->curves->series_charge)[q] = lo + (int)q;
+	for (size_t k = 0; k < np; k++) {
+		ph[k] = k * step;
+		charge[k] = ion_work_eval(w, ph[k]);
+		ion_work_charge_dist(w, lo, nq, dist);
+		for (size_t q = 0; q < nq; q++)
+			frac[q * np + k] = dist[q];
+	}
+	return 0;
+}
+
+static int check_options(const pred_options *opt, pred_error *err)
+{
+	char msg[128];
+	if (!(opt->ph >= ION_PH_MIN && opt->ph <= ION_PH_MAX)) {
+		snprintf(msg, sizeof msg, "ph %g is outside %g..%g", opt->ph, ION_PH_MIN, ION_PH_MAX);
+		return set_err(err, PRED_EINVAL, msg);
+	}
+	if (opt->curves && !(opt->curve_step >= 0.01 && opt->curve_step <= 14)) {
+		snprintf(msg, sizeof msg, "curve step %g is outside 0.01..14", opt->curve_step);
+		return set_err(err, PRED_EINVAL, msg);
+	}
+	return 0;
+}
+
+static int warn_approximate(pred_result *r, const ion_work *w, double ph)
+{
+	r->approximate = 1;
+	return res_warn(r,
+			"ionization approximate: %zu sites exceed the exact limit of %d; the %d "
+			"with pKa nearest pH %.2f are enumerated exactly, the other %zu are treated "
+			"as independent sites in the mean charge field of the rest",
+			w->n, ION_EXACT_MAX, ION_EXACT_MAX, ph, w->nx);
+}
+
+int ionization_fill(pred_result *r, const pred_model *m, const ion_input *in,
+		    const pred_options *opt, pred_error *err)
+{
+	ion_work w;
+	int rc = check_options(opt, err);
+	if (rc)
+		return rc;
+	if (ion_work_init(&w, r, m, in, opt->ph))
+		return set_err(err, PRED_ENOMEM, "out of memory in the ionization model");
+	if (w.nx && warn_approximate(r, &w, opt->ph))
+		return set_err(err, PRED_ENOMEM, "out of memory in the ionization model");
+	r->macro = res_alloc(r, (w.n + 1) * sizeof *r->macro);
+	if (!r->macro)
+		return set_err(err, PRED_ENOMEM, "out of memory in the ionization model");
+	ion_work_macro(&w, opt->ph, r->macro);
+	r->n_macro = w.n;
+	r->ph = opt->ph;
+	r->charge = ion_work_eval(&w, opt->ph);
+	if ((rc = ion_species_fill(r, &w, in, err)))
+		return rc == PRED_ENOMEM ? set_err(err, rc, "out of memory in the ionization model")
+					 : rc;
+	fill_isoelectric(r, &w);
+	if (opt->curves && fill_curves(r, &w, opt->curve_step))
+		return set_err(err, PRED_ENOMEM, "out of memory in the ionization model");
+	return 0;
+}

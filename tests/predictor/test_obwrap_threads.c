@@ -1,0 +1,168 @@
+/* SPDX-License-Identifier: MIT */
+/* test_obwrap_threads.c: workers with their own obw_ctx and patterns give the single-thread
+ * results on the NCI set (the recipe of DESIGN.md "Known hazards"); run it under TSan too. */
+#include <pthread.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "harness.h"
+#include "obwrap.h"
+
+#define NCI_SET "/usr/share/RDKit/Data/NCI/first_5K.smi"
+#define N_THREADS 2
+#define MAX_MOLS 5000
+
+static const char *smarts[] = {"[OX2H]C=O", "[OX2H]c", "[NX3;H2,H1;!$(NC=O)]", "n", "[#7+]",
+			       "[SX4](=O)(=O)[OX2H,OX1-]", "c1ccccc1", "[R2]"};
+enum { N_PATTERNS = sizeof smarts / sizeof smarts[0] };
+
+typedef struct job {
+	char **lines;
+	size_t n;
+	char **results; /* one malloc'd summary per line */
+	int failed;
+} job;
+
+static int load_lines(char ***out, const char *path)
+{
+	FILE *f = fopen(path, "r");
+	char buf[8192];
+	size_t n = 0;
+	*out = NULL;
+	if (!f)
+		return -1;
+	char **lines = calloc(MAX_MOLS, sizeof *lines);
+	while (lines && n < MAX_MOLS && fgets(buf, sizeof buf, f))
+		lines[n++] = strdup(buf);
+	fclose(f);
+	*out = lines;
+	return (int)n;
+}
+
+/* Canonical SMILES, ring count, symmetry class count and the match count of every pattern,
+ * as one comparable line (or the parse error). */
+static char *summarise(obw_ctx *c, obw_pattern **pats, const char *line)
+{
+	char msg[256], buf[8192];
+	obw_mol *m = NULL;
+	if (obw_mol_parse(&m, c, line, OBW_SMILES, msg, sizeof msg))
+		return strdup(msg);
+	obw_rings r;
+	const obw_atom *a;
+	size_t na = obw_mol_atoms(m, &a);
+	obw_mol_rings(m, &r);
+	int *cls = calloc(na ? na : 1, sizeof *cls), maxc = 0;
+	if (cls && obw_mol_symmetry(m, cls, na, msg, sizeof msg) == 0)
+		for (size_t i = 0; i < na; i++)
+			maxc = cls[i] > maxc ? cls[i] : maxc;
+	free(cls);
+	char *can = obw_mol_canonical(m, c, msg, sizeof msg);
+	int len = snprintf(buf, sizeof buf, "%s r%zu s%d", can ? can : msg, r.n_rings, maxc);
+	free(can);
+	for (int k = 0; k < N_PATTERNS && len > 0 && (size_t)len < sizeof buf; k++) {
+		int *hits = NULL;
+		int nm = obw_pattern_match(&hits, pats[k], m);
+		free(hits);
+		len += snprintf(buf + len, sizeof buf - (size_t)len, " %d", nm);
+	}
+	obw_mol_free(m);
+	return strdup(buf);
+}
+
+/* A hand-written V2000 block of methanol (common practice): the mol-block reader runs in
+ * the workers too. */
+static const char methanol_mol[] =
+	"methanol\n  handmade\n\n"
+	"  2  1  0  0  0  0  0  0  0  0999 V2000\n"
+	"    0.0000    0.0000    0.0000 C   0  0  0  0  0  0  0  0  0  0  0  0\n"
+	"    1.4000    0.0000    0.0000 O   0  0  0  0  0  0  0  0  0  0  0  0\n"
+	"  1  2  1  0  0  0  0\nM  END\n";
+
+static int molblock_ok(obw_ctx *c)
+{
+	obw_mol *m = NULL;
+	char *s = NULL;
+	if (obw_mol_parse(&m, c, methanol_mol, OBW_MOLBLOCK, NULL, 0) == 0)
+		s = obw_mol_canonical(m, c, NULL, 0);
+	int ok = s && !strcmp(s, "CO");
+	free(s);
+	obw_mol_free(m);
+	return ok;
+}
+
+static void *run_job(void *arg)
+{
+	job *j = arg;
+	obw_ctx *c = obw_ctx_new();
+	obw_pattern *pats[N_PATTERNS] = {0};
+	int ok = c != NULL;
+	for (int k = 0; k < N_PATTERNS; k++)
+		ok = ok && (pats[k] = obw_pattern_parse(smarts[k], NULL, 0)) != NULL;
+	for (size_t i = 0; ok && i < j->n; i++) {
+		j->results[i] = summarise(c, pats, j->lines[i]);
+		ok = i % 50 || molblock_ok(c);
+	}
+	j->failed = !ok;
+	for (int k = 0; k < N_PATTERNS; k++)
+		obw_pattern_free(pats[k]);
+	obw_ctx_free(c);
+	return NULL;
+}
+
+static void free_results(char **r, size_t n)
+{
+	for (size_t i = 0; r && i < n; i++)
+		free(r[i]);
+	free(r);
+}
+
+/* Every thread's results equal the single-thread reference, line by line. */
+static void compare(job *ref, job *jobs)
+{
+	for (int t = 0; t < N_THREADS; t++) {
+		CHECK(!jobs[t].failed);
+		size_t diff = 0;
+		for (size_t i = 0; i < ref->n; i++)
+			if (!jobs[t].results[i] || strcmp(jobs[t].results[i], ref->results[i])) {
+				if (diff++ < 3)
+					fprintf(stderr, "thread %d line %zu: '%s' vs '%s'\n", t, i + 1,
+						jobs[t].results[i], ref->results[i]);
+			}
+		CHECK_INT_EQ(diff, 0);
+	}
+}
+
+static void test_obwrap_threads__workers_match_single_thread(char **lines, size_t n)
+{
+	job ref = {lines, n, calloc(n, sizeof(char *)), 0}, jobs[N_THREADS];
+	pthread_t tid[N_THREADS];
+	run_job(&ref);
+	CHECK(!ref.failed);
+	for (int t = 0; t < N_THREADS; t++) {
+		jobs[t] = (job){lines, n, calloc(n, sizeof(char *)), 0};
+		CHECK_INT_EQ(pthread_create(&tid[t], NULL, run_job, &jobs[t]), 0);
+	}
+	for (int t = 0; t < N_THREADS; t++)
+		pthread_join(tid[t], NULL);
+	compare(&ref, jobs);
+	printf("threads: %d workers x %zu molecules agree with one thread\n", N_THREADS, n);
+	for (int t = 0; t < N_THREADS; t++)
+		free_results(jobs[t].results, n);
+	free_results(ref.results, n);
+}
+
+int main(void)
+{
+	char msg[256] = "", **lines = NULL;
+	CHECK_INT_EQ(obw_global_init(msg, sizeof msg), 0);
+	int n = load_lines(&lines, NCI_SET);
+	if (n < 0) {
+		printf("skip: %s missing (install rdkit-data)\n", NCI_SET);
+		return harness_done();
+	}
+	CHECK(n > 1000);
+	test_obwrap_threads__workers_match_single_thread(lines, (size_t)n);
+	free_results(lines, (size_t)n);
+	return harness_done();
+}
