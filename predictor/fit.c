@@ -19,6 +19,7 @@ void pred_fit_options_init(pred_fit_options *opt)
 	opt->search_falloff = 1;
 	opt->falloff_lo = 0.30;
 	opt->falloff_hi = 0.60;
+	opt->falloff_sd = 0.1;
 }
 
 static int set_err(pred_error *err, int code, const char *msg)
@@ -157,9 +158,10 @@ static double objective(const pred_model *m, const fit_state *s, const pred_fit_
 		double z = (s->theta[j] - p->prior) / p->prior_sd;
 		J += 0.5 * z * z;
 	}
-	if (m->p_falloff >= 0 && m->params[m->p_falloff].prior_sd > 0) {
+	if (m->p_falloff >= 0 && opt->search_falloff) {
 		const pred_param *p = &m->params[m->p_falloff];
-		double z = (s->falloff - p->prior) / p->prior_sd;
+		double sd = p->prior_sd > 0 ? p->prior_sd : opt->falloff_sd;
+		double z = (s->falloff - p->prior) / sd;
 		J += 0.5 * z * z;
 	}
 	return J;
@@ -304,8 +306,7 @@ static int fit_run(pred_fit_report *rep, pred_model *m, const pred_fit_row *rows
 {
 	fit_state s = {0};
 	double *cv = NULL, f0 = m->p_falloff >= 0 ? m->params[m->p_falloff].value : 0;
-	int search = opt->search_falloff && m->p_falloff >= 0 &&
-		     m->params[m->p_falloff].prior_sd > 0;
+	int search = opt->search_falloff && m->p_falloff >= 0;
 	int rc = evaluate(&s, m, f0, rows, n, opt, err);
 	if (rc)
 		goto done;
@@ -322,6 +323,8 @@ static int fit_run(pred_fit_report *rep, pred_model *m, const pred_fit_row *rows
 	if (search) {
 		m->params[m->p_falloff].value = s.falloff;
 		m->params[m->p_falloff].n = (int)s.d.n;
+		if (m->params[m->p_falloff].prior_sd <= 0)
+			m->params[m->p_falloff].prior_sd = opt->falloff_sd;
 		rep->fitted[m->p_falloff] = 1;
 	}
 	rep->sum = (pred_fit_summary){n, s.d.n, s.d.n_unreadable, s.d.n_unmatched,

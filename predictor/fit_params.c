@@ -27,21 +27,38 @@ static int is_refit(const pred_model *m, const pred_fit_report *rep, const char 
 	return 0;
 }
 
-/* Copies the data rows of the old file that the fit left alone (other helpers' rows). */
-static void keep_old_rows(FILE *out, const pred_model *m, const pred_fit_report *rep,
-			  const char *text)
+/* Comment lines that a previous `pkad fit` wrote (replaced, not kept). */
+static int own_comment(const char *line)
+{
+	static const char *const mine[] = {"# params.tsv: fitted parameters, written by",
+					   "# params_version:", "# data_version:", "# fitted on",
+					   "# fit:", "# weighted train"};
+	for (size_t i = 0; i < sizeof mine / sizeof mine[0]; i++)
+		if (!strncmp(line, mine[i], strlen(mine[i])))
+			return 1;
+	return 0;
+}
+
+/* Copies from the old file either its foreign comment lines (comments != 0) or the data rows
+ * that the fit left alone (other helpers' rows, e.g. global.interaction*). */
+static void keep_old(FILE *out, const pred_model *m, const pred_fit_report *rep,
+		     const char *text, int comments)
 {
 	const char *p = text;
 	int header_seen = 0;
 	while (p && *p) {
 		const char *nl = strchr(p, '\n');
 		size_t len = nl ? (size_t)(nl - p) + 1 : strlen(p);
-		if (*p != '#' && *p != '\n' && *p != '\r') {
-			if (!header_seen)
-				header_seen = 1; /* the column header row */
-			else if (!is_refit(m, rep, p))
-				fwrite(p, 1, len, out);
-			if (!nl && len)
+		int keep = 0;
+		if (*p == '#')
+			keep = comments && !own_comment(p);
+		else if (*p != '\n' && *p != '\r' && !header_seen++)
+			keep = 0; /* the column header row */
+		else if (*p != '\n' && *p != '\r')
+			keep = !comments && !is_refit(m, rep, p);
+		if (keep) {
+			fwrite(p, 1, len, out);
+			if (!nl)
 				fputc('\n', out);
 		}
 		p = nl ? nl + 1 : NULL;
@@ -74,15 +91,15 @@ static void write_header(FILE *f, const pred_fit_report *rep, const char *data_v
 	strftime(date, sizeof date, "%Y-%m-%d", &tm);
 	fprintf(f, "# params.tsv: fitted parameters, written by `pkad fit` on %s; do not edit the "
 		   "fitted rows by hand (refit instead)\n", date);
-	fprintf(f, "# data: %s (train split only; derived from the reference data under data/, "
-		   "see data/README.md for sources and licences)\n", data_version);
+	fprintf(f, "# params_version: fit-%s\n# data_version: %s\n", date, data_version);
+	fprintf(f, "# fitted on the train split only; derived from the reference data under data/ "
+		   "(sources and licences in data/README.md)\n");
 	fprintf(f, "# fit: %zu rows offered, %zu used, %zu unreadable, %zu without a matching "
 		   "site; %zu parameters\n", s->n_rows, s->n_used, s->n_unreadable,
 		s->n_unmatched, s->n_params);
 	fprintf(f, "# weighted train rmse %.3f before, %.3f after; %s cross-validated rmse %.3f;"
 		   " fall-off %.3f\n", s->rmse_before, s->rmse_after, "k-fold", s->rmse_cv,
 		s->falloff);
-	fprintf(f, "id\tvalue\tprior\tprior_sd\tn\trmse_cv\tnote\n");
 }
 
 int pred_fit_write_params(const pred_model *m, const pred_fit_report *rep, const char *path,
@@ -100,6 +117,9 @@ int pred_fit_write_params(const pred_model *m, const pred_fit_report *rep, const
 		return set_err(err, PRED_EINVAL, "cannot write file", tmp);
 	}
 	write_header(f, rep, data_version ? data_version : "unknown");
+	if (old)
+		keep_old(f, m, rep, old, 1);
+	fprintf(f, "id\tvalue\tprior\tprior_sd\tn\trmse_cv\tnote\n");
 	for (size_t p = 0; p < m->n_params && p < rep->n_params; p++) {
 		const pred_param *q = &m->params[p];
 		if (rep->fitted[p])
@@ -108,7 +128,7 @@ int pred_fit_write_params(const pred_model *m, const pred_fit_report *rep, const
 				rep->fitted[p] == 1 ? "fitted" : "not fitted; class rmse only");
 	}
 	if (old)
-		keep_old_rows(f, m, rep, old);
+		keep_old(f, m, rep, old, 0);
 	if (fclose(f) != 0 || rename(tmp, path) != 0)
 		rc = set_err(err, PRED_EINVAL, "cannot write file", path);
 	free(old);

@@ -95,4 +95,45 @@ typedef struct srv_point {
 int srv_plot_svg(FILE *f, const srv_point *pts, size_t n, char *const *class_names,
 		 size_t n_classes, const char *title);
 
+
+/* ---- a validation run ------------------------------------------------------------------ */
+
+typedef enum srv_eval_status { SRV_EVAL_OK = 0, SRV_EVAL_NO_SITE, SRV_EVAL_UNREADABLE } srv_eval_status;
+
+/** The outcome of one reference row. */
+typedef struct srv_eval {
+	const srv_ref *ref;
+	const char *file;
+	srv_eval_status status;
+	double predicted, uncertainty;
+	char cls[64];   /* class the row is scored under */
+	char group[48]; /* group of the matched site, "" when none */
+	char diag[160]; /* short diagnosis of the error (see validate_run.c) */
+	char msg[300];  /* why the SMILES could not be read */
+} srv_eval;
+
+/** Every evaluated row plus the overall and per-class figures. */
+typedef struct srv_validation {
+	srv_stat all;
+	srv_class_stats classes;
+	srv_eval *evals;
+	size_t n_evals, cap_evals;
+	size_t n_unreadable;
+} srv_validation;
+
+/** Predicts the rows (all of them; filter before) and scores them. Returns 0 or
+ *  PRED_ENOMEM; unreadable SMILES are recorded, not errors. */
+int srv_validation_add(srv_validation *v, pred_worker *w, const srv_ref *rows, size_t n,
+		       const char *file);
+void srv_validation_clear(srv_validation *v);
+/** Indices of the scored rows sorted by |residual|, largest first; malloc'd (*n of them). */
+size_t *srv_validation_worst(const srv_validation *v, size_t *n);
+
+/** Reports: a text summary or a Markdown section (tables, worst rows, unreadable rows). */
+void srv_validation_print_text(FILE *f, const srv_validation *v, size_t worst);
+void srv_validation_print_markdown(FILE *f, const srv_validation *v, size_t worst,
+				   const char *title);
+/** Parity plot of the scored rows. */
+int srv_validation_plot(const srv_validation *v, const char *path, const char *title);
+
 #endif

@@ -196,6 +196,7 @@ typedef struct pred_fit_options {
 	double huber;        /* residual (pKa units) beyond which weights fall off; default 1.0 */
 	int search_falloff;  /* nonzero: outer 1-D search of the fall-off factor; default 1 */
 	double falloff_lo, falloff_hi; /* search interval; default 0.30 .. 0.60 */
+	double falloff_sd;   /* prior sd of the fall-off when the model gives none; default 0.1 */
 } pred_fit_options;
 
 void pred_fit_options_init(pred_fit_options *opt);
