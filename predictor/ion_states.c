@@ -24,10 +24,10 @@ static int site_atom(const ion_input *in, size_t i)
 
 static int site_bonds(const ion_input *in, size_t i, size_t j)
 {
-	int a = site_atom(in, i), b = site_atom(in, j);
-	if (!in || !in->dist || a < 0 || b < 0 || (size_t)a >= in->nat || (size_t)b >= in->nat)
+	int b = site_atom(in, j);
+	if (!in || !in->dist || b < 0 || (size_t)b >= in->nat)
 		return -1;
-	return in->dist[(size_t)a * in->nat + (size_t)b];
+	return in->dist[i * in->nat + (size_t)b];
 }
 
 /* The cluster is the ION_EXACT_MAX sites whose pKa lies nearest the requested pH (they

@@ -10,13 +10,13 @@
 #include "result.h"
 
 /* Input of the microstate model. site_mol_atom[i] is the molecule atom index (obw_mol
- * order) of r->sites[i]; dist is the nat x nat topological distance matrix (bonds; -1 when
- * not connected). The microscopic pKa of site i is r->micro[i] (the site's pKa without the
- * stepwise statistical and interaction terms, which the microstate model accounts for);
- * when r->micro is NULL the site pKa values are used.
- * mol may be NULL (tests of the model on hand-built sites): then no SMILES is written and
- * each species' smiles is its site-state string, one character per site in site order
- * ('-' ionised acid, '+' protonated base, '0' neutral); dist NULL means no interactions. */
+ * order) of r->sites[i]; dist holds one row of nat distances (bonds; -1 when not connected)
+ * per site: dist[i * nat + a] is the distance from site i's atom to atom a. The microscopic
+ * pKa of site i is r->micro[i] (the site's pKa without the stepwise statistical and
+ * interaction terms, which the microstate model accounts for; NULL: the site values).
+ * mol may be NULL (tests on hand-built sites): no SMILES is written and each species'
+ * smiles is its site-state string, one character per site ('-' ionised acid, '+'
+ * protonated base, '0' neutral); dist NULL means no interactions. */
 typedef struct ion_input {
 	obw_mol *mol;
 	obw_ctx *ctx;
