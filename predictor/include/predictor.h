@@ -262,6 +262,59 @@ const char *pred_deprotonation_caution(const pred_deprotonation *d, size_t i);
 size_t pred_deprotonation_warning_count(const pred_deprotonation *d);
 const char *pred_deprotonation_warning(const pred_deprotonation *d, size_t i);
 
+/* ---- fitting (`pkad fit`, `pkad validate`) -------------------------------------------- */
+
+/** Index of the site that an experimental value of (kind, index) refers to: the index-th most
+ *  acidic acid site (ascending pKa) or the index-th most basic base site (descending pKa);
+ *  index is 1-based. Returns -1 when the result has fewer sites of that kind. Thread-safe. */
+long pred_result_match(const pred_result *r, pred_kind kind, int index);
+
+/** One experimental value used for fitting; strings are borrowed from the caller. */
+typedef struct pred_fit_row {
+	const char *smiles;
+	pred_kind kind;
+	int pka_index;  /* 1-based, see pred_result_match */
+	double pka;
+	double weight;  /* relative weight, > 0 (e.g. lower for less reliable grades) */
+} pred_fit_row;
+
+/** Options of pred_fit; pred_fit_options_init fills the defaults. */
+typedef struct pred_fit_options {
+	int folds;           /* k of the k-fold cross-validation of the class rmse; default 5 */
+	double resid_sd;     /* expected residual sd scaling the ridge priors; default 0.5 */
+	double huber;        /* residual (pKa units) beyond which weights fall off; default 1.0 */
+	int search_falloff;  /* nonzero: outer 1-D search of the fall-off factor; default 1 */
+	double falloff_lo, falloff_hi; /* search interval; default 0.30 .. 0.60 */
+	double falloff_sd;   /* prior sd of the fall-off when the model gives none; default 0.1 */
+} pred_fit_options;
+
+void pred_fit_options_init(pred_fit_options *opt);
+
+typedef struct pred_fit_report pred_fit_report;
+
+/** Refit the model's free parameters (prior_sd > 0) by weighted least squares with a ridge
+ *  towards their published priors, on the given rows (the caller passes the training split
+ *  only). On success the fitted values are in force in m; m must not be used by any worker
+ *  during the call (not thread-safe). Rows that cannot be read or have no matching site are
+ *  counted in the report. Free the report with pred_fit_report_free. */
+int pred_fit(pred_fit_report **out, pred_model *m, const pred_fit_row *rows, size_t n_rows,
+	     const pred_fit_options *opt, pred_error *err);
+void pred_fit_report_free(pred_fit_report *rep);
+
+/** Figures of a fit: rows used, rows unreadable, rows without a matching site, the weighted
+ *  training rmse before and after, the overall cross-validated rmse, the fall-off chosen. */
+typedef struct pred_fit_summary {
+	size_t n_rows, n_used, n_unreadable, n_unmatched, n_params;
+	double rmse_before, rmse_after, rmse_cv, falloff;
+} pred_fit_summary;
+void pred_fit_report_summary(const pred_fit_report *rep, pred_fit_summary *out);
+
+/** Writes params.tsv (format in fragments/README.md) with every fitted parameter; rows of an
+ *  existing file at path whose ids the fit did not touch are kept. data_version names the
+ *  data the fit used. Returns 0 or a PRED_E* with err set. */
+int pred_fit_write_params(const pred_model *m, const pred_fit_report *rep, const char *path,
+			  const char *data_version, pred_error *err);
+
 #ifdef __cplusplus
 }
 #endif
