@@ -17,14 +17,19 @@ static int fail(pred_error *err, int code, const char *msg)
 	return code;
 }
 
-/* "unknown base 'x'; known: NaHCO3, Na2CO3, ..." with the first alias (short) of each. */
+/* "unknown base 'x'; known: NaHCO3, Na2CO3, ..., DBU, ...": a short name of each. */
 static int unknown_base(const pred_model *m, const char *base, pred_error *err)
 {
 	char msg[sizeof err->msg];
 	int n = snprintf(msg, sizeof msg, "unknown base '%.40s'; known:", base);
 	for (size_t i = 0; i < m->n_bases && n > 0 && (size_t)n < sizeof msg; i++) {
-		const char *a = m->bases[i].aliases, *nm = a && *a ? a : m->bases[i].name;
-		size_t len = strcspn(nm, ",");
+		/* the shorter of the name and its first alias */
+		const char *a = m->bases[i].aliases, *nm = m->bases[i].name;
+		size_t len = strlen(nm);
+		if (a && *a && strcspn(a, ",") < len) {
+			nm = a;
+			len = strcspn(a, ",");
+		}
 		n += snprintf(msg + n, sizeof msg - (size_t)n, "%s %.*s", i ? "," : "", (int)len, nm);
 	}
 	return fail(err, PRED_EINVAL, msg);
