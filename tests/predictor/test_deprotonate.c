@@ -9,51 +9,16 @@
 #include "deprotonate.h"
 #include "fragment_table.h"
 #include "harness.h"
+#include "model_for_tests.h"
 
 static pred_model *model;
 static pred_worker *worker;
 
-static char *read_file(const char *path)
-{
-	FILE *f = fopen(path, "rb");
-	char *text = NULL;
-	long n;
-	if (!f)
-		return NULL;
-	if (fseek(f, 0, SEEK_END) == 0 && (n = ftell(f)) >= 0 && fseek(f, 0, SEEK_SET) == 0 &&
-	    (text = calloc((size_t)n + 1, 1)) && fread(text, 1, (size_t)n, f) != (size_t)n) {
-		free(text);
-		text = NULL;
-	}
-	fclose(f);
-	return text;
-}
-
-/* The repository's tables; while fragments/sites.tsv has not landed, the engine's fixture
- * tables plus the repository's bases.tsv (the model of record is checked either way). */
 static int load_model(void)
 {
-	const char *src = getenv("PKAD_SOURCE_DIR");
-	char path[4096];
 	pred_error err = {0};
-	if (pred_global_init(&err) || !src)
-		return fprintf(stderr, "PKAD_SOURCE_DIR not set or init failed: %s\n", err.msg), -1;
-	snprintf(path, sizeof path, "%s/fragments", src);
-	if (pred_model_load(&model, path, &err)) {
-		printf("note: %s; using tests/predictor/fixture with fragments/bases.tsv\n", err.msg);
-		snprintf(path, sizeof path, "%s/tests/predictor/fixture", src);
-		if (pred_model_load(&model, path, &err))
-			return fprintf(stderr, "fixture: %s\n", err.msg), -1;
-	}
-	if (!model->n_bases) {
-		snprintf(path, sizeof path, "%s/fragments/bases.tsv", src);
-		char *text = read_file(path);
-		int rc = text ? base_table_parse(model, text, "fragments/bases.tsv", &err) : -1;
-		free(text);
-		if (rc)
-			return fprintf(stderr, "bases.tsv: %s\n", err.msg), -1;
-	}
-	return pred_worker_new(&worker, model, &err);
+	model = model_for_tests();
+	return model ? pred_worker_new(&worker, model, &err) : -1;
 }
 
 static pred_deprotonation *run(const char *smiles, const char *base, double equiv, int atom)

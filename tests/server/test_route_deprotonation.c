@@ -5,51 +5,12 @@
 #include <stdlib.h>
 #include <string.h>
 
-#include "fragment_table.h"
 #include "harness.h"
+#include "model_for_tests.h"
 #include "routes.h"
 
 static srv_config cfg = {.max_atoms = 200, .timeout = 10, .max_body = 1 << 20};
 static srv_service svc = {.cfg = &cfg};
-
-static char *read_file(const char *path)
-{
-	FILE *f = fopen(path, "rb");
-	char *text = f ? calloc(1 << 20, 1) : NULL;
-	if (text && fread(text, 1, (1 << 20) - 1, f) == 0) {
-		free(text);
-		text = NULL;
-	}
-	if (f)
-		fclose(f);
-	return text;
-}
-
-/* The repository's tables, or the engine's fixture plus bases.tsv while sites.tsv is
- * not in fragments/ yet. */
-static pred_model *load_model(void)
-{
-	const char *src = getenv("PKAD_SOURCE_DIR");
-	char path[4096];
-	pred_model *m = NULL;
-	pred_error err = {0};
-	if (!src || pred_global_init(&err))
-		return NULL;
-	snprintf(path, sizeof path, "%s/fragments", src);
-	if (pred_model_load(&m, path, &err)) {
-		snprintf(path, sizeof path, "%s/tests/predictor/fixture", src);
-		if (pred_model_load(&m, path, &err))
-			return NULL;
-	}
-	if (!m->n_bases) {
-		snprintf(path, sizeof path, "%s/fragments/bases.tsv", src);
-		char *text = read_file(path);
-		if (!text || base_table_parse(m, text, "fragments/bases.tsv", &err))
-			fprintf(stderr, "bases.tsv: %s\n", err.msg);
-		free(text);
-	}
-	return m;
-}
 
 static srv_response post(const char *body, const char *type)
 {
@@ -106,7 +67,7 @@ static void test_route_bases__lists_the_table(void)
 
 int main(void)
 {
-	pred_model *m = load_model();
+	pred_model *m = model_for_tests();
 	if (!m) {
 		fprintf(stderr, "cannot load the model (PKAD_SOURCE_DIR)\n");
 		return 1;
