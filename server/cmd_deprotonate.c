@@ -21,27 +21,28 @@ typedef struct deprot_opts {
 } deprot_opts;
 
 static const struct option long_opts[] = {
-	{"base", required_argument, NULL, 'b'},    {"equiv", required_argument, NULL, 'e'},
-	{"atom", required_argument, NULL, 'a'},    {"list-bases", no_argument, NULL, 'l'},
-	{"format", required_argument, NULL, 'f'},  {"fragments", required_argument, NULL, 'F'},
-	{"help", no_argument, NULL, 'h'},          {NULL, 0, NULL, 0},
+    {"base", required_argument, NULL, 'b'},   {"equiv", required_argument, NULL, 'e'},
+    {"atom", required_argument, NULL, 'a'},   {"list-bases", no_argument, NULL, 'l'},
+    {"format", required_argument, NULL, 'f'}, {"fragments", required_argument, NULL, 'F'},
+    {"help", no_argument, NULL, 'h'},         {NULL, 0, NULL, 0},
 };
 
 static void usage(FILE *f)
 {
-	fprintf(f,
-		"usage: pkad deprotonate --base NAME|SMILES [--equiv X] [--atom N]\n"
-		"                        [--format text|json] [--fragments DIR] [SMILES]\n"
-		"       pkad deprotonate --list-bases [--format text|json]\n\n"
-		"Says whether a base deprotonates the acid sites of the substrate SMILES (or of\n"
-		"each SMILES line on stdin): delta pKa, equilibrium constant, fraction deprotonated,\n"
-		"verdict, by-product and the handling cautions of the base.\n\n"
-		"  --base NAME|SMILES  a base of the table (see --list-bases) or any base as SMILES\n"
-		"  --equiv X           equivalents of base per substrate (default 1)\n"
-		"  --atom N            only the acid site at input atom N (0-based)\n"
-		"  --list-bases        print the table of reagent bases\n"
-		"  --format text|json  output form (default text; json gives one object per line)\n"
-		"  --fragments DIR     load the model from DIR instead of the built-in one\n");
+	fprintf(
+	    f,
+	    "usage: pkad deprotonate --base NAME|SMILES [--equiv X] [--atom N]\n"
+	    "                        [--format text|json] [--fragments DIR] [SMILES]\n"
+	    "       pkad deprotonate --list-bases [--format text|json]\n\n"
+	    "Says whether a base deprotonates the acid sites of the substrate SMILES (or of\n"
+	    "each SMILES line on stdin): delta pKa, equilibrium constant, fraction deprotonated,\n"
+	    "verdict, by-product and the handling cautions of the base.\n\n"
+	    "  --base NAME|SMILES  a base of the table (see --list-bases) or any base as SMILES\n"
+	    "  --equiv X           equivalents of base per substrate (default 1)\n"
+	    "  --atom N            only the acid site at input atom N (0-based)\n"
+	    "  --list-bases        print the table of reagent bases\n"
+	    "  --format text|json  output form (default text; json gives one object per line)\n"
+	    "  --fragments DIR     load the model from DIR instead of the built-in one\n");
 }
 
 /* "pkad deprotonate: OPT 'ARG' PROBLEM" (arg NULL: "OPT PROBLEM"), usage, exit status 2. */
@@ -67,9 +68,15 @@ static int set_option(deprot_opts *o, int c, const char *arg)
 {
 	double x;
 	switch (c) {
-	case 'b': o->req.base = arg; return 0;
-	case 'l': o->list_bases = 1; return 0;
-	case 'F': o->fragments = arg; return 0;
+	case 'b':
+		o->req.base = arg;
+		return 0;
+	case 'l':
+		o->list_bases = 1;
+		return 0;
+	case 'F':
+		o->fragments = arg;
+		return 0;
 	case 'e':
 		if (parse_number(&o->req.equivalents, arg))
 			return usage_error("--equiv", arg, "is not a number");
@@ -84,8 +91,12 @@ static int set_option(deprot_opts *o, int c, const char *arg)
 			return usage_error("--format", arg, "is not text or json");
 		o->json = !strcmp(arg, "json");
 		return 0;
-	case 'h': usage(stdout); return 0;
-	default: usage(stderr); return 2;
+	case 'h':
+		usage(stdout);
+		return 0;
+	default:
+		usage(stderr);
+		return 2;
 	}
 }
 
@@ -144,15 +155,15 @@ static int list_bases(const pred_model *m, int json)
 
 static void print_site_text(const pred_deprot_site *s)
 {
-	printf("site: atom %d (%s, %s), pKa %.2f +- %.2f\n", s->atom, s->element, s->group,
-	       s->pka, s->uncertainty);
+	printf("site: atom %d (%s, %s), pKa %.2f +- %.2f\n", s->atom, s->element, s->group, s->pka,
+	       s->uncertainty);
 	printf("  delta pKa %+.2f, K = 10^%.2f, deprotonated at equilibrium: %.1f%%  -> %s\n",
 	       s->delta_pka, s->log_k, 100 * s->fraction, s->verdict);
 }
 
 static void print_list(const char *title, size_t n,
-		       const char *(*get)(const pred_deprotonation *, size_t),
-		       const pred_deprotonation *d)
+                       const char *(*get)(const pred_deprotonation *, size_t),
+                       const pred_deprotonation *d)
 {
 	if (!n)
 		return;

@@ -30,7 +30,8 @@ static int unknown_field_or_reply(srv_response *out, const cJSON *root)
 		while (allowed[k] && strcmp(allowed[k], c->string))
 			k++;
 		if (!allowed[k])
-			return srv_reply_error(out, "bad_request", "unknown field '%.60s'", c->string),
+			return srv_reply_error(out, "bad_request", "unknown field '%.60s'",
+			                       c->string),
 			       -1;
 	}
 	return 0;
@@ -50,7 +51,8 @@ static int request_or_reply(srv_response *out, const cJSON *root, pred_deprot_re
 		return -1;
 	if (!cJSON_IsString(smiles) || !cJSON_IsString(base))
 		return srv_reply_error(out, "bad_request",
-				       "'smiles' and 'base' are required strings"), -1;
+		                       "'smiles' and 'base' are required strings"),
+		       -1;
 	if (equiv && !cJSON_IsNumber(equiv))
 		return srv_reply_error(out, "bad_request", "'equivalents' is not a number"), -1;
 	if (atom && !cJSON_IsNull(atom) &&
@@ -70,7 +72,7 @@ static int request_or_reply(srv_response *out, const cJSON *root, pred_deprot_re
 /* A worker of its own: base matching is an interactive question, not a batch, and the
  * prediction pool runs only pKa jobs. */
 static int answer(srv_response *out, srv_service *svc, const pred_deprot_request *req,
-		  const char *id)
+                  const char *id)
 {
 	pred_worker *w = NULL;
 	pred_deprotonation *d = NULL;
@@ -96,7 +98,7 @@ int srv_route_deprotonation(srv_response *out, const srv_request *req, srv_servi
 	size_t err_at = 0;
 	if (!srv_media_type_is(req->content_type, "application/json"))
 		return srv_reply_error(out, "unsupported_media_type",
-				       "send the request as application/json");
+		                       "send the request as application/json");
 	cJSON *root = srv_json_parse(svc, req->body, req->body_len, &err_at);
 	if (!root)
 		return srv_reply_error(out, "bad_request", "malformed JSON near byte %zu", err_at);

@@ -38,9 +38,9 @@ static int setup_fragments(const char *src)
 	printf("note: no fragments/sites.tsv yet; using tests/predictor/fixture + bases.tsv\n");
 	if (system("mkdir -p deprot-fragments") != 0)
 		return -1;
-	const char *const files[] = {"tests/predictor/fixture/sites.tsv",
-				     "tests/predictor/fixture/substituents.tsv",
-				     "tests/predictor/fixture/corrections.tsv", "fragments/bases.tsv"};
+	const char *const files[] = {
+	    "tests/predictor/fixture/sites.tsv", "tests/predictor/fixture/substituents.tsv",
+	    "tests/predictor/fixture/corrections.tsv", "fragments/bases.tsv"};
 	for (size_t i = 0; i < 4; i++) {
 		snprintf(path, sizeof path, "%s/%s", src, files[i]);
 		snprintf(to, sizeof to, "deprot-fragments/%s", strrchr(files[i], '/') + 1);
@@ -75,8 +75,10 @@ static void run(run_out *r, const char *args, const char *in)
 		fputs(in ? in : "", f);
 		fclose(f);
 	}
-	snprintf(cmd, sizeof cmd, "\"%s\" deprotonate %s%s <deprot-in.txt >deprot-out.txt "
-		 "2>deprot-err.txt", getenv("PKAD_BIN"), frag_opt, args);
+	snprintf(cmd, sizeof cmd,
+	         "\"%s\" deprotonate %s%s <deprot-in.txt >deprot-out.txt "
+	         "2>deprot-err.txt",
+	         getenv("PKAD_BIN"), frag_opt, args);
 	int st = system(cmd);
 	r->status = WIFEXITED(st) ? WEXITSTATUS(st) : -1;
 	slurp("deprot-out.txt", r->out, sizeof r->out);

@@ -34,7 +34,8 @@ static pred_model *model_for_tests(void)
 		return fprintf(stderr, "PKAD_SOURCE_DIR unset or init failed %s\n", err.msg), NULL;
 	snprintf(path, sizeof path, "%s/fragments", src);
 	if (pred_model_load(&m, path, &err)) {
-		printf("note: %s; using tests/predictor/fixture with fragments/bases.tsv\n", err.msg);
+		printf("note: %s; using tests/predictor/fixture with fragments/bases.tsv\n",
+		       err.msg);
 		snprintf(path, sizeof path, "%s/tests/predictor/fixture", src);
 		if (pred_model_load(&m, path, &err))
 			return fprintf(stderr, "fixture: %s\n", err.msg), NULL;

@@ -37,8 +37,7 @@ static pred_deprotonation *run(const char *smiles, const char *base, double equi
 }
 
 /* Verdict of the first (most relevant) site, and the by-product must mention `by`. */
-static void check_verdict(const char *smiles, const char *base, const char *want,
-			  const char *by)
+static void check_verdict(const char *smiles, const char *base, const char *want, const char *by)
 {
 	pred_deprotonation *d = run(smiles, base, 1.0, -1);
 	CHECK(d != NULL);
@@ -50,7 +49,7 @@ static void check_verdict(const char *smiles, const char *base, const char *want
 		CHECK(strstr(pred_deprotonation_byproduct(d), by) != NULL);
 	size_t nc = pred_deprotonation_caution_count(d);
 	CHECK(nc >= 1 && strstr(pred_deprotonation_caution(d, nc - 1),
-				"local rules and institutional safety practice"));
+	                        "local rules and institutional safety practice"));
 	pred_deprotonation_free(d);
 }
 
@@ -102,8 +101,8 @@ static void test_deprotonate__organometallic_quenched_by_oh_names_byproduct(void
 static void test_deprotonate__cautions_of_hazardous_bases(void)
 {
 	const char *const pairs[][2] = {{"NaH", "flammable hydrogen"},
-					{"NaH", "reacts violently with water"},
-					{"n-BuLi", "pyrophoric"}};
+	                                {"NaH", "reacts violently with water"},
+	                                {"n-BuLi", "pyrophoric"}};
 	for (size_t k = 0; k < 3; k++) {
 		pred_deprotonation *d = run("CCO", pairs[k][0], 1.0, -1);
 		int found = 0;
@@ -149,7 +148,7 @@ static void test_deprotonate__base_as_smiles_is_predicted(void)
 }
 
 static int fails_with(const char *smiles, const char *base, double equiv, int atom,
-		      const char *needle)
+                      const char *needle)
 {
 	pred_deprot_request req = {smiles, atom, base, equiv};
 	pred_deprotonation *d = NULL;
@@ -186,8 +185,8 @@ static void test_deprotonate__mass_balance(void)
 
 static void test_base_table__names_match_loosely(void)
 {
-	const char *const names[] = {"nbuli", "N-BuLi", "n_butyllithium", "SODIUM HYDRIDE",
-				     "sodium-hydride", "lda", "KOtBu"};
+	const char *const names[] = {"nbuli",          "N-BuLi", "n_butyllithium", "SODIUM HYDRIDE",
+	                             "sodium-hydride", "lda",    "KOtBu"};
 	for (size_t i = 0; i < sizeof names / sizeof names[0]; i++)
 		CHECK(base_table_find(model, names[i]) >= 0);
 	CHECK_INT_EQ(base_table_find(model, "sodium"), -1);
@@ -204,21 +203,24 @@ static void expect_bad_table(const char *text, const char *needle)
 	CHECK(strstr(err.msg, needle) != NULL);
 	for (size_t i = 0; i < m.n_bases; i++) {
 		frag_base *b = &m.bases[i];
-		char *s[] = {b->name, b->aliases, b->conjugate_acid, b->conj_smiles,
-			     b->scale, b->byproduct, b->hazards, b->source};
+		char *s[] = {b->name,  b->aliases,   b->conjugate_acid, b->conj_smiles,
+		             b->scale, b->byproduct, b->hazards,        b->source};
 		for (size_t k = 0; k < 8; k++)
 			free(s[k]);
 	}
 	free(m.bases);
 }
 
-#define HDR "name\taliases\tconjugate_acid\tconjugate_acid_smiles\tpka\tscale\tpka_dmso\t" \
-	    "organometallic\tbyproduct\tescapes\thazards\tsource\n"
-#define ROW(name, alias, scale) name "\t" alias "\tacid\tO\t15.7\t" scale "\t\t0\twater\t0\tnone\tdemo\n"
+#define HDR                                                                                        \
+	"name\taliases\tconjugate_acid\tconjugate_acid_smiles\tpka\tscale\tpka_dmso\t"             \
+	"organometallic\tbyproduct\tescapes\thazards\tsource\n"
+#define ROW(name, alias, scale)                                                                    \
+	name "\t" alias "\tacid\tO\t15.7\t" scale "\t\t0\twater\t0\tnone\tdemo\n"
 
 static void test_base_table__rejects_bad_rows(void)
 {
-	expect_bad_table(HDR ROW("a", "x", "water") ROW("A", "", "water"), "bases.tsv:3: duplicate");
+	expect_bad_table(HDR ROW("a", "x", "water") ROW("A", "", "water"),
+	                 "bases.tsv:3: duplicate");
 	expect_bad_table(HDR ROW("a", "x", "water") ROW("b", "X", "water"), "alias 'X' is taken");
 	expect_bad_table(HDR ROW("a", "", "benzene"), "scale 'benzene'");
 	expect_bad_table("name\tpka\nx\t1\n", "expected 12 columns");

@@ -31,8 +31,8 @@ static hand make(const char *kinds, const double *pka, const int *bonds)
 	h.r->n_sites = n;
 	h.atom = res_alloc(h.r, n * sizeof *h.atom + 1);
 	for (size_t i = 0; i < n; i++) {
-		h.r->sites[i] = (pred_site){.atom = (int)i, .pka = pka[i],
-					    .kind = kinds[i] == 'a' ? PRED_ACID : PRED_BASE};
+		h.r->sites[i] = (pred_site){
+		    .atom = (int)i, .pka = pka[i], .kind = kinds[i] == 'a' ? PRED_ACID : PRED_BASE};
 		h.atom[i] = (int)i;
 	}
 	if (bonds) {
@@ -75,8 +75,8 @@ static void test_ionization__monoprotic_follows_henderson_hasselbalch(void)
 		CHECK_NEAR(a.r->macro[0], 4.76, 1e-9);
 		CHECK_NEAR(b.r->macro[0], 5.25, 1e-9);
 		for (size_t i = 0; i < a.r->n_species; i++)
-			CHECK_NEAR(a.r->species[i].fraction,
-				   a.r->species[i].charge ? fa : 1 - fa, 1e-9);
+			CHECK_NEAR(a.r->species[i].fraction, a.r->species[i].charge ? fa : 1 - fa,
+			           1e-9);
 		CHECK(!a.r->has_pi && !b.r->has_pi);
 		pred_result_free(a.r);
 		pred_result_free(b.r);
@@ -96,7 +96,7 @@ static void check_symmetric(char kind, double pk_first, double pk_second, int bo
 	double lo = kind == 'a' ? pk_first : pk_second, hi = kind == 'a' ? pk_second : pk_first;
 	/* exact two-site theory: the macro gap is W + 2 log 2 (common practice) */
 	CHECK_NEAR(h.r->macro[1] - h.r->macro[0], ionization_pair_shift(NULL, bonds) + 2 * LOG2,
-		   1e-6);
+	           1e-6);
 	CHECK_NEAR(h.r->macro[0], lo, TOL_INTERACTION);
 	CHECK_NEAR(h.r->macro[1], hi, TOL_INTERACTION);
 	pred_result_free(h.r);

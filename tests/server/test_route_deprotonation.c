@@ -1,5 +1,6 @@
 /* SPDX-License-Identifier: MIT */
-/* test_route_deprotonation.c: POST /v1/deprotonation and GET /v1/bases, handlers called directly. */
+/* test_route_deprotonation.c: POST /v1/deprotonation and GET /v1/bases, handlers called directly.
+ */
 #include <pthread.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -14,8 +15,11 @@ static srv_service svc = {.cfg = &cfg};
 
 static srv_response post(const char *body, const char *type)
 {
-	srv_request req = {.method = "POST", .path = "/v1/deprotonation", .content_type = type,
-			   .body = body, .body_len = strlen(body)};
+	srv_request req = {.method = "POST",
+	                   .path = "/v1/deprotonation",
+	                   .content_type = type,
+	                   .body = body,
+	                   .body_len = strlen(body)};
 	srv_response out = {0};
 	srv_route_dispatch(&out, &req, &svc);
 	return out;
