@@ -187,29 +187,30 @@ static void print_text(const pred_deprotonation *d)
 	print_list("cautions", pred_deprotonation_caution_count(d), pred_deprotonation_caution, d);
 }
 
-static void print_error(const deprot_opts *o, const char *input, const pred_error *e)
+static void print_error(const deprot_opts *o, const char *id, const char *input,
+                        const pred_error *e)
 {
-	fprintf(stderr, "pkad deprotonate: %s\n", e->msg);
+	fprintf(stderr, "pkad deprotonate: %s%s%s\n", id ? id : "", id ? ": " : "", e->msg);
 	if (!o->json)
 		return;
-	char *s = srv_json_line(srv_error_json(NULL, input, e));
+	char *s = srv_json_line(srv_error_json(id, input, e));
 	if (s)
 		printf("%s\n", s);
 	cJSON_free(s);
 }
 
-static int run_one(const deprot_opts *o, pred_worker *w, const char *smiles)
+static int run_one(const deprot_opts *o, pred_worker *w, const char *smiles, const char *id)
 {
 	pred_deprot_request req = o->req;
 	pred_deprotonation *d = NULL;
 	pred_error e = {0};
 	req.substrate = smiles;
 	if (pred_deprotonate(&d, w, &req, NULL, &e) < 0) {
-		print_error(o, smiles, &e);
+		print_error(o, id, smiles, &e);
 		return 1;
 	}
 	if (o->json) {
-		char *s = srv_json_line(srv_deprotonation_json(d, NULL, smiles));
+		char *s = srv_json_line(srv_deprotonation_json(d, id, smiles));
 		if (s)
 			printf("%s\n", s);
 		cJSON_free(s);
@@ -227,13 +228,19 @@ static int run_stdin(const deprot_opts *o, pred_worker *w)
 	size_t cap = 0;
 	int failed = 0, first = 1;
 	while (getline(&line, &cap, stdin) > 0) {
-		line[strcspn(line, " \t\r\n")] = '\0';
-		if (!*line)
+		char *smi = line + strspn(line, " \t"), *id = smi + strcspn(smi, " \t\r\n");
+		int has_id = *id == ' ' || *id == '\t';
+		*id = '\0';
+		if (has_id) {
+			id += 1 + strspn(id + 1, " \t");
+			id[strcspn(id, "\r\n")] = '\0';
+		}
+		if (!*smi)
 			continue;
 		if (!o->json && !first)
 			printf("\n");
 		first = 0;
-		failed |= run_one(o, w, line);
+		failed |= run_one(o, w, smi, has_id && *id ? id : NULL);
 	}
 	free(line);
 	return failed;
@@ -257,7 +264,7 @@ int cmd_deprotonate(int argc, char **argv)
 	if (o.list_bases)
 		st = list_bases(m, o.json);
 	else
-		st = o.smiles ? run_one(&o, w, o.smiles) : run_stdin(&o, w);
+		st = o.smiles ? run_one(&o, w, o.smiles, NULL) : run_stdin(&o, w);
 done:
 	pred_worker_free(w);
 	pred_model_free(m);

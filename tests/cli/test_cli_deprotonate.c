@@ -99,12 +99,13 @@ static void test_cli_deprotonate__text_for_the_bench(void)
 static void test_cli_deprotonate__json_lines_from_stdin_in_order(void)
 {
 	run_out r;
-	run(&r, "--base NaHCO3 --format json", "CC(=O)O\nC(\nCCO\n");
+	run(&r, "--base NaHCO3 --format json", "CC(=O)O acetic\nC(\n  CCO\tethanol\n");
 	CHECK_INT_EQ(r.status, 1); /* one record failed */
 	char *first = strstr(r.out, "\"input\":\"CC(=O)O\""), *bad = strstr(r.out, "\"C(\"");
 	char *third = strstr(r.out, "\"input\":\"CCO\"");
 	CHECK(first && bad && third && first < bad && bad < third);
 	CHECK(strstr(r.out, "\"code\":\"invalid_smiles\"") != NULL);
+	CHECK(strstr(r.out, "{\"id\":\"acetic\"") && strstr(r.out, "{\"id\":\"ethanol\""));
 	CHECK(strstr(r.out, "\"verdict\":\"complete\"") != NULL);   /* acetic acid */
 	CHECK(strstr(r.out, "\"verdict\":\"negligible\"") != NULL); /* ethanol */
 }
