@@ -8,5 +8,7 @@
 int cmd_predict(int argc, char **argv);
 int cmd_validate(int argc, char **argv);
 int cmd_fit(int argc, char **argv);
+int cmd_serve(int argc, char **argv);
+int cmd_deprotonate(int argc, char **argv);
 
 #endif

@@ -173,6 +173,95 @@ int pred_result_ionization_is_approximate(const pred_result *r);
 /** Curves, or NULL unless opt->curves was set. Borrowed. */
 const pred_curves *pred_result_curves(const pred_result *r);
 
+/* ---- base matching ------------------------------------------------------------------- */
+
+/** One reagent base of the model's table (fragments/bases.tsv); strings borrowed from the
+ *  model. pka is that of the conjugate acid on `scale` ("water", "dmso", "thf", or
+ *  "estimate" for very weak acids such as H2, NH3, alkanes); pka_dmso is NAN when unknown. */
+typedef struct pred_base_info {
+	const char *name;
+	const char *aliases; /* comma-separated, may be "" */
+	const char *conjugate_acid;
+	const char *conjugate_acid_smiles;
+	double pka;
+	const char *scale;
+	double pka_dmso;
+	int is_organometallic; /* quenched by any free OH or NH */
+	const char *byproduct;
+	const char *hazards; /* semicolon-separated cautions */
+	const char *source;
+} pred_base_info;
+
+/** Number of reagent bases in the model's table. Thread-safe. */
+size_t pred_base_count(const pred_model *m);
+/** Fills *out with base i (0 <= i < count). Thread-safe. */
+void pred_base(pred_base_info *out, const pred_model *m, size_t i);
+
+/** A base-matching question; pred_deprot_request_init fills the defaults (atom -1 = every
+ *  acid site of the substrate, equivalents 1). base is a table name or alias (compared
+ *  without case, ignoring spaces, '-' and '_') or else a SMILES of the base. */
+typedef struct pred_deprot_request {
+	const char *substrate; /* SMILES */
+	int atom;              /* 0-based input atom index of one acid site, or -1 */
+	const char *base;
+	double equivalents;    /* of base per substrate, > 0 */
+} pred_deprot_request;
+
+void pred_deprot_request_init(pred_deprot_request *req);
+
+/** The outcome for one acid site of the substrate. delta_pka = pKa(conjugate acid of the
+ *  base) - pKa(site); log_k = log10 of K of substrate + base <=> conjugate base + conjugate
+ *  acid; fraction = share of the site deprotonated at equilibrium from the mass balance
+ *  (more acidic sites take base first); verdict "complete" (> 99%), "partial" or
+ *  "negligible" (< 1%). Strings borrowed from the result. */
+typedef struct pred_deprot_site {
+	int atom;
+	const char *element;
+	const char *group;
+	double pka;
+	double uncertainty;
+	double delta_pka;
+	double log_k;
+	double fraction;
+	const char *verdict;
+} pred_deprot_site;
+
+typedef struct pred_deprotonation pred_deprotonation;
+
+/** Match a base against the acid sites of a substrate. Errors (PRED_EINVAL with a message):
+ *  unknown base (the message lists the known ones), a substrate without acid site, an atom
+ *  that is not an acid site, equivalents <= 0 or not finite; PRED_EPARSE etc. from the
+ *  prediction of substrate or base. opt supplies the limits of pred_predict (NULL:
+ *  defaults). Caller frees with pred_deprotonation_free. Thread-safe, one worker per thread. */
+int pred_deprotonate(pred_deprotonation **out, pred_worker *w, const pred_deprot_request *req,
+		     const pred_options *opt, pred_error *err);
+void pred_deprotonation_free(pred_deprotonation *d);
+
+/** Canonical SMILES of the substrate; the base as matched (table name, or the SMILES given)
+ *  with its conjugate acid, that acid's pKa and scale, and whether pkad predicted the value
+ *  (base given as SMILES). Borrowed. */
+const char *pred_deprotonation_substrate(const pred_deprotonation *d);
+const char *pred_deprotonation_base(const pred_deprotonation *d);
+const char *pred_deprotonation_conjugate_acid(const pred_deprotonation *d);
+double pred_deprotonation_base_pka(const pred_deprotonation *d);
+const char *pred_deprotonation_scale(const pred_deprotonation *d);
+int pred_deprotonation_base_is_predicted(const pred_deprotonation *d);
+double pred_deprotonation_equivalents(const pred_deprotonation *d);
+/** What the base leaves behind ("hydrogen gas (H2)"). Borrowed. */
+const char *pred_deprotonation_byproduct(const pred_deprotonation *d);
+
+/** The acid sites considered (one when an atom was given), in input atom order. */
+size_t pred_deprotonation_site_count(const pred_deprotonation *d);
+const pred_deprot_site *pred_deprotonation_site(const pred_deprotonation *d, size_t i);
+
+/** Handling cautions of the base; the last one always says that local rules and
+ *  institutional safety practice govern. Warnings: scale mismatch and how it limits the
+ *  verdict, reagent quenched by a free OH/NH, sites that take base first. Borrowed. */
+size_t pred_deprotonation_caution_count(const pred_deprotonation *d);
+const char *pred_deprotonation_caution(const pred_deprotonation *d, size_t i);
+size_t pred_deprotonation_warning_count(const pred_deprotonation *d);
+const char *pred_deprotonation_warning(const pred_deprotonation *d, size_t i);
+
 /* ---- fitting (`pkad fit`, `pkad validate`) -------------------------------------------- */
 
 /** Index of the site that an experimental value of (kind, index) refers to: the index-th most
