@@ -10,6 +10,9 @@ import sys
 import tempfile
 
 BIN = os.environ.get("PKAD_BIN", "pkad")
+SRC = os.environ.get("PKAD_SOURCE_DIR", os.path.join(os.path.dirname(__file__), "..", ".."))
+# The mechanics are tested on the small fixture tables, independent of the shipped tables.
+FIXTURE = os.path.join(SRC, "tests", "predictor", "fixture")
 failures = []
 
 
@@ -55,7 +58,8 @@ def scoring(d):
             "train row,CCO,16.0,1,acid,train\n")
     ref = write(d, "ref.csv", rows)
     svg = os.path.join(d, "parity.svg")
-    p = run("validate", "--split", "test", "--format", "json", "--plot", svg, ref)
+    p = run("validate", "--fragments", FIXTURE, "--split", "test", "--format", "json",
+            "--plot", svg, ref)
     check(p.returncode == 0, "validate runs on a small reference file (%s)" % p.stderr.strip())
     if p.returncode != 0:
         return
@@ -67,7 +71,7 @@ def scoring(d):
     check("C1CC(" in listed and "C" in listed, "unreadable and site-less rows are listed")
     check(o["found"] == 3 and abs(o["coverage"] - 0.6) < 1e-9, "coverage is 3 of 5")
     check(os.path.exists(svg) and open(svg).read().startswith("<svg"), "parity plot written")
-    p = run("validate", ref)
+    p = run("validate", "--fragments", FIXTURE, ref)
     check(p.returncode == 0 and "worst rows" in p.stdout, "text report lists the worst rows")
 
 
@@ -79,7 +83,7 @@ def fitting(d):
         rows += "%s,%s,1,acid,%s\n" % (smi, v, "test" if v == 0.0 else "train")
     ref = write(d, "fit.csv", rows)
     out = os.path.join(d, "params.tsv")
-    p = run("fit", "--out", out, "--no-falloff", ref)
+    p = run("fit", "--fragments", FIXTURE, "--out", out, "--no-falloff", ref)
     check(p.returncode == 0, "fit runs on a small train file (%s)" % p.stderr.strip())
     if p.returncode != 0:
         return
