@@ -81,6 +81,6 @@ void eng_site_effects(term_list *tl, const eng_mol *e, const pred_worker *w, con
 int eng_stepwise(term_list *tls, const eng_mol *e, const pred_model *m, const int *symclass);
 
 /* Normalisation and tautomer step on the parsed molecule; warnings go to r. */
-int eng_normalise(pred_result *r, obw_mol *mol, pred_error *err);
+int eng_normalise(pred_result *r, obw_mol *mol, obw_ctx *ctx, pred_error *err);
 
 #endif

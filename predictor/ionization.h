@@ -13,7 +13,10 @@
  * order) of r->sites[i]; dist holds one row of nat distances (bonds; -1 when not connected)
  * per site: dist[i * nat + a] is the distance from site i's atom to atom a. The microscopic
  * pKa of site i is r->micro[i] (the site's pKa without the stepwise statistical and
- * interaction terms, which the microstate model accounts for). */
+ * interaction terms, which the microstate model accounts for; NULL: the site values).
+ * mol may be NULL (tests on hand-built sites): no SMILES is written and each species'
+ * smiles is its site-state string, one character per site ('-' ionised acid, '+'
+ * protonated base, '0' neutral); dist NULL means no interactions. */
 typedef struct ion_input {
 	obw_mol *mol;
 	obw_ctx *ctx;

@@ -55,6 +55,8 @@ typedef struct frag_base {
 	char *name, *aliases, *conjugate_acid, *conj_smiles, *scale, *byproduct, *hazards, *source;
 	double pka;
 	int organometallic; /* quenched by any free OH / NH */
+	double pka_dmso;    /* DMSO-scale value for comparison; NAN when unknown */
+	int escapes;        /* by-product leaves as a gas, drawing K > 1 to completion */
 } frag_base;
 
 struct pred_model {

@@ -280,7 +280,7 @@ int pred_predict(pred_result **out, pred_worker *w, const char *input, pred_form
 	r->ph = opt->ph;
 	rc = parse_input(&mol, w, input, fmt, err);
 	if (!rc)
-		rc = eng_normalise(r, mol, err);
+		rc = eng_normalise(r, mol, w->ctx, err);
 	if (!rc)
 		rc = check_atoms(mol, opt, err);
 	if (!rc)

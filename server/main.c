@@ -14,6 +14,10 @@ typedef struct command {
 
 static const command commands[] = {
 	{"predict", cmd_predict, "predict the pKa of every site of SMILES or SD records"},
+	{"serve", cmd_serve, "run the HTTP/JSON daemon"},
+	{"deprotonate", cmd_deprotonate, "will a base deprotonate the acid sites of a molecule"},
+	{"validate", cmd_validate, "score the model against reference CSV files"},
+	{"fit", cmd_fit, "refit the model's parameters on the train split"},
 };
 
 static void usage(FILE *f)

@@ -177,6 +177,8 @@ int srv_predict_opts_parse(srv_predict_opts *out, int argc, char **argv)
 		longopts[i] = (struct option){rows[i].name, rows[i].arg ? required_argument
 									: no_argument, NULL, 0};
 	longopts[N_ROWS] = (struct option){NULL, 0, NULL, 0};
+	static char prog[] = "pkad predict";
+	argv[0] = prog; /* getopt's own messages then name the command */
 	optind = 1;
 	opterr = 1;
 	while (ask == ASK_NONE && (c = getopt_long(argc, argv, "h", longopts, &idx)) != -1) {

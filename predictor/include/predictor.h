@@ -173,6 +173,150 @@ int pred_result_ionization_is_approximate(const pred_result *r);
 /** Curves, or NULL unless opt->curves was set. Borrowed. */
 const pred_curves *pred_result_curves(const pred_result *r);
 
+/* ---- base matching ------------------------------------------------------------------- */
+
+/** One reagent base of the model's table (fragments/bases.tsv); strings borrowed from the
+ *  model. pka is that of the conjugate acid on `scale` ("water", "dmso", "thf", or
+ *  "estimate" for very weak acids such as H2, NH3, alkanes); pka_dmso is NAN when unknown. */
+typedef struct pred_base_info {
+	const char *name;
+	const char *aliases; /* comma-separated, may be "" */
+	const char *conjugate_acid;
+	const char *conjugate_acid_smiles;
+	double pka;
+	const char *scale;
+	double pka_dmso;
+	int is_organometallic; /* quenched by any free OH or NH */
+	const char *byproduct;
+	const char *hazards; /* semicolon-separated cautions */
+	const char *source;
+} pred_base_info;
+
+/** Number of reagent bases in the model's table. Thread-safe. */
+size_t pred_base_count(const pred_model *m);
+/** Fills *out with base i (0 <= i < count). Thread-safe. */
+void pred_base(pred_base_info *out, const pred_model *m, size_t i);
+
+/** A base-matching question; pred_deprot_request_init fills the defaults (atom -1 = every
+ *  acid site of the substrate, equivalents 1). base is a table name or alias (compared
+ *  without case, ignoring spaces, '-' and '_') or else a SMILES of the base. */
+typedef struct pred_deprot_request {
+	const char *substrate; /* SMILES */
+	int atom;              /* 0-based input atom index of one acid site, or -1 */
+	const char *base;
+	double equivalents;    /* of base per substrate, > 0 */
+} pred_deprot_request;
+
+void pred_deprot_request_init(pred_deprot_request *req);
+
+/** The outcome for one acid site of the substrate. delta_pka = pKa(conjugate acid of the
+ *  base) - pKa(site); log_k = log10 of K of substrate + base <=> conjugate base + conjugate
+ *  acid; fraction = share of the site deprotonated at equilibrium from the mass balance
+ *  (more acidic sites take base first); verdict "complete" (> 99%), "partial" or
+ *  "negligible" (< 1%). Strings borrowed from the result. */
+typedef struct pred_deprot_site {
+	int atom;
+	const char *element;
+	const char *group;
+	double pka;
+	double uncertainty;
+	double delta_pka;
+	double log_k;
+	double fraction;
+	const char *verdict;
+} pred_deprot_site;
+
+typedef struct pred_deprotonation pred_deprotonation;
+
+/** Match a base against the acid sites of a substrate. Errors (PRED_EINVAL with a message):
+ *  unknown base (the message lists the known ones), a substrate without acid site, an atom
+ *  that is not an acid site, equivalents <= 0 or not finite; PRED_EPARSE etc. from the
+ *  prediction of substrate or base. opt supplies the limits of pred_predict (NULL:
+ *  defaults). Caller frees with pred_deprotonation_free. Thread-safe, one worker per thread. */
+int pred_deprotonate(pred_deprotonation **out, pred_worker *w, const pred_deprot_request *req,
+		     const pred_options *opt, pred_error *err);
+void pred_deprotonation_free(pred_deprotonation *d);
+
+/** Canonical SMILES of the substrate; the base as matched (table name, or the SMILES given)
+ *  with its conjugate acid, that acid's pKa and scale, and whether pkad predicted the value
+ *  (base given as SMILES). Borrowed. */
+const char *pred_deprotonation_substrate(const pred_deprotonation *d);
+const char *pred_deprotonation_base(const pred_deprotonation *d);
+const char *pred_deprotonation_conjugate_acid(const pred_deprotonation *d);
+double pred_deprotonation_base_pka(const pred_deprotonation *d);
+const char *pred_deprotonation_scale(const pred_deprotonation *d);
+int pred_deprotonation_base_is_predicted(const pred_deprotonation *d);
+double pred_deprotonation_equivalents(const pred_deprotonation *d);
+/** What the base leaves behind ("hydrogen gas (H2)"). Borrowed. */
+const char *pred_deprotonation_byproduct(const pred_deprotonation *d);
+
+/** The acid sites considered (one when an atom was given), in input atom order. */
+size_t pred_deprotonation_site_count(const pred_deprotonation *d);
+const pred_deprot_site *pred_deprotonation_site(const pred_deprotonation *d, size_t i);
+
+/** Handling cautions of the base; the last one always says that local rules and
+ *  institutional safety practice govern. Warnings: scale mismatch and how it limits the
+ *  verdict, reagent quenched by a free OH/NH, sites that take base first. Borrowed. */
+size_t pred_deprotonation_caution_count(const pred_deprotonation *d);
+const char *pred_deprotonation_caution(const pred_deprotonation *d, size_t i);
+size_t pred_deprotonation_warning_count(const pred_deprotonation *d);
+const char *pred_deprotonation_warning(const pred_deprotonation *d, size_t i);
+
+/* ---- fitting (`pkad fit`, `pkad validate`) -------------------------------------------- */
+
+/** Index of the site that an experimental value of (kind, index) refers to: the index-th most
+ *  acidic acid site (ascending pKa) or the index-th most basic base site (descending pKa);
+ *  index is 1-based. Returns -1 when the result has fewer sites of that kind. Thread-safe. */
+long pred_result_match(const pred_result *r, pred_kind kind, int index);
+
+/** One experimental value used for fitting; strings are borrowed from the caller. */
+typedef struct pred_fit_row {
+	const char *smiles;
+	pred_kind kind;
+	int pka_index;  /* 1-based, see pred_result_match */
+	double pka;
+	double weight;  /* relative weight, > 0 (e.g. lower for less reliable grades) */
+} pred_fit_row;
+
+/** Options of pred_fit; pred_fit_options_init fills the defaults. */
+typedef struct pred_fit_options {
+	int folds;           /* k of the k-fold cross-validation of the class rmse; default 5 */
+	double resid_sd;     /* expected residual sd scaling the ridge priors; default 0.5 */
+	double huber;        /* residual (pKa units) beyond which weights fall off; default 1.0 */
+	double trim;         /* rows off by more than this under the starting values are left
+				out (missing site class, tautomer, data error); 0 = keep; default 3 */
+	int search_falloff;  /* nonzero: outer 1-D search of the fall-off factor; default 1 */
+	double falloff_lo, falloff_hi; /* search interval; default 0.30 .. 0.60 */
+	double falloff_sd;   /* prior sd of the fall-off when the model gives none; default 0.1 */
+} pred_fit_options;
+
+void pred_fit_options_init(pred_fit_options *opt);
+
+typedef struct pred_fit_report pred_fit_report;
+
+/** Refit the model's free parameters (prior_sd > 0) by weighted least squares with a ridge
+ *  towards their published priors, on the given rows (the caller passes the training split
+ *  only). On success the fitted values are in force in m; m must not be used by any worker
+ *  during the call (not thread-safe). Rows that cannot be read or have no matching site are
+ *  counted in the report. Free the report with pred_fit_report_free. */
+int pred_fit(pred_fit_report **out, pred_model *m, const pred_fit_row *rows, size_t n_rows,
+	     const pred_fit_options *opt, pred_error *err);
+void pred_fit_report_free(pred_fit_report *rep);
+
+/** Figures of a fit: rows used, unreadable, without a matching site, trimmed; the weighted
+ *  training rmse before and after, the overall cross-validated rmse, the fall-off chosen. */
+typedef struct pred_fit_summary {
+	size_t n_rows, n_used, n_unreadable, n_unmatched, n_trimmed, n_params;
+	double rmse_before, rmse_after, rmse_cv, falloff;
+} pred_fit_summary;
+void pred_fit_report_summary(const pred_fit_report *rep, pred_fit_summary *out);
+
+/** Writes params.tsv (format in fragments/README.md) with every fitted parameter; rows of an
+ *  existing file at path whose ids the fit did not touch are kept. data_version names the
+ *  data the fit used. Returns 0 or a PRED_E* with err set. */
+int pred_fit_write_params(const pred_model *m, const pred_fit_report *rep, const char *path,
+			  const char *data_version, pred_error *err);
+
 #ifdef __cplusplus
 }
 #endif

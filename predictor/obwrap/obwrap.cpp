@@ -12,6 +12,7 @@
 #include <openbabel/obiter.h>
 #include <openbabel/parsmart.h>
 #include <openbabel/ring.h>
+#include <openbabel/stereo/cistrans.h>
 
 #include <cctype>
 #include <clocale>
@@ -351,9 +352,19 @@ static int parse_smiles(obw_mol *m, obw_ctx *c, const char *text, char *msg, siz
 	return 0;
 }
 
+/* The MDL reader calls the global OBLocale's SetLocale/RestoreLocale on every record, and
+ * two threads doing that race on its saved-locale string (ThreadSanitizer, see
+ * test_obwrap_threads). Mol-block reads are therefore serialised; SMILES reads are not. */
+static std::mutex molblock_lock;
+
 static int parse_molblock(obw_mol *m, obw_ctx *c, const char *text, char *msg, size_t msgn)
 {
-	if (read_with(c, c->sdf, text, m->mol) || m->mol.NumAtoms() == 0) {
+	int rc;
+	{
+		std::lock_guard<std::mutex> hold(molblock_lock);
+		rc = read_with(c, c->sdf, text, m->mol);
+	}
+	if (rc || m->mol.NumAtoms() == 0) {
 		set_msg(msg, msgn, "cannot read mol block (bad counts line or atom block)");
 		return E_PARSE;
 	}
@@ -584,6 +595,24 @@ extern "C" int obw_mol_set_atom(obw_mol *m, int atom, int charge, int hcount)
 	}
 }
 
+/* A double bond that changes order loses its cis/trans configuration, which would
+ * otherwise be written as '/' '\\' marks around a single bond. */
+static void drop_cis_trans(OBMol &mol, OBBond *bond)
+{
+	unsigned long x = bond->GetBeginAtom()->GetId(), y = bond->GetEndAtom()->GetId();
+	std::vector<OBGenericData *> stale;
+	for (OBGenericData *d : mol.GetAllData(OBGenericDataType::StereoData)) {
+		OBStereoBase *st = static_cast<OBStereoBase *>(d);
+		if (st->GetType() != OBStereo::CisTrans)
+			continue;
+		OBCisTransStereo::Config cfg = static_cast<OBCisTransStereo *>(st)->GetConfig();
+		if ((cfg.begin == x && cfg.end == y) || (cfg.begin == y && cfg.end == x))
+			stale.push_back(d);
+	}
+	for (OBGenericData *d : stale)
+		mol.DeleteData(d);
+}
+
 extern "C" int obw_mol_set_bond_order(obw_mol *m, int a, int b, int order)
 {
 	try {
@@ -593,6 +622,8 @@ extern "C" int obw_mol_set_bond_order(obw_mol *m, int a, int b, int order)
 		OBBond *bond = m->mol.GetBond(a + 1, b + 1);
 		if (!bond)
 			return E_INVAL;
+		if ((int)bond->GetBondOrder() != order)
+			drop_cis_trans(m->mol, bond);
 		bond->SetBondOrder(order);
 		for (obw_bond &v : m->bonds)
 			if ((v.a == a && v.b == b) || (v.a == b && v.b == a))

@@ -29,7 +29,9 @@ enum { OBW_SMILES = 0, OBW_MOLBLOCK = 1 };
 
 /** Parse one SMILES (text up to the first whitespace) or one mol block. Explicit ordinary
  *  hydrogens are folded into their heavy atom; every remaining atom keeps the index it had
- *  in the input (obw_atom.orig_index). Aromaticity and rings are perceived here. */
+ *  in the input (obw_atom.orig_index). Aromaticity and rings are perceived here.
+ *  Thread-safe with one ctx per thread; mol-block reads take an internal lock because Open
+ *  Babel's MDL reader switches the global locale. */
 int obw_mol_parse(obw_mol **out, obw_ctx *c, const char *text, int format, char *msg,
 		  size_t msgn);
 void obw_mol_free(obw_mol *m);

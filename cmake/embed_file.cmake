@@ -1,0 +1,10 @@
+# Writes a C file defining `const char ${NAME}[]`: the bytes of IN, NUL-terminated.
+file(READ ${IN} hex HEX)
+string(REGEX REPLACE "([0-9a-f][0-9a-f])" "0x\\1," hex "${hex}")
+set(body "/* generated from ${LABEL} by cmake/embed_file.cmake: do not edit */\n")
+if(HEADER)
+  string(APPEND body "#include \"${HEADER}\"\n")
+endif()
+string(APPEND body "const char ${NAME}[] = {${hex}0x00};\n")
+file(WRITE ${OUT}.tmp "${body}")
+file(COPY_FILE ${OUT}.tmp ${OUT} ONLY_IF_DIFFERENT)

@@ -1,0 +1,14 @@
+/* SPDX-License-Identifier: MIT */
+/* site_match.h: ranking of sites by acidity or basicity (private, unit-tested). */
+#ifndef PKAD_SITE_MATCH_H
+#define PKAD_SITE_MATCH_H
+
+#include <stddef.h>
+
+#include "predictor.h"
+
+/* Index into sites[] of the index-th (1-based) most acidic acid site (ascending pKa) or
+ * most basic base site (descending pKa); ties go by array order; -1 when there is none. */
+long pred_site_rank(const pred_site *sites, size_t n, pred_kind kind, int index);
+
+#endif

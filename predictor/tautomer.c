@@ -1,0 +1,225 @@
+/* SPDX-License-Identifier: MIT */
+/* tautomer.c: moves the H of drawn lactims, iminols and simple enols to the tautomer that
+ * dominates in water (DESIGN.md "Tautomers and input forms"); H and bond orders only. */
+#include "tautomer.h"
+
+#include <stdio.h>
+#include <string.h>
+
+/* The shifts, in the order they are tried for each OH / SH. */
+typedef enum { SHIFT_NONE = 0, SHIFT_IMINOL, SHIFT_AZINE, SHIFT_ENOL } shift_kind;
+
+typedef struct shift {
+	shift_kind kind;
+	int path[5]; /* donor O/S, then the atoms to the acceptor; bonds alternate 1,2,1,2 */
+	int len;     /* atoms in path */
+} shift;
+
+typedef struct graph {
+	const obw_atom *a;
+	size_t na;
+	const obw_bond *b;
+	size_t nb;
+	obw_rings rings;
+} graph;
+
+static void graph_load(graph *g, const obw_mol *m)
+{
+	g->na = obw_mol_atoms(m, &g->a);
+	g->nb = obw_mol_bonds(m, &g->b);
+	obw_mol_rings(m, &g->rings);
+}
+
+/* Order of the bond x-y, 0 when there is none. */
+static int order(const graph *g, int x, int y)
+{
+	for (size_t k = 0; k < g->nb; k++)
+		if ((g->b[k].a == x && g->b[k].b == y) || (g->b[k].a == y && g->b[k].b == x))
+			return g->b[k].order;
+	return 0;
+}
+
+/* The k-th neighbour of x joined by a bond of order ord (k counts from 0), or -1. */
+static int nbr(const graph *g, int x, int ord, int k)
+{
+	for (size_t i = 0; i < g->nb; i++) {
+		int o = g->b[i].a == x ? g->b[i].b : g->b[i].b == x ? g->b[i].a : -1;
+		if (o >= 0 && g->b[i].order == ord && k-- == 0)
+			return o;
+	}
+	return -1;
+}
+
+/* Whether all n atoms lie in one ring of the SSSR. */
+static int in_one_ring(const graph *g, const int *atoms, int n)
+{
+	for (size_t r = 0; r < g->rings.n_rings; r++) {
+		const int *ra = g->rings.atoms + g->rings.offsets[r];
+		int found = 0;
+		for (int i = 0; i < n; i++)
+			for (int j = 0; j < g->rings.sizes[r]; j++)
+				found += ra[j] == atoms[i];
+		if (found == n)
+			return 1;
+	}
+	return 0;
+}
+
+static int neutral(const graph *g, int x, int element)
+{
+	return x >= 0 && g->a[x].element == element && g->a[x].charge == 0;
+}
+
+/* An OH or SH (no charge, one heavy neighbour, no explicit H atom) on a neutral carbon by
+ * a single bond: returns that carbon, or -1. */
+static int donor_carbon(const graph *g, int o)
+{
+	const obw_atom *x = &g->a[o];
+	if ((x->element != 8 && x->element != 16) || x->charge || x->hcount < 1 ||
+	    x->degree != 1 || nbr(g, o, 1, 1) >= 0)
+		return -1;
+	int c1 = nbr(g, o, 1, 0);
+	return neutral(g, c1, 6) ? c1 : -1;
+}
+
+/* HO-C=N (iminol, lactim next to the ring N): 1,3 shift to the N. */
+static int find_iminol(const graph *g, int o, int c1, shift *s)
+{
+	for (int k = 0, n; (n = nbr(g, c1, 2, k)) >= 0; k++) {
+		if (!neutral(g, n, 7))
+			continue;
+		*s = (shift){SHIFT_IMINOL, {o, c1, n, 0, 0}, 3};
+		return 1;
+	}
+	return 0;
+}
+
+/* HO-C=A-A=N inside one ring (4-hydroxypyridine type): 1,5 shift to the ring N. */
+static int find_azine(const graph *g, int o, int c1, shift *s)
+{
+	for (int k = 0, a2; (a2 = nbr(g, c1, 2, k)) >= 0; k++) {
+		if (!neutral(g, a2, 6) && !neutral(g, a2, 7))
+			continue;
+		for (int j = 0, a3; (a3 = nbr(g, a2, 1, j)) >= 0; j++) {
+			if (a3 == c1 || !neutral(g, a3, 6))
+				continue;
+			for (int l = 0, n; (n = nbr(g, a3, 2, l)) >= 0; l++) {
+				int ring[4] = {c1, a2, a3, n};
+				if (!neutral(g, n, 7) || !in_one_ring(g, ring, 4))
+					continue;
+				*s = (shift){SHIFT_AZINE, {o, c1, a2, a3, n}, 5};
+				return 1;
+			}
+		}
+	}
+	return 0;
+}
+
+/* Whether a neighbour of c1 or c2 (other than o, c1, c2) carries a non-aromatic double or
+ * triple bond: a carbonyl, imine, nitrile, nitro, sulfonyl or C=C conjugated with the enol,
+ * which keeps 1,3-dicarbonyl enols, hydroxyquinones and reductones (ascorbic acid) as
+ * drawn (DESIGN.md: conjugation keeps the enol). */
+static int conjugated(const graph *g, int o, int c1, int c2)
+{
+	for (size_t i = 0; i < g->nb; i++) {
+		int x = g->b[i].a, y = g->b[i].b;
+		int on_x = (x == c1 || x == c2) && y != o && y != c1 && y != c2;
+		int on_y = (y == c1 || y == c2) && x != o && x != c1 && x != c2;
+		int nb = on_x ? y : on_y ? x : -1;
+		if (nb < 0)
+			continue;
+		for (size_t k = 0; k < g->nb; k++) {
+			int p = g->b[k].a == nb ? g->b[k].b : g->b[k].b == nb ? g->b[k].a : -1;
+			if (p >= 0 && p != c1 && p != c2 && g->b[k].order >= 2 && !g->b[k].aromatic)
+				return 1;
+		}
+	}
+	return 0;
+}
+
+/* HO-C=C, neither carbon aromatic, not conjugated: 1,3 shift to the carbon. */
+static int find_enol(const graph *g, int o, int c1, shift *s)
+{
+	if (g->a[o].element != 8 || g->a[c1].aromatic)
+		return 0;
+	for (int k = 0, c2; (c2 = nbr(g, c1, 2, k)) >= 0; k++) {
+		if (!neutral(g, c2, 6) || g->a[c2].aromatic || conjugated(g, o, c1, c2))
+			continue;
+		*s = (shift){SHIFT_ENOL, {o, c1, c2, 0, 0}, 3};
+		return 1;
+	}
+	return 0;
+}
+
+static int find_shift(const graph *g, shift *s)
+{
+	for (size_t o = 0; o < g->na; o++) {
+		int c1 = donor_carbon(g, (int)o);
+		if (c1 < 0)
+			continue;
+		if (find_iminol(g, (int)o, c1, s) || find_azine(g, (int)o, c1, s) ||
+		    find_enol(g, (int)o, c1, s))
+			return 1;
+	}
+	return 0;
+}
+
+/* Flips the bond orders along the path and moves one H from its first to its last atom. */
+static int apply(obw_mol *m, const graph *g, const shift *s)
+{
+	int o = s->path[0], end = s->path[s->len - 1], flip[4];
+	int h_o = g->a[o].hcount, h_end = g->a[end].hcount;
+	for (int k = 0; k + 1 < s->len; k++)
+		flip[k] = 3 - order(g, s->path[k], s->path[k + 1]);
+	int rc = obw_mol_set_atom(m, o, 0, h_o - 1);
+	for (int k = 0; !rc && k + 1 < s->len; k++)
+		rc = obw_mol_set_bond_order(m, s->path[k], s->path[k + 1], flip[k]);
+	if (!rc)
+		rc = obw_mol_set_atom(m, end, 0, h_end + 1);
+	return rc;
+}
+
+static const char *shift_name(const graph *g, const shift *s)
+{
+	int sulfur = g->a[s->path[0]].element == 16;
+	int ring = g->a[s->path[1]].in_ring && g->a[s->path[s->len - 1]].in_ring;
+	switch (s->kind) {
+	case SHIFT_IMINOL:
+		if (ring)
+			return sulfur ? "thiolactim to thiolactam" : "lactim to lactam";
+		return sulfur ? "thioiminol to thioamide" : "iminol to amide";
+	case SHIFT_AZINE:
+		return sulfur ? "mercapto-azine to azinethione" : "hydroxy-azine to azinone";
+	case SHIFT_ENOL:
+		return "enol to ketone";
+	default:
+		return "none";
+	}
+}
+
+int taut_standardise(obw_mol *m, norm_report *rep, pred_error *err)
+{
+	graph g;
+	shift s;
+	char msg[200] = "";
+	graph_load(&g, m);
+	/* each shift takes the H off one O/S for good, so the loop ends; the bound is a guard */
+	for (size_t it = 0, limit = g.na + 1; it < limit && find_shift(&g, &s); it++) {
+		int rc = apply(m, &g, &s);
+		norm_warn(rep, "input tautomer changed: %s at atom %d (H moved to atom %d)",
+			  shift_name(&g, &s), g.a[s.path[0]].orig_index,
+			  g.a[s.path[s.len - 1]].orig_index);
+		if (!rc)
+			rc = obw_mol_refresh(m, msg, sizeof msg);
+		if (rc) {
+			if (err) {
+				err->code = rc;
+				snprintf(err->msg, sizeof err->msg, "%s",
+					 msg[0] ? msg : "cannot move the tautomeric hydrogen");
+			}
+			return rc;
+		}
+		graph_load(&g, m);
+	}
+	return 0;
+}
