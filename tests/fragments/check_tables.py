@@ -9,8 +9,8 @@
 (d) every substituent row copied from substituent-constants.csv claims its smiles_fragment
     attached to benzene, rooted at the attachment atom, and carries the same constants.
 Run with /usr/bin/python3; exits 77 (CTest skip) when the Open Babel Python module is missing.
-The source tree comes from PKAD_SOURCE_DIR; the reference data from PKAD_SHARED_DATA or the
-project's copy in data/reference.
+The source tree comes from PKAD_SOURCE_DIR; handbook rows from its data/handbook-*.csv and
+constants from data/reference/substituent-constants.csv (PKAD_SHARED_DATA overrides both).
 """
 import csv
 import os
@@ -204,14 +204,26 @@ def claims(subst_rows, mol):
     return group, root
 
 
-def shared_dir():
-    d = os.environ.get("PKAD_SHARED_DATA") or os.path.join(SRC, "data", "reference")
-    return d if os.path.isfile(os.path.join(d, "handbook-acids.csv")) else None
+HANDBOOKS = ("handbook-acids.csv", "handbook-bases.csv", "handbook-additions.csv")
 
 
-def check_substituents(rows, data, rep):
+def data_file(name):
+    """Path of a reference file: $PKAD_SHARED_DATA, else data/ or data/reference/; None if absent."""
+    dirs = [os.environ["PKAD_SHARED_DATA"]] if os.environ.get("PKAD_SHARED_DATA") else \
+        [os.path.join(SRC, "data"), os.path.join(SRC, "data", "reference")]
+    for d in dirs:
+        if os.path.isfile(os.path.join(d, name)):
+            return os.path.join(d, name)
+    return None
+
+
+def check_substituents(rows, rep):
     """(d): rows citing 'substituent-constants.csv NAME' claim NAME on benzene, same constants."""
-    ref = {r["substituent"]: r for r in csv.DictReader(open(os.path.join(data, "substituent-constants.csv")))}
+    path = data_file("substituent-constants.csv")
+    if path is None:
+        rep.fail("substituents: data/reference/substituent-constants.csv not found")
+        return
+    ref = {r["substituent"]: r for r in csv.DictReader(open(path))}
     checked = 0
     for r in rows:
         m = re.match(r"substituent-constants\.csv (\S+):", r["source"])
@@ -237,11 +249,15 @@ def check_substituents(rows, data, rep):
         rep.fail(f"substituents: only {checked} rows cite substituent-constants.csv")
 
 
-def coverage(site_rows, data, rep):
+def coverage(site_rows, rep):
     """(b): each handbook row gets a site of its kind whose group answers its site_class."""
     per_class = {}
-    for fname in ("handbook-acids.csv", "handbook-bases.csv"):
-        for h in csv.DictReader(open(os.path.join(data, fname))):
+    for fname in HANDBOOKS:
+        path = data_file(fname)
+        if path is None:
+            rep.fail(f"coverage: data/{fname} not found")
+            continue
+        for h in csv.DictReader(open(path)):
             cls, kind = h["site_class"], h["kind"]
             groups = CLASS_GROUPS.get(cls)
             if groups is None:
@@ -262,10 +278,11 @@ def coverage(site_rows, data, rep):
         print(f"coverage {cls:24s} {ok:3d}/{n:3d}")
 
 
-def unused_rows(site_rows, data):
-    """Informational: site rows that no molecule of the shared IUPAC set matches."""
+def unused_rows(site_rows):
+    """Informational: site rows that no molecule of the IUPAC set (data/iupac-pka.csv) matches."""
     used = set()
-    for r in csv.DictReader(open(os.path.join(data, "iupac-pka.csv"))):
+    path = data_file("iupac-pka.csv")
+    for r in csv.DictReader(open(path)) if path else []:
         try:
             mol = read_mol(r["smiles"])
         except OSError:
@@ -281,14 +298,10 @@ def main():
     for name, rows in tables.items():
         compile_smarts(name, rows, rep)
     check_fields(tables, rep)
-    data = shared_dir()
-    if data is None:
-        rep.fail("reference data not found (data/reference or PKAD_SHARED_DATA): checks (b) and (d) not run")
-    else:
-        check_substituents(tables["substituents.tsv"], data, rep)
-        coverage(tables["sites.tsv"], data, rep)
-        if "--unused" in sys.argv:
-            unused_rows(tables["sites.tsv"], data)
+    check_substituents(tables["substituents.tsv"], rep)
+    coverage(tables["sites.tsv"], rep)
+    if "--unused" in sys.argv:
+        unused_rows(tables["sites.tsv"])
     counts = ", ".join(f"{len(v)} {k}" for k, v in tables.items())
     print(f"{counts}; {rep.errors} failures")
     return 1 if rep.errors else 0
