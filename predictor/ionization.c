@@ -46,25 +46,26 @@ static int set_err(pred_error *err, int code, const char *msg)
 	return code;
 }
 
-static void kinds_present(const pred_result *r, int *acid, int *base)
+/* An ampholyte has an acid and a base site that ionise in water (micro pKa within 0..14):
+ * a diacid's carbonyl oxygens (pKa below -5) or an alcohol OH (about 16) do not make one. */
+static int is_ampholyte(const ion_work *w)
 {
-	*acid = *base = 0;
-	for (size_t i = 0; i < r->n_sites; i++) {
-		*acid |= r->sites[i].kind == PRED_ACID;
-		*base |= r->sites[i].kind == PRED_BASE;
+	int acid = 0, base = 0;
+	for (size_t i = 0; i < w->n; i++) {
+		if (w->pka[i] < 0 || w->pka[i] > ION_CURVE_MAX)
+			continue;
+		acid |= w->q_on[i] < 0;
+		base |= w->q_on[i] > 0;
 	}
+	return acid && base;
 }
 
-/* Isoelectric point: the root of net charge = 0, by bisection (the charge falls
- * monotonically with pH). Only for molecules with both acid and base sites. */
+/* Isoelectric point: the root of net charge = 0 within pH 0..14, by bisection (the charge
+ * falls monotonically with pH). Only for ampholytes. */
 static void fill_isoelectric(pred_result *r, ion_work *w)
 {
-	int acid, base;
-	kinds_present(r, &acid, &base);
-	if (!acid || !base)
-		return;
-	double lo = ION_PH_MIN, hi = ION_PH_MAX;
-	if (ion_work_eval(w, lo) <= 0 || ion_work_eval(w, hi) >= 0)
+	double lo = 0, hi = ION_CURVE_MAX;
+	if (!is_ampholyte(w) || ion_work_eval(w, lo) <= 0 || ion_work_eval(w, hi) >= 0)
 		return;
 	for (int it = 0; it < 60; it++) {
 		double mid = 0.5 * (lo + hi);
