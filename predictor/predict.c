@@ -290,6 +290,30 @@ static void sort_sites(pred_result *r)
 		}
 }
 
+/* A base whose stepwise value lies below pKa -1 while another base of the molecule is above
+ * 1 is a second protonation of a polybase (a diazine dication, say) far below the aqueous
+ * range: it stays in the microstate model but is not listed as a site. */
+static void drop_deep_second_protonations(pred_result *r)
+{
+	int strong = 0;
+	for (size_t i = 0; i < r->n_sites; i++)
+		strong |= r->sites[i].kind == PRED_BASE && r->sites[i].pka >= 1;
+	if (!strong)
+		return;
+	size_t kept = 0;
+	for (size_t i = 0; i < r->n_sites; i++) {
+		if (r->sites[i].kind == PRED_BASE && r->sites[i].pka < -1)
+			continue;
+		r->sites[kept] = r->sites[i];
+		r->design[kept] = r->design[i];
+		r->micro[kept++] = r->micro[i];
+	}
+	if (kept < r->n_sites)
+		res_note(r, "%zu second protonation%s below pKa -1 not listed as sites",
+			 r->n_sites - kept, r->n_sites - kept > 1 ? "s" : "");
+	r->n_sites = kept;
+}
+
 int pred_predict(pred_result **out, pred_worker *w, const char *input, pred_format fmt,
 		 const pred_options *opt, pred_error *err)
 {
@@ -330,6 +354,7 @@ int pred_predict(pred_result **out, pred_worker *w, const char *input, pred_form
 		pred_result_free(r);
 		return rc;
 	}
+	drop_deep_second_protonations(r);
 	sort_sites(r);
 	*out = r;
 	return 0;
