@@ -292,7 +292,45 @@ def unused_rows(site_rows):
     print(f"site rows matching no IUPAC molecule ({len(idle)}): {' '.join(idle)}")
 
 
+def selftest():
+    """The checks themselves: a copy of the tables with one fault of each kind must fail each."""
+    import shutil
+    import tempfile
+    global FRAG
+    tmp = tempfile.mkdtemp(prefix="pkad-frag-")
+    try:
+        for name in COLUMNS:
+            shutil.copy(os.path.join(FRAG, name), tmp)
+        faults = {
+            "sites.tsv": lambda t: t + t.splitlines()[-1] + "\n",        # duplicate id
+            "corrections.tsv": lambda t: t + "bad\tortho\t*\t[C;\t0\t0\tcommon practice\n",
+            "substituents.tsv": lambda t: t + "short\t[Cl]\t0.1\n",      # column count
+        }
+        for name, inject in faults.items():
+            path = os.path.join(tmp, name)
+            text = open(path, encoding="utf-8").read()
+            open(path, "w", encoding="utf-8").write(inject(text))
+        FRAG = tmp
+        out = []
+        rep = Report()
+        rep.fail = lambda msg: out.append(msg)
+        tables = {name: read_table(name, rep) for name in COLUMNS}
+        for name, rows in tables.items():
+            compile_smarts(name, rows, rep)
+        check_fields(tables, rep)
+    finally:
+        shutil.rmtree(tmp)
+    wanted = ["duplicate id", "cannot parse SMARTS", "expected 10 columns"]
+    missing = [w for w in wanted if not any(w in m for m in out)]
+    for w in missing:
+        print(f"FAIL selftest: an injected fault was not reported: {w}")
+    print(f"selftest: {len(out)} faults reported, {len(wanted) - len(missing)}/{len(wanted)} expected kinds")
+    return 1 if missing else 0
+
+
 def main():
+    if "--selftest" in sys.argv:
+        return selftest()
     rep = Report()
     tables = {name: read_table(name, rep) for name in COLUMNS}
     for name, rows in tables.items():
