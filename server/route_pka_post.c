@@ -107,6 +107,11 @@ static int molecules_or_reply(srv_response *out, const cJSON *mols, pka_body *b,
 		if (item_or_reply(out, m, &b->items[n], where) < 0 ||
 		    unknown_field_or_reply(out, m, allowed, where) < 0)
 			return -1;
+		if (!b->items[n].id) {
+			/* Like `pkad predict`: a record without an id is named by its position. */
+			snprintf(b->items[n].num, sizeof b->items[n].num, "%zu", n + 1);
+			b->items[n].id = b->items[n].num;
+		}
 	}
 	return 0;
 }

@@ -32,6 +32,7 @@ struct srv_stream {
 	FILE *spool;        /* then here */
 	size_t sent;        /* bytes of mem already read out */
 	int records, errors;
+	int taken;          /* records read so far */
 	int failed;         /* the spool could not be written */
 };
 
@@ -173,6 +174,9 @@ static void record_take(srv_stream *s, const char *p, size_t n, int too_long)
 	} else {
 		record_plain(sl, p, n);
 	}
+	s->taken++;
+	if (!sl->id && (sl->id = malloc(24)))
+		snprintf(sl->id, 24, "%d", s->taken); /* like `pkad predict`: the position */
 	if (sl->job.done)
 		return;
 	if (!sl->input) {

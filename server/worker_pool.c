@@ -147,7 +147,7 @@ int srv_pool_new(srv_pool **out, const pred_model *m, int threads, int capacity,
 	int rc;
 
 	*out = NULL;
-	if (!p || !(p->threads = calloc((size_t)threads, sizeof *p->threads))) {
+	if (!p || !(p->threads = calloc(threads > 0 ? (size_t)threads : 1, sizeof *p->threads))) {
 		free(p);
 		return PRED_ENOMEM;
 	}
