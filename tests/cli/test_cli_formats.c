@@ -129,6 +129,18 @@ static void test_formats__sdf_has_one_record_per_input_with_fields(void)
 	cli_out_free(&o);
 }
 
+/* A zwitterion's mean charge at pH 7.4 is a hair below zero: it must read 0.00, not -0.00. */
+static void test_formats__tiny_negative_numbers_print_as_zero(void)
+{
+	const char *const sdf[] = {"predict", "--format", "sdf", NULL};
+	static const char in[] = "NCC(=O)O glycine\n";
+	cli_out o;
+	CHECK(cli_run(&o, sdf, in, sizeof in - 1) == 0);
+	CHECK(o.out && strstr(o.out, "> <CHARGE_PH7_4>\n"));
+	CHECK(o.out && !strstr(o.out, "\n-0.00\n"));
+	cli_out_free(&o);
+}
+
 /* Phenol as a V2000 record (2D layout written by Open Babel 3.1.1) with a field of its own. */
 static const char phenol_sd[] =
 	"phenol\n OpenBabel12012619162D\n\n"
@@ -240,6 +252,7 @@ int main(void)
 {
 	RUN(test_formats__csv_has_a_row_for_every_record);
 	RUN(test_formats__sdf_has_one_record_per_input_with_fields);
+	RUN(test_formats__tiny_negative_numbers_print_as_zero);
 	RUN(test_formats__sdf_output_loads_back);
 	RUN(test_formats__sd_detected_by_content_and_checked);
 	RUN(test_formats__threads_give_the_same_output_as_one);
