@@ -19,7 +19,9 @@ const srv_route srv_routes[] = {
 	{"GET", "/v1/version", srv_route_version, NULL, 0, "/v1/version"},
 	{"GET", "/v1/pka", srv_route_pka_get, NULL, 0, "/v1/pka"},
 	{"POST", "/v1/pka", srv_route_pka_post, &srv_pka_stream_ops, 0, "/v1/pka"},
-	/* POST /v1/deprotonation: route_deprotonation.c adds its row here. */
+	/* POST /v1/deprotonation: route_deprotonation.c adds its row here, e.g.
+	 * {"POST", "/v1/deprotonation", srv_route_deprotonation, NULL, 0, "/v1/deprotonation"},
+	 * and its operation to openapi.json (server_routes checks both). */
 };
 const size_t srv_route_count = sizeof srv_routes / sizeof srv_routes[0];
 
@@ -27,6 +29,9 @@ const srv_route *srv_route_find(const char *method, const char *path, char *allo
 {
 	size_t len = 0;
 
+	/* HEAD is answered as GET; libmicrohttpd leaves the body out. */
+	if (!strcmp(method, "HEAD"))
+		method = "GET";
 	allow[0] = '\0';
 	for (size_t i = 0; i < srv_route_count; i++) {
 		if (strcmp(srv_routes[i].path, path))
