@@ -109,3 +109,11 @@ int srv_media_type_is(const char *content_type, const char *type)
 	return content_type && !strncasecmp(content_type, type, n) &&
 	       (content_type[n] == '\0' || content_type[n] == ';' || content_type[n] == ' ');
 }
+
+int srv_no_query_or_reply(srv_response *out, const srv_request *req)
+{
+	if (!req->n_query)
+		return 0;
+	srv_reply_error(out, "bad_request", "unknown query parameter '%.60s'", req->query[0].key);
+	return -1;
+}

@@ -60,11 +60,18 @@ post_batches() {
 }
 
 echo "bench: $n_mols molecules (NCI first_5K), $threads threads, binary $bin"
-t0=$(now); "$bin" predict --threads "$threads" "${model_args[@]}" "$nci" >/dev/null || true; t1=$(now)
-cli_rate=$(echo "$n_mols / ($t1 - $t0)" | bc -l)
+# Two alternating rounds, best of each: the machine is shared, so one slow round says
+# more about the neighbours than about pkad.
+cli_rate=0
+http_rate=0
+best() { echo "if ($1 > $2) $1 else $2" | bc -l; }
 start_daemon --cache-size 0
-t0=$(now); post_batches; t1=$(now)
-http_rate=$(echo "$n_mols / ($t1 - $t0)" | bc -l)
+for round in 1 2; do
+  t0=$(now); "$bin" predict --threads "$threads" "${model_args[@]}" "$nci" >/dev/null || true; t1=$(now)
+  cli_rate=$(best "$cli_rate" "$(echo "$n_mols / ($t1 - $t0)" | bc -l)")
+  t0=$(now); post_batches; t1=$(now)
+  http_rate=$(best "$http_rate" "$(echo "$n_mols / ($t1 - $t0)" | bc -l)")
+done
 stop_daemon
 printf 'batch: pkad predict %.0f mol/s; POST /v1/pka %.0f mol/s; ratio %.2f (target >= 0.9)\n' \
   "$cli_rate" "$http_rate" "$(echo "$http_rate / $cli_rate" | bc -l)"

@@ -262,6 +262,9 @@ static void test_pka__query_errors_name_the_parameter(void)
 	CHECK_INT_EQ(call(&r, "GET", "/v1/pka", unknown, 2, NULL, NULL), 400);
 	CHECK(r.body && strstr(r.body, "'format'"));
 	free(r.body);
+	CHECK_INT_EQ(call(&r, "GET", "/metrics", unknown, 2, NULL, NULL), 400);
+	CHECK(r.body && strstr(r.body, "'smiles'"));
+	free(r.body);
 }
 
 /* A batch item answers the same text as the single request for that molecule. */
