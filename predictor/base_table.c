@@ -10,11 +10,25 @@
 #include "fragment_table.h"
 #include "tsv.h"
 
-static const char *const columns[] = {"name", "aliases", "conjugate_acid",
-				      "conjugate_acid_smiles", "pka", "scale", "pka_dmso",
-				      "organometallic", "byproduct", "escapes", "hazards", "source"};
-enum { C_NAME, C_ALIASES, C_ACID, C_ACID_SMILES, C_PKA, C_SCALE, C_DMSO, C_ORGMET, C_BYPRODUCT,
-       C_ESCAPES, C_HAZARDS, C_SOURCE, N_COLUMNS };
+static const char *const columns[] = {
+    "name",      "aliases", "conjugate_acid", "conjugate_acid_smiles",
+    "pka",       "scale",   "pka_dmso",       "organometallic",
+    "byproduct", "escapes", "hazards",        "source"};
+enum {
+	C_NAME,
+	C_ALIASES,
+	C_ACID,
+	C_ACID_SMILES,
+	C_PKA,
+	C_SCALE,
+	C_DMSO,
+	C_ORGMET,
+	C_BYPRODUCT,
+	C_ESCAPES,
+	C_HAZARDS,
+	C_SOURCE,
+	N_COLUMNS
+};
 
 static const char *const scales[] = {"water", "dmso", "thf", "estimate"};
 
@@ -40,7 +54,7 @@ static int name_equal(const char *a, const char *b)
 /* Calls fn on each comma-separated alias of list (copied to a buffer); stops at the first
  * nonzero return and passes it on. */
 static int each_alias(const char *list, int (*fn)(const char *alias, const void *ctx),
-		      const void *ctx)
+                      const void *ctx)
 {
 	char alias[128];
 	for (const char *p = list ? list : ""; *p;) {
@@ -77,11 +91,11 @@ static int check_header(const tsv_table *t, pred_error *err)
 {
 	if (t->n_cols != N_COLUMNS)
 		return tsv_fail(err, PRED_EDATA, t, 0, "expected %d columns, got %zu", N_COLUMNS,
-				t->n_cols);
+		                t->n_cols);
 	for (size_t i = 0; i < N_COLUMNS; i++)
 		if (strcmp(t->header[i], columns[i]))
 			return tsv_fail(err, PRED_EDATA, t, 0, "column %zu is '%s', expected '%s'",
-					i + 1, t->header[i], columns[i]);
+			                i + 1, t->header[i], columns[i]);
 	return 0;
 }
 
@@ -91,13 +105,13 @@ static int check_scale(const tsv_table *t, const tsv_row *row, pred_error *err)
 		if (!strcmp(row->fields[C_SCALE], scales[i]))
 			return 0;
 	return tsv_fail(err, PRED_EDATA, t, row->line,
-			"scale '%s' is not water, dmso, thf or estimate", row->fields[C_SCALE]);
+	                "scale '%s' is not water, dmso, thf or estimate", row->fields[C_SCALE]);
 }
 
 static int check_row(const tsv_table *t, const tsv_row *row, pred_error *err)
 {
-	const char *const required[] = {"name", "conjugate_acid", "conjugate_acid_smiles",
-					"byproduct", "hazards", "source"};
+	const char *const required[] = {"name",      "conjugate_acid", "conjugate_acid_smiles",
+	                                "byproduct", "hazards",        "source"};
 	const int cols[] = {C_NAME, C_ACID, C_ACID_SMILES, C_BYPRODUCT, C_HAZARDS, C_SOURCE};
 	for (size_t i = 0; i < sizeof cols / sizeof cols[0]; i++)
 		if (!row->fields[cols[i]][0])
@@ -107,7 +121,7 @@ static int check_row(const tsv_table *t, const tsv_row *row, pred_error *err)
 		const char *v = row->fields[flags[i]];
 		if (strcmp(v, "0") && strcmp(v, "1"))
 			return tsv_fail(err, PRED_EDATA, t, row->line, "%s '%s' is not 0 or 1",
-					columns[flags[i]], v);
+			                columns[flags[i]], v);
 	}
 	return check_scale(t, row, err);
 }
@@ -129,27 +143,27 @@ static int alias_free(const char *alias, const void *ctx)
 
 /* A name or alias already taken by an earlier row is an error (lookups must be unique). */
 static int check_unique(const pred_model *m, const tsv_table *t, const tsv_row *row,
-			pred_error *err)
+                        pred_error *err)
 {
 	unique_ctx u = {m, t, row, err};
 	if (base_table_find(m, row->fields[C_NAME]) >= 0)
 		return tsv_fail(err, PRED_EDATA, t, row->line, "duplicate base '%s'",
-				row->fields[C_NAME]);
+		                row->fields[C_NAME]);
 	return each_alias(row->fields[C_ALIASES], alias_free, &u);
 }
 
-static int add_base(pred_model *m, const tsv_table *t, const tsv_row *row, double pka,
-		    double dmso, pred_error *err)
+static int add_base(pred_model *m, const tsv_table *t, const tsv_row *row, double pka, double dmso,
+                    pred_error *err)
 {
 	frag_base *grown = realloc(m->bases, (m->n_bases + 1) * sizeof *grown);
 	if (!grown)
 		return tsv_fail(err, PRED_ENOMEM, t, row->line, "out of memory");
 	m->bases = grown;
 	frag_base *b = &m->bases[m->n_bases++];
-	char **const dst[] = {&b->name, &b->aliases, &b->conjugate_acid, &b->conj_smiles,
-			      &b->scale, &b->byproduct, &b->hazards, &b->source};
-	const int src[] = {C_NAME, C_ALIASES, C_ACID, C_ACID_SMILES, C_SCALE, C_BYPRODUCT,
-			   C_HAZARDS, C_SOURCE};
+	char **const dst[] = {&b->name,  &b->aliases,   &b->conjugate_acid, &b->conj_smiles,
+	                      &b->scale, &b->byproduct, &b->hazards,        &b->source};
+	const int src[] = {C_NAME,  C_ALIASES,   C_ACID,    C_ACID_SMILES,
+	                   C_SCALE, C_BYPRODUCT, C_HAZARDS, C_SOURCE};
 	memset(b, 0, sizeof *b);
 	b->pka = pka;
 	b->pka_dmso = dmso;

@@ -17,15 +17,21 @@ static int fail(pred_error *err, int code, const char *msg)
 	return code;
 }
 
-/* "unknown base 'x'; known: NaHCO3, Na2CO3, ..." with the first alias (short) of each. */
+/* "unknown base 'x'; known: NaHCO3, Na2CO3, ..., DBU, ...": a short name of each. */
 static int unknown_base(const pred_model *m, const char *base, pred_error *err)
 {
 	char msg[sizeof err->msg];
 	int n = snprintf(msg, sizeof msg, "unknown base '%.40s'; known:", base);
 	for (size_t i = 0; i < m->n_bases && n > 0 && (size_t)n < sizeof msg; i++) {
-		const char *a = m->bases[i].aliases, *nm = a && *a ? a : m->bases[i].name;
-		size_t len = strcspn(nm, ",");
-		n += snprintf(msg + n, sizeof msg - (size_t)n, "%s %.*s", i ? "," : "", (int)len, nm);
+		/* the shorter of the name and its first alias */
+		const char *a = m->bases[i].aliases, *nm = m->bases[i].name;
+		size_t len = strlen(nm);
+		if (a && *a && strcspn(a, ",") < len) {
+			nm = a;
+			len = strcspn(a, ",");
+		}
+		n += snprintf(msg + n, sizeof msg - (size_t)n, "%s %.*s", i ? "," : "", (int)len,
+		              nm);
 	}
 	return fail(err, PRED_EINVAL, msg);
 }
@@ -102,7 +108,7 @@ static char *protonated(obw_mol *mol, obw_ctx *ctx, int a, char *msg, size_t msg
 	unsigned char *keep = calloc(nat + 1, 1);
 	char *out = NULL;
 	int rc = comp && keep ? obw_mol_set_atom(mol, a, at[a].charge + 1, at[a].hcount + 1)
-			      : PRED_ENOMEM;
+	                      : PRED_ENOMEM;
 	if (!rc) {
 		obw_mol_components(mol, comp, nat);
 		for (size_t i = 0; i < nat; i++)
@@ -129,7 +135,7 @@ static int mol_index(const obw_mol *mol, int orig)
 }
 
 static int set_predicted(pred_deprotonation *d, const char *smiles, const pred_site *s,
-			 const char *conj)
+                         const char *conj)
 {
 	pred_result *r = d->sub;
 	d->base_pka = s->pka;
@@ -141,7 +147,7 @@ static int set_predicted(pred_deprotonation *d, const char *smiles, const pred_s
 	if (!d->base || !d->scale || !d->conj_acid || !d->byproduct)
 		return PRED_ENOMEM;
 	return deprot_caution(d, "no hazard data for a base given as SMILES: read its safety "
-				 "data sheet");
+	                         "data sheet");
 }
 
 static int no_site(const char *smiles, pred_error *err)
@@ -153,7 +159,7 @@ static int no_site(const char *smiles, pred_error *err)
 
 /* Anionic base: predict its conjugate acid and take that acid's weakest acid site. */
 static int anionic_base(pred_deprotonation *d, pred_worker *w, obw_mol *mol, int centre,
-			const char *smiles, const pred_options *opt, pred_error *err)
+                        const char *smiles, const pred_options *opt, pred_error *err)
 {
 	pred_result *cr = NULL;
 	char msg[200] = "";
@@ -170,8 +176,8 @@ static int anionic_base(pred_deprotonation *d, pred_worker *w, obw_mol *mol, int
 }
 
 /* Neutral base: predict it and take its most basic site. */
-static int neutral_base(pred_deprotonation *d, pred_worker *w, obw_mol *mol,
-			const char *smiles, const pred_options *opt, pred_error *err)
+static int neutral_base(pred_deprotonation *d, pred_worker *w, obw_mol *mol, const char *smiles,
+                        const pred_options *opt, pred_error *err)
 {
 	pred_result *br = NULL;
 	char msg[200] = "", *conj = NULL;
@@ -189,7 +195,7 @@ static int neutral_base(pred_deprotonation *d, pred_worker *w, obw_mol *mol,
 }
 
 static int from_smiles(pred_deprotonation *d, pred_worker *w, const char *smiles,
-		       const pred_options *opt, pred_error *err)
+                       const pred_options *opt, pred_error *err)
 {
 	obw_mol *mol = NULL;
 	char msg[200] = "";
@@ -197,13 +203,13 @@ static int from_smiles(pred_deprotonation *d, pred_worker *w, const char *smiles
 		return unknown_base(w->m, smiles, err);
 	int centre = anionic_centre(mol);
 	int rc = centre >= 0 ? anionic_base(d, w, mol, centre, smiles, opt, err)
-			     : neutral_base(d, w, mol, smiles, opt, err);
+	                     : neutral_base(d, w, mol, smiles, opt, err);
 	obw_mol_free(mol);
 	return rc;
 }
 
 int deprot_resolve_base(pred_deprotonation *d, pred_worker *w, const char *base,
-			const pred_options *opt, pred_error *err)
+                        const pred_options *opt, pred_error *err)
 {
 	int k = base_table_find(w->m, base);
 	if (k >= 0)

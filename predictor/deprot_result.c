@@ -7,8 +7,7 @@
 
 #include "deprotonate.h"
 
-static int append(pred_deprotonation *d, char ***list, size_t *n, const char *fmt,
-		  va_list ap)
+static int append(pred_deprotonation *d, char ***list, size_t *n, const char *fmt, va_list ap)
 {
 	char buf[512];
 	vsnprintf(buf, sizeof buf, fmt, ap);
@@ -58,10 +57,9 @@ size_t pred_base_count(const pred_model *m)
 void pred_base(pred_base_info *out, const pred_model *m, size_t i)
 {
 	const frag_base *b = &m->bases[i];
-	*out = (pred_base_info){b->name,    b->aliases,        b->conjugate_acid,
-				b->conj_smiles, b->pka,     b->scale,
-				b->pka_dmso, b->organometallic, b->byproduct,
-				b->hazards,  b->source};
+	*out = (pred_base_info){b->name,      b->aliases, b->conjugate_acid, b->conj_smiles,
+	                        b->pka,       b->scale,   b->pka_dmso,       b->organometallic,
+	                        b->byproduct, b->hazards, b->source};
 }
 
 const char *pred_deprotonation_substrate(const pred_deprotonation *d)

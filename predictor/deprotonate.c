@@ -49,9 +49,9 @@ double deprot_fraction(double log_k, double equiv)
 
 static const char *verdict(double fraction)
 {
-	return fraction > DEPROT_COMPLETE ? "complete"
+	return fraction > DEPROT_COMPLETE     ? "complete"
 	       : fraction < DEPROT_NEGLIGIBLE ? "negligible"
-					      : "partial";
+	                                      : "partial";
 }
 
 static int check_request(const pred_deprot_request *req, pred_error *err)
@@ -63,7 +63,7 @@ static int check_request(const pred_deprot_request *req, pred_error *err)
 		return fail(err, PRED_EINVAL, "no base given (a table name or a smiles)");
 	if (!isfinite(req->equivalents) || req->equivalents <= 0) {
 		snprintf(msg, sizeof msg, "equivalents must be a number greater than 0, got %g",
-			 req->equivalents);
+		         req->equivalents);
 		return fail(err, PRED_EINVAL, msg);
 	}
 	return 0;
@@ -89,7 +89,7 @@ static int check_sites(const pred_result *r, size_t n_acid, int atom, pred_error
 	char msg[200];
 	if (!n_acid) {
 		snprintf(msg, sizeof msg, "substrate %.120s has no acid site to deprotonate",
-			 r->smiles ? r->smiles : "");
+		         r->smiles ? r->smiles : "");
 		return fail(err, PRED_EINVAL, msg);
 	}
 	for (size_t i = 0; atom >= 0 && i < r->n_sites; i++)
@@ -101,8 +101,7 @@ static int check_sites(const pred_result *r, size_t n_acid, int atom, pred_error
 	return fail(err, PRED_EINVAL, msg);
 }
 
-static pred_deprot_site site_outcome(const pred_deprotonation *d, const pred_site *s,
-				     double avail)
+static pred_deprot_site site_outcome(const pred_deprotonation *d, const pred_site *s, double avail)
 {
 	pred_deprot_site o = {s->atom, s->element, s->group, s->pka, s->uncertainty, 0, 0, 0, ""};
 	o.delta_pka = d->base_pka - s->pka;
@@ -117,9 +116,9 @@ static pred_deprot_site site_outcome(const pred_deprotonation *d, const pred_sit
 static int warn_taken_first(pred_deprotonation *d, const pred_site *s, double used)
 {
 	return deprot_warn(d,
-			   "the %s at atom %d (pKa %.1f) is more acidic and takes %.2f equivalents "
-			   "of base first",
-			   s->group, s->atom, s->pka, used);
+	                   "the %s at atom %d (pKa %.1f) is more acidic and takes %.2f equivalents "
+	                   "of base first",
+	                   s->group, s->atom, s->pka, used);
 }
 
 /* The most acidic site takes base first; each later site sees what is left. */
@@ -159,23 +158,27 @@ static int warn_scale(pred_deprotonation *d)
 		margin = fmin(margin, fabs(d->sites[i].delta_pka));
 	int rc = 0;
 	if (!strcmp(d->scale, "estimate"))
-		rc = deprot_warn(d,
-				 "the pKa of %s (%.0f) is an estimate, not a measured aqueous value; "
-				 "only a wide margin is meaningful",
-				 d->conj_acid, d->base_pka);
+		rc = deprot_warn(
+		    d,
+		    "the pKa of %s (%.0f) is an estimate, not a measured aqueous value; "
+		    "only a wide margin is meaningful",
+		    d->conj_acid, d->base_pka);
 	else if (strcmp(d->scale, "water"))
-		rc = deprot_warn(d,
-				 "the base's value (%.1f) is on the %s scale and the substrate's "
-				 "(predicted) on the water scale; %s values of neutral O-H and N-H "
-				 "acids run about 10-15 units higher, so delta pKa is a rough guide and "
-				 "the verdict holds only with a margin over %.0f units",
-				 d->base_pka, !strcmp(d->scale, "dmso") ? "DMSO" : "THF",
-				 !strcmp(d->scale, "dmso") ? "DMSO" : "THF", DEPROT_SCALE_MARGIN);
+		rc = deprot_warn(
+		    d,
+		    "the base's value (%.1f) is on the %s scale and the substrate's "
+		    "(predicted) on the water scale; %s values of neutral O-H and N-H "
+		    "acids run about 10-15 units higher, so delta pKa is a rough guide and "
+		    "the verdict holds only with a margin over %.0f units",
+		    d->base_pka, !strcmp(d->scale, "dmso") ? "DMSO" : "THF",
+		    !strcmp(d->scale, "dmso") ? "DMSO" : "THF", DEPROT_SCALE_MARGIN);
 	else
 		return 0;
 	if (!rc && margin < DEPROT_SCALE_MARGIN)
-		rc = deprot_warn(d, "here the margin is only %.1f units: treat the verdict as "
-				    "uncertain", margin);
+		rc = deprot_warn(d,
+		                 "here the margin is only %.1f units: treat the verdict as "
+		                 "uncertain",
+		                 margin);
 	return rc;
 }
 
@@ -186,7 +189,7 @@ static int list_atoms(char *buf, size_t n, const int *atoms, size_t k, int skip)
 	for (size_t i = 0; i < k && (size_t)len < n; i++)
 		if (atoms[i] != skip) {
 			len += snprintf(buf + len, n - (size_t)len, "%s%d", count ? ", " : "",
-					atoms[i]);
+			                atoms[i]);
 			count++;
 		}
 	return count;
@@ -208,17 +211,17 @@ static int warn_quench(pred_deprotonation *d, pred_worker *w, const char *smiles
 		return 0;
 	if (d->organometallic)
 		return deprot_warn(d,
-				   "%s is quenched by the free OH/NH of the substrate (atom %s): "
-				   "each consumes one equivalent and gives %s",
-				   d->base, list, d->byproduct);
+		                   "%s is quenched by the free OH/NH of the substrate (atom %s): "
+		                   "each consumes one equivalent and gives %s",
+		                   d->base, list, d->byproduct);
 	return deprot_warn(d,
-			   "the free OH/NH at atom %s also reacts with %s and consumes it, giving "
-			   "%s",
-			   list, d->base, d->byproduct);
+	                   "the free OH/NH at atom %s also reacts with %s and consumes it, giving "
+	                   "%s",
+	                   list, d->base, d->byproduct);
 }
 
 static int fill(pred_deprotonation *d, pred_worker *w, const pred_deprot_request *req,
-		const pred_options *opt, pred_error *err)
+                const pred_options *opt, pred_error *err)
 {
 	size_t *order = res_alloc(d->sub, (d->sub->n_sites + 1) * sizeof *order);
 	if (!order)
@@ -232,14 +235,14 @@ static int fill(pred_deprotonation *d, pred_worker *w, const pred_deprot_request
 	if (!rc && (rc = warn_quench(d, w, req->substrate, req->atom)))
 		rc = fail(err, rc, "cannot read the substrate's OH/NH groups");
 	if (!rc && deprot_caution(d, "local rules and institutional safety practice govern: "
-				     "read the safety data sheet and follow your institution's "
-				     "procedures before handling"))
+	                             "read the safety data sheet and follow your institution's "
+	                             "procedures before handling"))
 		rc = fail(err, PRED_ENOMEM, "out of memory");
 	return rc;
 }
 
 int pred_deprotonate(pred_deprotonation **out, pred_worker *w, const pred_deprot_request *req,
-		     const pred_options *opt, pred_error *err)
+                     const pred_options *opt, pred_error *err)
 {
 	pred_options defaults;
 	*out = NULL;

@@ -9,14 +9,14 @@
 /* Every string and array lives in the arena of the substrate's result (sub), so one free
  * releases everything. */
 struct pred_deprotonation {
-	pred_result *sub;   /* prediction of the substrate */
-	char *base;         /* table name, or the SMILES given */
+	pred_result *sub; /* prediction of the substrate */
+	char *base;       /* table name, or the SMILES given */
 	char *conj_acid;
 	char *scale;
 	double base_pka;
-	int predicted;      /* base given as SMILES, its value predicted */
+	int predicted; /* base given as SMILES, its value predicted */
 	int organometallic;
-	int escapes;        /* by-product leaves as a gas */
+	int escapes; /* by-product leaves as a gas */
 	double equiv;
 	char *byproduct;
 	pred_deprot_site *sites;
@@ -34,7 +34,7 @@ int deprot_warn(pred_deprotonation *d, const char *fmt, ...);
 /* Fills the base fields of d from the table entry or by predicting the SMILES base.
  * Returns 0 or a PRED_E* with err set (unknown base lists the known ones). */
 int deprot_resolve_base(pred_deprotonation *d, pred_worker *w, const char *base,
-			const pred_options *opt, pred_error *err);
+                        const pred_options *opt, pred_error *err);
 
 /* Fraction of the substrate deprotonated at equilibrium for K = 10^log_k and equiv
  * equivalents of base (mass balance, see deprotonate.c). */

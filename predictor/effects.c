@@ -263,9 +263,11 @@ static void walk_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 		int g = e->group[x];
 		int root = g >= 0 && e->group_root[x] == x && !m->substs[g].transparent;
 		/* atoms of the site's own match belong to the parent: passed through, not counted,
-		 * unless a substituent group is rooted there (the R of R-COOH may be a CF3) */
-		int transparent = !root && (in_match(s, x) || (g >= 0 ? m->substs[g].transparent
-								       : plain_carbon(e, x)));
+		 * except an sp3 carbon standing for "R" (the R of R-COOH may be a CF3) */
+		int r_position = in_match(s, x) && e->atoms[x].element == 6 && e->atoms[x].hyb == 3;
+		int transparent = !(root && (r_position || !in_match(s, x))) &&
+				  (in_match(s, x) || (g >= 0 ? m->substs[g].transparent
+							     : plain_carbon(e, x)));
 		if (!transparent) {
 			sigmas sg;
 			group_sigmas(&sg, e, m, x);

@@ -16,6 +16,7 @@ void pred_fit_options_init(pred_fit_options *opt)
 	opt->folds = 5;
 	opt->resid_sd = 0.5;
 	opt->huber = 1.0;
+	opt->trim = 3.0;
 	opt->search_falloff = 1;
 	opt->falloff_lo = 0.30;
 	opt->falloff_hi = 0.60;
@@ -136,7 +137,30 @@ typedef struct fit_state {
 	fit_cols cols;
 	double *theta;
 	double obj, falloff;
+	size_t n_trimmed;
 } fit_state;
+
+static double value_now(const pred_model *m, const fit_data *d, size_t i)
+{
+	double v = d->c[i];
+	for (size_t k = d->off[i]; k < d->off[i + 1]; k++)
+		v += d->feat[k] * (d->param[k] >= 0 ? m->params[d->param[k]].value : 0);
+	return v;
+}
+
+/* Rows far off under the starting values get weight 0: no parameter of the model can
+ * explain a missing site class, a mis-drawn tautomer or a data error, and such rows would
+ * drag the class they happen to match. Returns how many. */
+static size_t trim_rows(fit_data *d, const pred_model *m, double trim)
+{
+	size_t n = 0;
+	for (size_t i = 0; trim > 0 && i < d->n; i++)
+		if (fabs(value_now(m, d, i) - d->y[i]) > trim) {
+			d->w[i] = 0;
+			n++;
+		}
+	return n;
+}
 
 static void state_clear(fit_state *s)
 {
@@ -177,6 +201,7 @@ static int evaluate(fit_state *s, pred_model *m, double falloff, const pred_fit_
 		m->params[m->p_falloff].value = falloff;
 	if ((rc = collect(&s->d, m, rows, n, opt->folds, err)))
 		return rc;
+	s->n_trimmed = trim_rows(&s->d, m, opt->trim);
 	if (s->d.n == 0)
 		return set_err(err, PRED_EINVAL, "no training row has a matching site");
 	if ((rc = fit_cols_build(&s->cols, m, &s->d, m->p_falloff)))
@@ -250,15 +275,13 @@ done:
 	return rc;
 }
 
-/* Weighted rms residual of the model as it stands (before the fit). */
+/* Weighted rms residual of the kept rows with the model's values as they stand. */
 static double rmse_current(const pred_model *m, const fit_data *d)
 {
 	double sw = 0, s = 0;
 	for (size_t i = 0; i < d->n; i++) {
-		double v = d->c[i];
-		for (size_t k = d->off[i]; k < d->off[i + 1]; k++)
-			v += d->feat[k] * (d->param[k] >= 0 ? m->params[d->param[k]].value : 0);
-		s += d->w[i] * (v - d->y[i]) * (v - d->y[i]);
+		double r = value_now(m, d, i) - d->y[i];
+		s += d->w[i] * r * r;
 		sw += d->w[i];
 	}
 	return sw > 0 ? sqrt(s / sw) : NAN;
@@ -278,7 +301,8 @@ static void store(pred_model *m, pred_fit_report *rep, const fit_state *s, const
 		int n = 0;
 		for (size_t i = 0; i < s->d.n; i++)
 			for (size_t k = s->d.off[i]; k < s->d.off[i + 1]; k++)
-				if (s->d.param[k] == (int)p && s->d.feat[k] != 0) {
+				if (s->d.param[k] == (int)p && s->d.feat[k] != 0 &&
+				    s->d.w[i] > 0) {
 					sse += cv[i] * cv[i];
 					n++;
 					break;
@@ -293,11 +317,16 @@ static void store(pred_model *m, pred_fit_report *rep, const fit_state *s, const
 	}
 }
 
-static double rms(const double *v, size_t n)
+/* rms of the cross-validated residuals of the rows kept (weight > 0). */
+static double rms_kept(const double *v, const fit_data *d)
 {
 	double s = 0;
-	for (size_t i = 0; i < n; i++)
-		s += v[i] * v[i];
+	size_t n = 0;
+	for (size_t i = 0; i < d->n; i++)
+		if (d->w[i] > 0) {
+			s += v[i] * v[i];
+			n++;
+		}
 	return n ? sqrt(s / (double)n) : NAN;
 }
 
@@ -322,14 +351,14 @@ static int fit_run(pred_fit_report *rep, pred_model *m, const pred_fit_row *rows
 	store(m, rep, &s, cv);
 	if (search) {
 		m->params[m->p_falloff].value = s.falloff;
-		m->params[m->p_falloff].n = (int)s.d.n;
+		m->params[m->p_falloff].n = (int)(s.d.n - s.n_trimmed);
 		if (m->params[m->p_falloff].prior_sd <= 0)
 			m->params[m->p_falloff].prior_sd = opt->falloff_sd;
 		rep->fitted[m->p_falloff] = 1;
 	}
-	rep->sum = (pred_fit_summary){n, s.d.n, s.d.n_unreadable, s.d.n_unmatched,
-				      s.cols.n + (size_t)search, rep->sum.rmse_before,
-				      rmse_current(m, &s.d), rms(cv, s.d.n), s.falloff};
+	rep->sum = (pred_fit_summary){n, s.d.n - s.n_trimmed, s.d.n_unreadable, s.d.n_unmatched,
+				      s.n_trimmed, s.cols.n + (size_t)search, rep->sum.rmse_before,
+				      rmse_current(m, &s.d), rms_kept(cv, &s.d), s.falloff};
 done:
 	if (rc && m->p_falloff >= 0)
 		m->params[m->p_falloff].value = f0;

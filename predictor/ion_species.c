@@ -38,8 +38,8 @@ static int site_on(const ion_work *w, size_t s, size_t i, const unsigned char *i
 	return 0;
 }
 
-static char *species_smiles(pred_result *r, const ion_work *w, const ion_input *in,
-			    size_t s, const unsigned char *is_extra, pred_error *err)
+static char *species_smiles(pred_result *r, const ion_work *w, const ion_input *in, size_t s,
+                            const unsigned char *is_extra, pred_error *err)
 {
 	obw_mol *mol = NULL;
 	char *smi = NULL, *out = NULL, *msg = err ? err->msg : NULL;
@@ -72,7 +72,7 @@ static char *species_smiles(pred_result *r, const ion_work *w, const ion_input *
 /* Without a molecule (tests of the model on hand-built sites) a species is written as one
  * character per site in site order: '-' ionised acid, '+' protonated base, '0' neutral. */
 static char *state_string(pred_result *r, const ion_work *w, size_t s,
-			  const unsigned char *is_extra)
+                          const unsigned char *is_extra)
 {
 	char *out = res_alloc(r, w->n + 1);
 	for (size_t i = 0; out && i < w->n; i++)
@@ -125,7 +125,7 @@ static size_t merge_same(candidate *cand, size_t nc)
 	for (size_t i = 0; i < nc; i++) {
 		size_t j = 0;
 		while (j < out && !(cand[i].smiles && cand[j].smiles &&
-				    !strcmp(cand[i].smiles, cand[j].smiles)))
+		                    !strcmp(cand[i].smiles, cand[j].smiles)))
 			j++;
 		if (j < out)
 			cand[j].fraction += cand[i].fraction;

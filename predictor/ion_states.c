@@ -118,8 +118,7 @@ static int fixed_charge(const ion_input *in)
 	return q;
 }
 
-int ion_work_init(ion_work *w, pred_result *r, const pred_model *m, const ion_input *in,
-		  double ph)
+int ion_work_init(ion_work *w, pred_result *r, const pred_model *m, const ion_input *in, double ph)
 {
 	memset(w, 0, sizeof *w);
 	w->r = r;
@@ -142,7 +141,8 @@ int ion_work_init(ion_work *w, pred_result *r, const pred_model *m, const ion_in
 	for (size_t i = 0; i < w->n; i++) {
 		w->q_on[i] = r->sites[i].kind == PRED_ACID ? -1 : 1;
 		for (size_t j = 0; j < w->n; j++)
-			w->W[i * w->n + j] = i == j ? 0 : ionization_pair_shift(m, site_bonds(in, i, j));
+			w->W[i * w->n + j] =
+			    i == j ? 0 : ionization_pair_shift(m, site_bonds(in, i, j));
 	}
 	w->fixed = fixed_charge(in);
 	choose_cluster(w, ph);

@@ -17,26 +17,25 @@
  * that feel the mean charges of all other sites (mean field). */
 typedef struct ion_work {
 	const pred_result *r;
-	size_t n;        /* all sites */
+	size_t n;          /* all sites */
 	const double *pka; /* micro pKa per site: r->micro, or the site values */
-	double *W;       /* n x n pair shifts, pKa units, 0 on the diagonal */
-	int *q_on;       /* per site: charge of the charged form, -1 acid, +1 base */
-	int fixed;       /* formal charge outside the sites (quaternary N, ...) */
-	size_t nc, nx;   /* cluster and extra site counts */
-	int *cl, *ex;    /* site indices (into r->sites) of cluster and extras */
-	size_t ns;       /* 1 << nc */
+	double *W;         /* n x n pair shifts, pKa units, 0 on the diagonal */
+	int *q_on;         /* per site: charge of the charged form, -1 acid, +1 base */
+	int fixed;         /* formal charge outside the sites (quaternary N, ...) */
+	size_t nc, nx;     /* cluster and extra site counts */
+	int *cl, *ex;      /* site indices (into r->sites) of cluster and extras */
+	size_t ns;         /* 1 << nc */
 	double *logw0;
 	int *nrem, *charge;
 	/* scratch of one evaluation at a pH */
-	double *frac;    /* ns fractions of the cluster states */
-	double *qbar;    /* n mean charges per site */
-	double *xp;      /* nx probabilities that each extra site is charged */
+	double *frac; /* ns fractions of the cluster states */
+	double *qbar; /* n mean charges per site */
+	double *xp;   /* nx probabilities that each extra site is charged */
 } ion_work;
 
 /* Allocates every array in r's arena, picks the cluster (the sites nearest ph) and
  * enumerates it. Returns 0 or PRED_ENOMEM. */
-int ion_work_init(ion_work *w, pred_result *r, const pred_model *m, const ion_input *in,
-		  double ph);
+int ion_work_init(ion_work *w, pred_result *r, const pred_model *m, const ion_input *in, double ph);
 /* Fills w->frac, w->qbar and w->xp at this pH; returns the mean net charge. */
 double ion_work_eval(ion_work *w, double ph);
 /* Fraction of each net charge lo..lo+nq-1 at the last evaluated pH, into out[nq]. */

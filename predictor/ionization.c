@@ -30,9 +30,9 @@ double ionization_pair_shift(const pred_model *m, int bonds)
 	if (bonds < 1)
 		return 0; /* same atom or not connected (separate fragments) */
 	double a = param_value(m, m ? m->p_interaction : -1, "global.interaction",
-			       ION_INTERACTION_DEFAULT);
-	double decay = param_value(m, m ? m->p_interaction_decay : -1,
-				   "global.interaction_decay", ION_DECAY_DEFAULT);
+	                       ION_INTERACTION_DEFAULT);
+	double decay = param_value(m, m ? m->p_interaction_decay : -1, "global.interaction_decay",
+	                           ION_DECAY_DEFAULT);
 	/* W(d) = A exp(-k (d - 1)), the form fragment_table.c documents for these parameters */
 	return a * exp(-decay * (bonds - 1));
 }
@@ -46,25 +46,26 @@ static int set_err(pred_error *err, int code, const char *msg)
 	return code;
 }
 
-static void kinds_present(const pred_result *r, int *acid, int *base)
+/* An ampholyte has an acid and a base site that ionise in water (micro pKa within 0..14):
+ * a diacid's carbonyl oxygens (pKa below -5) or an alcohol OH (about 16) do not make one. */
+static int is_ampholyte(const ion_work *w)
 {
-	*acid = *base = 0;
-	for (size_t i = 0; i < r->n_sites; i++) {
-		*acid |= r->sites[i].kind == PRED_ACID;
-		*base |= r->sites[i].kind == PRED_BASE;
+	int acid = 0, base = 0;
+	for (size_t i = 0; i < w->n; i++) {
+		if (w->pka[i] < 0 || w->pka[i] > ION_CURVE_MAX)
+			continue;
+		acid |= w->q_on[i] < 0;
+		base |= w->q_on[i] > 0;
 	}
+	return acid && base;
 }
 
-/* Isoelectric point: the root of net charge = 0, by bisection (the charge falls
- * monotonically with pH). Only for molecules with both acid and base sites. */
+/* Isoelectric point: the root of net charge = 0 within pH 0..14, by bisection (the charge
+ * falls monotonically with pH). Only for ampholytes. */
 static void fill_isoelectric(pred_result *r, ion_work *w)
 {
-	int acid, base;
-	kinds_present(r, &acid, &base);
-	if (!acid || !base)
-		return;
-	double lo = ION_PH_MIN, hi = ION_PH_MAX;
-	if (ion_work_eval(w, lo) <= 0 || ion_work_eval(w, hi) >= 0)
+	double lo = 0, hi = ION_CURVE_MAX;
+	if (!is_ampholyte(w) || ion_work_eval(w, lo) <= 0 || ion_work_eval(w, hi) >= 0)
 		return;
 	for (int it = 0; it < 60; it++) {
 		double mid = 0.5 * (lo + hi);
@@ -120,7 +121,8 @@ static int check_options(const pred_options *opt, pred_error *err)
 {
 	char msg[128];
 	if (!(opt->ph >= ION_PH_MIN && opt->ph <= ION_PH_MAX)) {
-		snprintf(msg, sizeof msg, "ph %g is outside %g..%g", opt->ph, ION_PH_MIN, ION_PH_MAX);
+		snprintf(msg, sizeof msg, "ph %g is outside %g..%g", opt->ph, ION_PH_MIN,
+		         ION_PH_MAX);
 		return set_err(err, PRED_EINVAL, msg);
 	}
 	if (opt->curves && !(opt->curve_step >= 0.01 && opt->curve_step <= 14)) {
@@ -133,15 +135,16 @@ static int check_options(const pred_options *opt, pred_error *err)
 static int warn_approximate(pred_result *r, const ion_work *w, double ph)
 {
 	r->approximate = 1;
-	return res_warn(r,
-			"ionization approximate: %zu sites exceed the exact limit of %d; the %d "
-			"with pKa nearest pH %.2f are enumerated exactly, the other %zu are treated "
-			"as independent sites in the mean charge field of the rest",
-			w->n, ION_EXACT_MAX, ION_EXACT_MAX, ph, w->nx);
+	return res_warn(
+	    r,
+	    "ionization approximate: %zu sites exceed the exact limit of %d; the %d "
+	    "with pKa nearest pH %.2f are enumerated exactly, the other %zu are treated "
+	    "as independent sites in the mean charge field of the rest",
+	    w->n, ION_EXACT_MAX, ION_EXACT_MAX, ph, w->nx);
 }
 
 int ionization_fill(pred_result *r, const pred_model *m, const ion_input *in,
-		    const pred_options *opt, pred_error *err)
+                    const pred_options *opt, pred_error *err)
 {
 	ion_work w;
 	int rc = check_options(opt, err);
@@ -160,7 +163,7 @@ int ionization_fill(pred_result *r, const pred_model *m, const ion_input *in,
 	r->charge = ion_work_eval(&w, opt->ph);
 	if ((rc = ion_species_fill(r, &w, in, err)))
 		return rc == PRED_ENOMEM ? set_err(err, rc, "out of memory in the ionization model")
-					 : rc;
+		                         : rc;
 	fill_isoelectric(r, &w);
 	if (opt->curves && fill_curves(r, &w, opt->curve_step))
 		return set_err(err, PRED_ENOMEM, "out of memory in the ionization model");

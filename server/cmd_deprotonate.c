@@ -21,27 +21,28 @@ typedef struct deprot_opts {
 } deprot_opts;
 
 static const struct option long_opts[] = {
-	{"base", required_argument, NULL, 'b'},    {"equiv", required_argument, NULL, 'e'},
-	{"atom", required_argument, NULL, 'a'},    {"list-bases", no_argument, NULL, 'l'},
-	{"format", required_argument, NULL, 'f'},  {"fragments", required_argument, NULL, 'F'},
-	{"help", no_argument, NULL, 'h'},          {NULL, 0, NULL, 0},
+    {"base", required_argument, NULL, 'b'},   {"equiv", required_argument, NULL, 'e'},
+    {"atom", required_argument, NULL, 'a'},   {"list-bases", no_argument, NULL, 'l'},
+    {"format", required_argument, NULL, 'f'}, {"fragments", required_argument, NULL, 'F'},
+    {"help", no_argument, NULL, 'h'},         {NULL, 0, NULL, 0},
 };
 
 static void usage(FILE *f)
 {
-	fprintf(f,
-		"usage: pkad deprotonate --base NAME|SMILES [--equiv X] [--atom N]\n"
-		"                        [--format text|json] [--fragments DIR] [SMILES]\n"
-		"       pkad deprotonate --list-bases [--format text|json]\n\n"
-		"Says whether a base deprotonates the acid sites of the substrate SMILES (or of\n"
-		"each SMILES line on stdin): delta pKa, equilibrium constant, fraction deprotonated,\n"
-		"verdict, by-product and the handling cautions of the base.\n\n"
-		"  --base NAME|SMILES  a base of the table (see --list-bases) or any base as SMILES\n"
-		"  --equiv X           equivalents of base per substrate (default 1)\n"
-		"  --atom N            only the acid site at input atom N (0-based)\n"
-		"  --list-bases        print the table of reagent bases\n"
-		"  --format text|json  output form (default text; json gives one object per line)\n"
-		"  --fragments DIR     load the model from DIR instead of the built-in one\n");
+	fprintf(
+	    f,
+	    "usage: pkad deprotonate --base NAME|SMILES [--equiv X] [--atom N]\n"
+	    "                        [--format text|json] [--fragments DIR] [SMILES]\n"
+	    "       pkad deprotonate --list-bases [--format text|json]\n\n"
+	    "Says whether a base deprotonates the acid sites of the substrate SMILES (or of\n"
+	    "each SMILES line on stdin): delta pKa, equilibrium constant, fraction deprotonated,\n"
+	    "verdict, by-product and the handling cautions of the base.\n\n"
+	    "  --base NAME|SMILES  a base of the table (see --list-bases) or any base as SMILES\n"
+	    "  --equiv X           equivalents of base per substrate (default 1)\n"
+	    "  --atom N            only the acid site at input atom N (0-based)\n"
+	    "  --list-bases        print the table of reagent bases\n"
+	    "  --format text|json  output form (default text; json gives one object per line)\n"
+	    "  --fragments DIR     load the model from DIR instead of the built-in one\n");
 }
 
 /* "pkad deprotonate: OPT 'ARG' PROBLEM" (arg NULL: "OPT PROBLEM"), usage, exit status 2. */
@@ -67,9 +68,15 @@ static int set_option(deprot_opts *o, int c, const char *arg)
 {
 	double x;
 	switch (c) {
-	case 'b': o->req.base = arg; return 0;
-	case 'l': o->list_bases = 1; return 0;
-	case 'F': o->fragments = arg; return 0;
+	case 'b':
+		o->req.base = arg;
+		return 0;
+	case 'l':
+		o->list_bases = 1;
+		return 0;
+	case 'F':
+		o->fragments = arg;
+		return 0;
 	case 'e':
 		if (parse_number(&o->req.equivalents, arg))
 			return usage_error("--equiv", arg, "is not a number");
@@ -84,8 +91,12 @@ static int set_option(deprot_opts *o, int c, const char *arg)
 			return usage_error("--format", arg, "is not text or json");
 		o->json = !strcmp(arg, "json");
 		return 0;
-	case 'h': usage(stdout); return 0;
-	default: usage(stderr); return 2;
+	case 'h':
+		usage(stdout);
+		return 0;
+	default:
+		usage(stderr);
+		return 2;
 	}
 }
 
@@ -144,15 +155,15 @@ static int list_bases(const pred_model *m, int json)
 
 static void print_site_text(const pred_deprot_site *s)
 {
-	printf("site: atom %d (%s, %s), pKa %.2f +- %.2f\n", s->atom, s->element, s->group,
-	       s->pka, s->uncertainty);
+	printf("site: atom %d (%s, %s), pKa %.2f +- %.2f\n", s->atom, s->element, s->group, s->pka,
+	       s->uncertainty);
 	printf("  delta pKa %+.2f, K = 10^%.2f, deprotonated at equilibrium: %.1f%%  -> %s\n",
 	       s->delta_pka, s->log_k, 100 * s->fraction, s->verdict);
 }
 
 static void print_list(const char *title, size_t n,
-		       const char *(*get)(const pred_deprotonation *, size_t),
-		       const pred_deprotonation *d)
+                       const char *(*get)(const pred_deprotonation *, size_t),
+                       const pred_deprotonation *d)
 {
 	if (!n)
 		return;
@@ -176,29 +187,30 @@ static void print_text(const pred_deprotonation *d)
 	print_list("cautions", pred_deprotonation_caution_count(d), pred_deprotonation_caution, d);
 }
 
-static void print_error(const deprot_opts *o, const char *input, const pred_error *e)
+static void print_error(const deprot_opts *o, const char *id, const char *input,
+                        const pred_error *e)
 {
-	fprintf(stderr, "pkad deprotonate: %s\n", e->msg);
+	fprintf(stderr, "pkad deprotonate: %s%s%s\n", id ? id : "", id ? ": " : "", e->msg);
 	if (!o->json)
 		return;
-	char *s = srv_json_line(srv_error_json(NULL, input, e));
+	char *s = srv_json_line(srv_error_json(id, input, e));
 	if (s)
 		printf("%s\n", s);
 	cJSON_free(s);
 }
 
-static int run_one(const deprot_opts *o, pred_worker *w, const char *smiles)
+static int run_one(const deprot_opts *o, pred_worker *w, const char *smiles, const char *id)
 {
 	pred_deprot_request req = o->req;
 	pred_deprotonation *d = NULL;
 	pred_error e = {0};
 	req.substrate = smiles;
 	if (pred_deprotonate(&d, w, &req, NULL, &e) < 0) {
-		print_error(o, smiles, &e);
+		print_error(o, id, smiles, &e);
 		return 1;
 	}
 	if (o->json) {
-		char *s = srv_json_line(srv_deprotonation_json(d, NULL, smiles));
+		char *s = srv_json_line(srv_deprotonation_json(d, id, smiles));
 		if (s)
 			printf("%s\n", s);
 		cJSON_free(s);
@@ -216,13 +228,19 @@ static int run_stdin(const deprot_opts *o, pred_worker *w)
 	size_t cap = 0;
 	int failed = 0, first = 1;
 	while (getline(&line, &cap, stdin) > 0) {
-		line[strcspn(line, " \t\r\n")] = '\0';
-		if (!*line)
+		char *smi = line + strspn(line, " \t"), *id = smi + strcspn(smi, " \t\r\n");
+		int has_id = *id == ' ' || *id == '\t';
+		*id = '\0';
+		if (has_id) {
+			id += 1 + strspn(id + 1, " \t");
+			id[strcspn(id, "\r\n")] = '\0';
+		}
+		if (!*smi)
 			continue;
 		if (!o->json && !first)
 			printf("\n");
 		first = 0;
-		failed |= run_one(o, w, line);
+		failed |= run_one(o, w, smi, has_id && *id ? id : NULL);
 	}
 	free(line);
 	return failed;
@@ -246,7 +264,7 @@ int cmd_deprotonate(int argc, char **argv)
 	if (o.list_bases)
 		st = list_bases(m, o.json);
 	else
-		st = o.smiles ? run_one(&o, w, o.smiles) : run_stdin(&o, w);
+		st = o.smiles ? run_one(&o, w, o.smiles, NULL) : run_stdin(&o, w);
 done:
 	pred_worker_free(w);
 	pred_model_free(m);

@@ -25,6 +25,8 @@ static void usage(FILE *f)
 		   "  --folds K            k of the cross-validated class rmse (default 5)\n"
 		   "  --tier-b-weight W    weight of rows graded tier B (default 0.25)\n"
 		   "  --no-falloff         keep the fall-off factor fixed\n"
+		   "  --trim X             leave out rows off by more than X at the start\n"
+		   "                       (default 3; 0 keeps every row)\n"
 		   "  -h, --help           this text\n");
 }
 
@@ -33,6 +35,7 @@ static int parse_opts(fopts *o, int argc, char **argv)
 	static const struct option lo[] = {
 		{"out", 1, 0, 'o'},	      {"fragments", 1, 0, 'F'}, {"folds", 1, 0, 'k'},
 		{"tier-b-weight", 1, 0, 'b'}, {"no-falloff", 0, 0, 'n'}, {"help", 0, 0, 'h'},
+		{"trim", 1, 0, 't'},
 		{0, 0, 0, 0}};
 	int c;
 	o->out = "fragments/params.tsv";
@@ -47,6 +50,7 @@ static int parse_opts(fopts *o, int argc, char **argv)
 		case 'k': o->fit.folds = atoi(optarg); break;
 		case 'b': o->tier_b_weight = strtod(optarg, NULL); break;
 		case 'n': o->fit.search_falloff = 0; break;
+		case 't': o->fit.trim = strtod(optarg, NULL); break;
 		case 'h': usage(stdout); return 1;
 		default: usage(stderr); return 2;
 		}
@@ -96,8 +100,9 @@ static void print_summary(const pred_fit_report *rep, const char *out)
 {
 	pred_fit_summary s;
 	pred_fit_report_summary(rep, &s);
-	printf("rows %zu, used %zu, unreadable %zu, no matching site %zu, parameters %zu\n",
-	       s.n_rows, s.n_used, s.n_unreadable, s.n_unmatched, s.n_params);
+	printf("rows %zu, used %zu, unreadable %zu, no matching site %zu, trimmed %zu, "
+	       "parameters %zu\n", s.n_rows, s.n_used, s.n_unreadable, s.n_unmatched,
+	       s.n_trimmed, s.n_params);
 	printf("weighted train rmse %.3f -> %.3f, cross-validated rmse %.3f, fall-off %.3f\n",
 	       s.rmse_before, s.rmse_after, s.rmse_cv, s.falloff);
 	printf("wrote %s\n", out);

@@ -66,7 +66,7 @@ static cJSON *base_json(const pred_deprotonation *d)
 }
 
 static cJSON *strings(size_t n, const char *(*get)(const pred_deprotonation *, size_t),
-		      const pred_deprotonation *d)
+                      const pred_deprotonation *d)
 {
 	cJSON *arr = cJSON_CreateArray();
 	for (size_t i = 0; arr && i < n; i++) {
@@ -97,10 +97,12 @@ cJSON *srv_deprotonation_json(const pred_deprotonation *d, const char *id, const
 	for (size_t i = 0; i < pred_deprotonation_site_count(d); i++)
 		cJSON_AddItemToArray(sites, site_json(pred_deprotonation_site(d, i)));
 	cJSON_AddItemToObject(o, "sites", sites);
-	cJSON_AddItemToObject(o, "warnings",
-			      strings(pred_deprotonation_warning_count(d), pred_deprotonation_warning, d));
-	cJSON_AddItemToObject(o, "cautions",
-			      strings(pred_deprotonation_caution_count(d), pred_deprotonation_caution, d));
+	cJSON_AddItemToObject(
+	    o, "warnings",
+	    strings(pred_deprotonation_warning_count(d), pred_deprotonation_warning, d));
+	cJSON_AddItemToObject(
+	    o, "cautions",
+	    strings(pred_deprotonation_caution_count(d), pred_deprotonation_caution, d));
 	return o;
 }
 

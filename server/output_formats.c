@@ -40,6 +40,9 @@ static void sb_puts(sbuf *b, const char *s)
 	sb_add(b, s, strlen(s));
 }
 
+/* checked like printf by gcc and clang (-Wformat=2 includes -Wformat-nonliteral) */
+static void sb_printf(sbuf *b, const char *fmt, ...) __attribute__((format(printf, 2, 3)));
+
 static void sb_printf(sbuf *b, const char *fmt, ...)
 {
 	char tmp[512];

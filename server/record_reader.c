@@ -32,6 +32,9 @@ struct srv_reader {
 	char io[64 * 1024];
 };
 
+/* checked like printf by gcc and clang (-Wformat=2 includes -Wformat-nonliteral) */
+static void set_err(pred_error *err, int code, const char *fmt, ...) __attribute__((format(printf, 3, 4)));
+
 static void set_err(pred_error *err, int code, const char *fmt, ...)
 {
 	va_list ap;

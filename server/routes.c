@@ -19,9 +19,8 @@ const srv_route srv_routes[] = {
 	{"GET", "/v1/version", srv_route_version, NULL, 0, "/v1/version"},
 	{"GET", "/v1/pka", srv_route_pka_get, NULL, 0, "/v1/pka"},
 	{"POST", "/v1/pka", srv_route_pka_post, &srv_pka_stream_ops, 0, "/v1/pka"},
-	/* Reserved: POST /v1/deprotonation, handler srv_route_deprotonation (declared in
-	 * routes.h), added here by route_deprotonation.c's author together with its operation
-	 * in openapi.json; server_routes checks that both exist. */
+	{"POST", "/v1/deprotonation", srv_route_deprotonation, NULL, 0, "/v1/deprotonation"},
+	{"GET", "/v1/bases", srv_route_bases, NULL, 0, "/v1/bases"},
 };
 const size_t srv_route_count = sizeof srv_routes / sizeof srv_routes[0];
 

@@ -103,7 +103,7 @@ int srv_route_version(srv_response *out, const srv_request *req, srv_service *sv
 int srv_route_pka_get(srv_response *out, const srv_request *req, srv_service *svc);
 int srv_route_pka_post(srv_response *out, const srv_request *req, srv_service *svc);
 extern const srv_stream_ops srv_pka_stream_ops;
-/* Reserved for route_deprotonation.c (base matching); its row goes in routes.c. */
 int srv_route_deprotonation(srv_response *out, const srv_request *req, srv_service *svc);
+int srv_route_bases(srv_response *out, const srv_request *req, srv_service *svc);
 
 #endif

@@ -7,20 +7,36 @@
 
 #include "validate.h"
 
-static void stat_text(FILE *f, const char *name, const srv_stat *s)
+enum { FIG_PLAIN, FIG_SIGNED, FIG_PERCENT };
+
+/* A figure as text, "-" when the set is empty (NAN). */
+static void fig(char *buf, size_t n, int style, double v)
 {
-	fprintf(f, "%-26s %5zu %5zu %6.2f %6.2f %5.0f%% %+6.2f %5.0f%% %5.0f%%\n", name,
-		s->n_rows, s->n_found, srv_stat_rmse(s), srv_stat_mae(s),
-		100 * srv_stat_within1(s), srv_stat_bias(s), 100 * srv_stat_coverage(s),
-		100 * srv_stat_calibration(s));
+	if (isnan(v))
+		snprintf(buf, n, "-");
+	else if (style == FIG_PERCENT)
+		snprintf(buf, n, "%.0f%%", 100 * v);
+	else if (style == FIG_SIGNED)
+		snprintf(buf, n, "%+.2f", v);
+	else
+		snprintf(buf, n, "%.2f", v);
 }
 
-static void stat_md(FILE *f, const char *name, const srv_stat *s)
+static void stat_row(FILE *f, const char *name, const srv_stat *s, int md)
 {
-	fprintf(f, "| %s | %zu | %zu | %.2f | %.2f | %.0f%% | %+.2f | %.0f%% | %.0f%% |\n", name,
-		s->n_rows, s->n_found, srv_stat_rmse(s), srv_stat_mae(s),
-		100 * srv_stat_within1(s), srv_stat_bias(s), 100 * srv_stat_coverage(s),
-		100 * srv_stat_calibration(s));
+	char a[6][24];
+	fig(a[0], 24, FIG_PLAIN, srv_stat_rmse(s));
+	fig(a[1], 24, FIG_PLAIN, srv_stat_mae(s));
+	fig(a[2], 24, FIG_PERCENT, srv_stat_within1(s));
+	fig(a[3], 24, FIG_SIGNED, srv_stat_bias(s));
+	fig(a[4], 24, FIG_PERCENT, srv_stat_coverage(s));
+	fig(a[5], 24, FIG_PERCENT, srv_stat_calibration(s));
+	if (md)
+		fprintf(f, "| %s | %zu | %zu | %s | %s | %s | %s | %s | %s |\n", name, s->n_rows,
+			s->n_found, a[0], a[1], a[2], a[3], a[4], a[5]);
+	else
+		fprintf(f, "%-26s %5zu %5zu %6s %6s %6s %6s %6s %6s\n", name, s->n_rows,
+			s->n_found, a[0], a[1], a[2], a[3], a[4], a[5]);
 }
 
 static const char *short_name(const srv_eval *e)
@@ -50,9 +66,9 @@ void srv_validation_print_text(FILE *f, const srv_validation *v, size_t worst)
 	size_t nw = 0, *w = srv_validation_worst(v, &nw), *o = class_order(&v->classes);
 	fprintf(f, "%-26s %5s %5s %6s %6s %6s %6s %6s %6s\n", "class", "rows", "found", "rmse",
 		"mae", "<=1", "bias", "cover", "calib");
-	stat_text(f, "all", &v->all);
+	stat_row(f, "all", &v->all, 0);
 	for (size_t i = 0; o && i < v->classes.n; i++)
-		stat_text(f, v->classes.names[o[i]], &v->classes.stats[o[i]]);
+		stat_row(f, v->classes.names[o[i]], &v->classes.stats[o[i]], 0);
 	fprintf(f, "\nworst rows (experimental, predicted, residual):\n");
 	for (size_t i = 0; w && i < nw && i < worst; i++) {
 		const srv_eval *e = &v->evals[w[i]];
@@ -94,9 +110,9 @@ void srv_validation_print_markdown(FILE *f, const srv_validation *v, size_t wors
 	size_t *o = class_order(&v->classes), n_nosite = 0;
 	fprintf(f, "## %s\n\n| class | rows | found | RMSE | MAE | within 1 | bias | coverage | "
 		   "calibration |\n|---|---|---|---|---|---|---|---|---|\n", title);
-	stat_md(f, "**all**", &v->all);
+	stat_row(f, "**all**", &v->all, 1);
 	for (size_t i = 0; o && i < v->classes.n; i++)
-		stat_md(f, v->classes.names[o[i]], &v->classes.stats[o[i]]);
+		stat_row(f, v->classes.names[o[i]], &v->classes.stats[o[i]], 1);
 	for (size_t i = 0; i < v->n_evals; i++)
 		n_nosite += v->evals[i].status == SRV_EVAL_NO_SITE;
 	fprintf(f, "\nRows without a site of the right kind: %zu; unreadable SMILES: %zu.\n",

@@ -283,6 +283,8 @@ typedef struct pred_fit_options {
 	int folds;           /* k of the k-fold cross-validation of the class rmse; default 5 */
 	double resid_sd;     /* expected residual sd scaling the ridge priors; default 0.5 */
 	double huber;        /* residual (pKa units) beyond which weights fall off; default 1.0 */
+	double trim;         /* rows off by more than this under the starting values are left
+				out (missing site class, tautomer, data error); 0 = keep; default 3 */
 	int search_falloff;  /* nonzero: outer 1-D search of the fall-off factor; default 1 */
 	double falloff_lo, falloff_hi; /* search interval; default 0.30 .. 0.60 */
 	double falloff_sd;   /* prior sd of the fall-off when the model gives none; default 0.1 */
@@ -301,10 +303,10 @@ int pred_fit(pred_fit_report **out, pred_model *m, const pred_fit_row *rows, siz
 	     const pred_fit_options *opt, pred_error *err);
 void pred_fit_report_free(pred_fit_report *rep);
 
-/** Figures of a fit: rows used, rows unreadable, rows without a matching site, the weighted
+/** Figures of a fit: rows used, unreadable, without a matching site, trimmed; the weighted
  *  training rmse before and after, the overall cross-validated rmse, the fall-off chosen. */
 typedef struct pred_fit_summary {
-	size_t n_rows, n_used, n_unreadable, n_unmatched, n_params;
+	size_t n_rows, n_used, n_unreadable, n_unmatched, n_trimmed, n_params;
 	double rmse_before, rmse_after, rmse_cv, falloff;
 } pred_fit_summary;
 void pred_fit_report_summary(const pred_fit_report *rep, pred_fit_summary *out);

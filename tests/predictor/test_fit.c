@@ -199,6 +199,97 @@ static void test_fit__params_file_keeps_rows_it_did_not_fit(void)
 	pred_model_free(m);
 }
 
+/* ---- the whole fit on the fixture tables (tests/predictor/fixture) --------------------- */
+
+static const char *const fit_smiles[] = {"CC(=O)O", "CCC(=O)O", "OC(=O)CCl", "CCCC(=O)O",
+					  "OC(=O)CCCl", "OC(=O)CC#N", "Oc1ccccc1", "Oc1ccc(Cl)cc1",
+					  "OC(=O)c1ccccc1", "NCCO"};
+enum { NF = sizeof fit_smiles / sizeof fit_smiles[0] };
+
+static pred_model *fixture_model(void)
+{
+	char dir[1024];
+	const char *src = getenv("PKAD_SOURCE_DIR");
+	pred_model *m = NULL;
+	pred_error e = {0, ""};
+	snprintf(dir, sizeof dir, "%s/tests/predictor/fixture", src ? src : "..");
+	if (pred_global_init(&e) || pred_model_load(&m, dir, &e))
+		fprintf(stderr, "fixture model: %s\n", e.msg);
+	return m;
+}
+
+/* The design of a site must reproduce its pKa exactly, or pkad fit would fit another model. */
+static void test_fit__design_reproduces_site_pka(void)
+{
+	pred_model *m = fixture_model();
+	pred_worker *w = NULL;
+	CHECK(m != NULL);
+	if (!m || pred_worker_new(&w, m, NULL))
+		return;
+	for (size_t i = 0; i < NF; i++) {
+		pred_result *r = NULL;
+		CHECK_INT_EQ(pred_predict(&r, w, fit_smiles[i], PRED_FMT_SMILES, NULL, NULL), 0);
+		for (size_t k = 0; r && k < pred_result_site_count(r); k++) {
+			pred_design d;
+			double v;
+			pred_result_design(r, k, &d);
+			v = d.constant;
+			for (size_t j = 0; j < d.n; j++)
+				v += d.feature[j] * m->params[d.param[j]].value;
+			CHECK_NEAR(v, pred_result_site(r, k)->pka, 1e-9);
+		}
+		pred_result_free(r);
+	}
+	pred_worker_free(w);
+	pred_model_free(m);
+}
+
+/* Rows made by the model with carboxylic.parent raised by 0.30: the fit must find the 0.30
+ * and leave the other parameters where they were. */
+static void test_fit__recovers_a_shifted_parent(void)
+{
+	pred_model *m = fixture_model();
+	pred_worker *w = NULL;
+	pred_fit_row rows[NF];
+	pred_fit_report *rep = NULL;
+	pred_fit_options opt;
+	pred_fit_summary sum;
+	double ys[NF], before[64];
+	int p = m ? model_param_find(m, "carboxylic.parent") : -1;
+	CHECK(p >= 0 && m->n_params <= 64);
+	if (p < 0 || m->n_params > 64 || pred_worker_new(&w, m, NULL))
+		return;
+	m->params[p].value += 0.30;
+	for (size_t i = 0; i < NF; i++) {
+		pred_result *r = NULL;
+		long k;
+		pred_predict(&r, w, fit_smiles[i], PRED_FMT_SMILES, NULL, NULL);
+		k = r ? pred_result_match(r, PRED_ACID, 1) : -1;
+		ys[i] = k >= 0 ? pred_result_site(r, (size_t)k)->pka : 0;
+		rows[i] = (pred_fit_row){fit_smiles[i], PRED_ACID, 1, ys[i], 1.0};
+		pred_result_free(r);
+	}
+	pred_worker_free(w);
+	m->params[p].value -= 0.30;
+	for (size_t j = 0; j < m->n_params; j++)
+		before[j] = m->params[j].value;
+	pred_fit_options_init(&opt);
+	opt.search_falloff = 0;
+	opt.resid_sd = 0.01; /* priors barely pull: the rows are exact */
+	opt.folds = 2;
+	CHECK_INT_EQ(pred_fit(&rep, m, rows, NF, &opt, NULL), 0);
+	CHECK_NEAR(m->params[p].value, before[p] + 0.30, 0.01);
+	for (size_t j = 0; j < m->n_params; j++)
+		if ((int)j != p)
+			CHECK_NEAR(m->params[j].value, before[j], 0.01);
+	pred_fit_report_summary(rep, &sum);
+	CHECK_INT_EQ(sum.n_rows, NF);
+	CHECK_INT_EQ(sum.n_unmatched + sum.n_unreadable + sum.n_used + sum.n_trimmed, NF);
+	CHECK(sum.rmse_after < 0.01 && sum.rmse_before > 0.1);
+	pred_fit_report_free(rep);
+	pred_model_free(m);
+}
+
 int main(void)
 {
 	RUN(test_fit__ranks_sites_by_acidity_and_basicity);
@@ -207,5 +298,7 @@ int main(void)
 	RUN(test_fit__recovers_hammett_benzoic_series);
 	RUN(test_fit__huber_weights_resist_an_outlier);
 	RUN(test_fit__params_file_keeps_rows_it_did_not_fit);
+	RUN(test_fit__design_reproduces_site_pka);
+	RUN(test_fit__recovers_a_shifted_parent);
 	return harness_done();
 }

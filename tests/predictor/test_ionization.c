@@ -6,6 +6,7 @@
 
 #include "harness.h"
 #include "ionization.h"
+#include "model_for_tests.h"
 
 #define LOG2 0.30103 /* statistical factor of two equivalent sites (common practice) */
 /* Tolerance for a value that depends on the fitted interaction term: about 1.5 x the median
@@ -30,8 +31,8 @@ static hand make(const char *kinds, const double *pka, const int *bonds)
 	h.r->n_sites = n;
 	h.atom = res_alloc(h.r, n * sizeof *h.atom + 1);
 	for (size_t i = 0; i < n; i++) {
-		h.r->sites[i] = (pred_site){.atom = (int)i, .pka = pka[i],
-					    .kind = kinds[i] == 'a' ? PRED_ACID : PRED_BASE};
+		h.r->sites[i] = (pred_site){
+		    .atom = (int)i, .pka = pka[i], .kind = kinds[i] == 'a' ? PRED_ACID : PRED_BASE};
 		h.atom[i] = (int)i;
 	}
 	if (bonds) {
@@ -74,8 +75,8 @@ static void test_ionization__monoprotic_follows_henderson_hasselbalch(void)
 		CHECK_NEAR(a.r->macro[0], 4.76, 1e-9);
 		CHECK_NEAR(b.r->macro[0], 5.25, 1e-9);
 		for (size_t i = 0; i < a.r->n_species; i++)
-			CHECK_NEAR(a.r->species[i].fraction,
-				   a.r->species[i].charge ? fa : 1 - fa, 1e-9);
+			CHECK_NEAR(a.r->species[i].fraction, a.r->species[i].charge ? fa : 1 - fa,
+			           1e-9);
 		CHECK(!a.r->has_pi && !b.r->has_pi);
 		pred_result_free(a.r);
 		pred_result_free(b.r);
@@ -95,7 +96,7 @@ static void check_symmetric(char kind, double pk_first, double pk_second, int bo
 	double lo = kind == 'a' ? pk_first : pk_second, hi = kind == 'a' ? pk_second : pk_first;
 	/* exact two-site theory: the macro gap is W + 2 log 2 (common practice) */
 	CHECK_NEAR(h.r->macro[1] - h.r->macro[0], ionization_pair_shift(NULL, bonds) + 2 * LOG2,
-		   1e-6);
+	           1e-6);
 	CHECK_NEAR(h.r->macro[0], lo, TOL_INTERACTION);
 	CHECK_NEAR(h.r->macro[1], hi, TOL_INTERACTION);
 	pred_result_free(h.r);
@@ -258,11 +259,93 @@ static void test_ionization__ph_out_of_range_is_rejected(void)
 	pred_result_free(h.r);
 }
 
+static void test_ionization__no_isoelectric_point_without_an_aqueous_base(void)
+{
+	/* succinic acid with its carbonyl oxygens as (very weak) bases, about -6 to -8 (common
+	 * practice: protonated carbonyls are superacids): not an ampholyte in water */
+	int d[16] = {0, 5, 1, 4, 5, 0, 4, 1, 1, 4, 0, 5, 4, 1, 5, 0};
+	hand h = make("aabb", (double[]){4.51, 4.51, -7.0, -7.0}, d);
+	CHECK_INT_EQ(fill(&h, 7.4), 0);
+	CHECK(!h.r->has_pi);
+	pred_result_free(h.r);
+}
+
 static void test_ionization__pair_shift_decays_with_distance(void)
 {
 	CHECK_NEAR(ionization_pair_shift(NULL, -1), 0, 0);
 	CHECK(ionization_pair_shift(NULL, 2) > ionization_pair_shift(NULL, 3));
 	CHECK(ionization_pair_shift(NULL, 8) < 0.5);
+}
+
+/* ---- through the engine: species written as SMILES with formal charges ---------------- */
+
+static pred_model *engine_model;
+static pred_worker *engine_worker;
+
+static pred_result *predict(const char *smiles, double ph)
+{
+	pred_options o;
+	pred_error err = {0};
+	pred_result *r = NULL;
+	pred_options_init(&o);
+	o.ph = ph;
+	if (pred_predict(&r, engine_worker, smiles, PRED_FMT_SMILES, &o, &err))
+		fprintf(stderr, "%s: %s\n", smiles, err.msg);
+	return r;
+}
+
+static void test_ionization__glycine_is_a_zwitterion_at_7_4(void)
+{
+	/* common practice: alpha-amino acids are zwitterions near neutral pH */
+	pred_result *r = predict("NCC(=O)O", 7.4);
+	CHECK(r != NULL);
+	if (!r)
+		return;
+	const pred_species *top = pred_result_species(r, 0);
+	CHECK_INT_EQ(top->charge, 0);
+	CHECK(strstr(top->smiles, "[NH3+]") && strstr(top->smiles, "[O-]"));
+	double pi;
+	CHECK_INT_EQ(pred_result_isoelectric(r, &pi), 0);
+	/* between the carboxyl and the ammonium steps (carbonyl O base values lie below 0) */
+	double lo = 14, hi = 0;
+	for (size_t i = 0; i < pred_result_macro_count(r); i++) {
+		double v = pred_result_macro_pka(r, i);
+		lo = v >= 0 && v < lo ? v : lo;
+		hi = v <= 14 && v > hi ? v : hi;
+	}
+	CHECK(pi > lo && pi < hi);
+	CHECK_NEAR(pi, 6.06, TOL_INTERACTION); /* glycine pI 6.06 (CRC Handbook, from memory) */
+	pred_result_free(r);
+}
+
+static void test_ionization__ethylenediamine_species_carry_charges(void)
+{
+	pred_result *r = predict("NCCN", 2.0); /* well below both values: the dication */
+	CHECK(r && pred_result_species(r, 0)->charge == 2);
+	CHECK(r && strstr(pred_result_species(r, 0)->smiles, "[NH3+]CC[NH3+]"));
+	CHECK(r && pred_result_charge(r) > 1.99);
+	pred_result_free(r);
+	r = predict("OC(=O)CCC(=O)O", 12.0); /* succinate dianion */
+	CHECK(r && pred_result_species(r, 0)->charge == -2);
+	pred_result_free(r);
+}
+
+static void test_ionization__many_sites_through_the_engine_are_approximate(void)
+{
+	/* a chain with 14 carboxylic acids (demo structure) */
+	char smi[512] = "";
+	for (int i = 0; i < 14; i++)
+		strcat(smi, "C(C(=O)O)");
+	pred_result *r = predict(smi, 7.4);
+	CHECK(r && pred_result_ionization_is_approximate(r));
+	int said = 0;
+	for (size_t i = 0; r && i < pred_result_warning_count(r); i++)
+		said |= strstr(pred_result_warning(r, i), "approximate") != NULL;
+	CHECK(said);
+	CHECK(r && pred_result_macro_count(r) == pred_result_site_count(r));
+	CHECK(r && pred_result_site_count(r) >= 14);
+	CHECK(r && pred_result_species_count(r) >= 1 && pred_result_species(r, 0)->smiles);
+	pred_result_free(r);
 }
 
 int main(void)
@@ -278,5 +361,17 @@ int main(void)
 	RUN(test_ionization__more_than_twelve_sites_approximate_and_say_so);
 	RUN(test_ionization__ph_out_of_range_is_rejected);
 	RUN(test_ionization__pair_shift_decays_with_distance);
+	RUN(test_ionization__no_isoelectric_point_without_an_aqueous_base);
+	pred_error err = {0};
+	engine_model = model_for_tests();
+	if (!engine_model || pred_worker_new(&engine_worker, engine_model, &err)) {
+		fprintf(stderr, "cannot load the model: %s\n", err.msg);
+		return 1;
+	}
+	RUN(test_ionization__glycine_is_a_zwitterion_at_7_4);
+	RUN(test_ionization__ethylenediamine_species_carry_charges);
+	RUN(test_ionization__many_sites_through_the_engine_are_approximate);
+	pred_worker_free(engine_worker);
+	pred_model_free(engine_model);
 	return harness_done();
 }

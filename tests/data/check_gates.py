@@ -1,0 +1,102 @@
+#!/usr/bin/python3
+# SPDX-License-Identifier: MIT
+# check_gates.py: the accuracy gates of issue 3, on the test split (never used for fitting).
+# Runs `pkad validate --format json` on the core set (data/handbook-*.csv) and on the broad
+# set (data/iupac-pka.csv, tier A), prints every figure, and fails when one gate is missed.
+import json
+import os
+import subprocess
+import sys
+
+SRC = os.environ.get("PKAD_SOURCE_DIR", os.path.join(os.path.dirname(__file__), "..", ".."))
+BIN = os.environ.get("PKAD_BIN", "pkad")
+CORE = ["handbook-acids.csv", "handbook-bases.csv", "handbook-additions.csv"]
+BROAD = ["iupac-pka.csv"]
+
+# Gates (issue 3). A class gate applies when the class has >= 10 test rows with a site.
+CORE_RMSE, CORE_COVERAGE = 0.6, 0.95
+BROAD_RMSE, BROAD_COVERAGE = 1.2, 0.85
+CALIBRATION = (0.55, 0.80)
+CLASS_RMSE = {
+    "carboxylic acids": (["carboxylic_acid", "benzoic_acid"], 0.4),
+    "phenols": (["phenol"], 0.4),
+    "anilines": (["aniline"], 0.5),
+    "pyridines": (["pyridine"], 0.6),
+    "aliphatic amines": (["primary_amine", "secondary_amine", "tertiary_amine"], 0.6),
+    "alcohols": (["alcohol"], 0.8),
+}
+MIN_CLASS_ROWS = 10
+
+
+def validate(files, extra):
+    cmd = [BIN, "validate", "--split", "test", "--format", "json", "--worst", "0"] + extra
+    cmd += [os.path.join(SRC, "data", f) for f in files]
+    p = subprocess.run(cmd, capture_output=True, text=True)
+    if p.returncode != 0:
+        print("pkad validate failed (exit %d): %s" % (p.returncode, p.stderr.strip()))
+        sys.exit(1)
+    return json.loads(p.stdout)
+
+
+class Gates:
+    def __init__(self):
+        self.failed = []
+
+    def at_most(self, what, got, limit):
+        self.report(what, got, "<=", limit, got is not None and got <= limit)
+
+    def at_least(self, what, got, limit):
+        self.report(what, got, ">=", limit, got is not None and got >= limit)
+
+    def report(self, what, got, op, limit, ok):
+        shown = "n/a" if got is None else "%.3f" % got
+        print("%-4s %-44s %s (gate %s %.2f)" % ("ok" if ok else "FAIL", what, shown, op, limit))
+        if not ok:
+            self.failed.append(what)
+
+
+def pooled_rmse(classes, names):
+    n = sum(classes[c]["found"] for c in names if c in classes)
+    if n == 0:
+        return 0, None
+    sse = sum(classes[c]["found"] * classes[c]["rmse"] ** 2 for c in names
+              if c in classes and classes[c]["found"])
+    return n, (sse / n) ** 0.5
+
+
+def check_set(g, label, res, rmse, coverage):
+    o = res["overall"]
+    print("%s: %d rows, %d with a site, %d unreadable" % (label, o["rows"], o["found"],
+                                                         res["unreadable"]))
+    g.at_most(label + " overall rmse", o["rmse"], rmse)
+    g.at_least(label + " coverage", o["coverage"], coverage)
+    g.at_least(label + " calibration (share within 1 unc.)", o["calibration"], CALIBRATION[0])
+    g.at_most(label + " calibration (share within 1 unc.)", o["calibration"], CALIBRATION[1])
+
+
+def main():
+    g = Gates()
+    core = validate(CORE, [])
+    check_set(g, "core", core, CORE_RMSE, CORE_COVERAGE)
+    for what, (names, limit) in CLASS_RMSE.items():
+        n, r = pooled_rmse(core["classes"], names)
+        if n >= MIN_CLASS_ROWS:
+            g.at_most("core %s rmse (%d rows)" % (what, n), r, limit)
+        else:
+            print("info %-44s %s (%d test rows: reported, not gated)" %
+                  ("core %s rmse" % what, "n/a" if r is None else "%.3f" % r, n))
+    for name, s in sorted(core["classes"].items()):
+        print("     class %-30s n %4d rmse %s coverage %.2f" %
+              (name, s["found"], "n/a" if s["rmse"] is None else "%.2f" % s["rmse"],
+               s["coverage"] or 0))
+    broad = validate(BROAD, ["--tier", "A"])
+    check_set(g, "broad tier A", broad, BROAD_RMSE, BROAD_COVERAGE)
+    if g.failed:
+        print("%d gate(s) missed: %s" % (len(g.failed), "; ".join(g.failed)))
+        return 1
+    print("all gates met")
+    return 0
+
+
+if __name__ == "__main__":
+    sys.exit(main())
