@@ -14,7 +14,7 @@
 void pred_fit_options_init(pred_fit_options *opt)
 {
 	opt->folds = 5;
-	opt->resid_sd = 0.5;
+	opt->resid_sd = 0;
 	opt->huber = 1.0;
 	opt->trim = 3.0;
 	opt->search_falloff = 1;
@@ -137,6 +137,7 @@ typedef struct fit_state {
 	fit_cols cols;
 	double *theta;
 	double obj, falloff;
+	double loss_now; /* penalised loss of the model's values as they stood at collection */
 	size_t n_trimmed;
 } fit_state;
 
@@ -191,8 +192,45 @@ static double objective(const pred_model *m, const fit_state *s, const pred_fit_
 	return J;
 }
 
+/* The penalised loss of the model's values as they stand, from a fresh collection: the
+ * designs are exact there, so this also sees what the linear step cannot (a site order
+ * that flips and changes a stepwise term). All rows count; Huber bounds the outliers. */
+static double loss_now(const pred_model *m, const fit_data *d, double falloff,
+		       const pred_fit_options *opt)
+{
+	double J = 0, sd2 = opt->resid_sd * opt->resid_sd;
+	for (size_t i = 0; i < d->n; i++)
+		J += d->w[i] * fit_huber(value_now(m, d, i) - d->y[i], opt->huber) / sd2;
+	for (size_t p = 0; p < m->n_params; p++) {
+		const pred_param *q = &m->params[p];
+		if ((int)p != m->p_falloff && q->prior_sd > 0)
+			J += 0.5 * ((q->value - q->prior) / q->prior_sd) * ((q->value - q->prior) / q->prior_sd);
+	}
+	if (m->p_falloff >= 0 && opt->search_falloff) {
+		const pred_param *q = &m->params[m->p_falloff];
+		double sd = q->prior_sd > 0 ? q->prior_sd : opt->falloff_sd;
+		J += 0.5 * ((falloff - q->prior) / sd) * ((falloff - q->prior) / sd);
+	}
+	return J;
+}
+
+/* resid_sd <= 0: the residual sd of the untrimmed rows at the start (at least 0.2), so that the
+ * ridge weighs the priors against the data as the data's own scatter says. */
+static void estimate_resid_sd(pred_fit_options *opt, const pred_model *m, const fit_data *d)
+{
+	double sw = 0, s = 0;
+	for (size_t i = 0; i < d->n; i++) {
+		double r = value_now(m, d, i) - d->y[i];
+		if (opt->trim > 0 && fabs(r) > opt->trim)
+			continue;
+		s += d->w[i] * r * r;
+		sw += d->w[i];
+	}
+	opt->resid_sd = sw > 0 && sqrt(s / sw) > 0.2 ? sqrt(s / sw) : 0.2;
+}
+
 static int evaluate(fit_state *s, pred_model *m, double falloff, const pred_fit_row *rows,
-		    size_t n, const pred_fit_options *opt, pred_error *err)
+		    size_t n, pred_fit_options *opt, pred_error *err)
 {
 	int rc;
 	state_clear(s);
@@ -201,6 +239,9 @@ static int evaluate(fit_state *s, pred_model *m, double falloff, const pred_fit_
 		m->params[m->p_falloff].value = falloff;
 	if ((rc = collect(&s->d, m, rows, n, opt->folds, err)))
 		return rc;
+	if (opt->resid_sd <= 0)
+		estimate_resid_sd(opt, m, &s->d);
+	s->loss_now = loss_now(m, &s->d, falloff, opt);
 	s->n_trimmed = trim_rows(&s->d, m, opt->trim);
 	if (s->d.n == 0)
 		return set_err(err, PRED_EINVAL, "no training row has a matching site");
@@ -216,7 +257,7 @@ static int evaluate(fit_state *s, pred_model *m, double falloff, const pred_fit_
 
 /* Golden-section search of the fall-off over [lo, hi]; leaves the best state in *best. */
 static int search_falloff(fit_state *best, pred_model *m, const pred_fit_row *rows, size_t n,
-			  const pred_fit_options *opt, pred_error *err)
+			  pred_fit_options *opt, pred_error *err)
 {
 	const double g = 0.6180339887498949;
 	double a = opt->falloff_lo, b = opt->falloff_hi, x1, x2, f1, f2;
@@ -287,15 +328,12 @@ static double rmse_current(const pred_model *m, const fit_data *d)
 	return sw > 0 ? sqrt(s / sw) : NAN;
 }
 
-/* Stores theta in the model, then per parameter the rows that used it and the cv rmse of
- * those rows (for a site class's parent: the class's cross-validated rmse). */
+/* Marks the fitted columns, then stores per parameter the rows that used it and the cv rmse
+ * of those rows (for a site class's parent: the class's cross-validated rmse). */
 static void store(pred_model *m, pred_fit_report *rep, const fit_state *s, const double *cv)
 {
-	for (size_t j = 0; j < s->cols.n; j++) {
-		int p = s->cols.param_of[j];
-		m->params[p].value = s->theta[j];
-		rep->fitted[p] = 1;
-	}
+	for (size_t j = 0; j < s->cols.n; j++)
+		rep->fitted[s->cols.param_of[j]] = 1;
 	for (size_t p = 0; p < m->n_params; p++) {
 		double sse = 0;
 		int n = 0;
@@ -330,17 +368,62 @@ static double rms_kept(const double *v, const fit_data *d)
 	return n ? sqrt(s / (double)n) : NAN;
 }
 
+static double *save_values(const pred_model *m)
+{
+	double *v = malloc((m->n_params + 1) * sizeof *v);
+	for (size_t p = 0; v && p < m->n_params; p++)
+		v[p] = m->params[p].value;
+	return v;
+}
+
+static void load_values(pred_model *m, const double *v)
+{
+	for (size_t p = 0; p < m->n_params; p++)
+		m->params[p].value = v[p];
+}
+
+/* Relinearise: put the solved values in force, collect again (exact designs, stepwise terms
+ * recomputed) and keep them only while the penalised loss falls; then solve again from
+ * there. Leaves the best values in m and their collection in *s. */
+static int refine(fit_state *s, pred_model *m, double *best, double best_loss,
+		  const pred_fit_row *rows, size_t n, pred_fit_options *opt, pred_error *err)
+{
+	double best_f = m->p_falloff >= 0 ? m->params[m->p_falloff].value : 0, f;
+	int rc = 0;
+	for (int round = 0; round < 4 && !rc; round++) {
+		f = s->falloff;
+		for (size_t j = 0; j < s->cols.n; j++)
+			m->params[s->cols.param_of[j]].value = s->theta[j];
+		if ((rc = evaluate(s, m, f, rows, n, opt, err)))
+			break;
+		if (!(s->loss_now < best_loss - 1e-6 * fabs(best_loss)))
+			break;
+		best_loss = s->loss_now;
+		best_f = f;
+		for (size_t p = 0; p < m->n_params; p++)
+			best[p] = m->params[p].value;
+	}
+	if (rc)
+		return rc;
+	load_values(m, best);
+	return evaluate(s, m, best_f, rows, n, opt, err);
+}
+
 static int fit_run(pred_fit_report *rep, pred_model *m, const pred_fit_row *rows, size_t n,
-		   const pred_fit_options *opt, pred_error *err)
+		   pred_fit_options *opt, pred_error *err)
 {
 	fit_state s = {0};
-	double *cv = NULL, f0 = m->p_falloff >= 0 ? m->params[m->p_falloff].value : 0;
+	double *cv = NULL, *start = save_values(m), *best = save_values(m), start_loss;
 	int search = opt->search_falloff && m->p_falloff >= 0;
-	int rc = evaluate(&s, m, f0, rows, n, opt, err);
+	int rc = start && best ? evaluate(&s, m, m->p_falloff >= 0 ? start[m->p_falloff] : 0,
+					  rows, n, opt, err)
+			       : set_err(err, PRED_ENOMEM, "out of memory");
 	if (rc)
 		goto done;
 	rep->sum.rmse_before = rmse_current(m, &s.d);
-	if (search && (rc = search_falloff(&s, m, rows, n, opt, err)))
+	start_loss = s.loss_now;
+	if ((search && (rc = search_falloff(&s, m, rows, n, opt, err))) ||
+	    (rc = refine(&s, m, best, start_loss, rows, n, opt, err)))
 		goto done;
 	if (!(cv = calloc(s.d.n + 1, sizeof *cv))) {
 		rc = set_err(err, PRED_ENOMEM, "out of memory");
@@ -350,7 +433,6 @@ static int fit_run(pred_fit_report *rep, pred_model *m, const pred_fit_row *rows
 		goto done;
 	store(m, rep, &s, cv);
 	if (search) {
-		m->params[m->p_falloff].value = s.falloff;
 		m->params[m->p_falloff].n = (int)(s.d.n - s.n_trimmed);
 		if (m->params[m->p_falloff].prior_sd <= 0)
 			m->params[m->p_falloff].prior_sd = opt->falloff_sd;
@@ -358,10 +440,13 @@ static int fit_run(pred_fit_report *rep, pred_model *m, const pred_fit_row *rows
 	}
 	rep->sum = (pred_fit_summary){n, s.d.n - s.n_trimmed, s.d.n_unreadable, s.d.n_unmatched,
 				      s.n_trimmed, s.cols.n + (size_t)search, rep->sum.rmse_before,
-				      rmse_current(m, &s.d), rms_kept(cv, &s.d), s.falloff};
+				      rmse_current(m, &s.d), rms_kept(cv, &s.d), s.falloff,
+				      opt->resid_sd};
 done:
-	if (rc && m->p_falloff >= 0)
-		m->params[m->p_falloff].value = f0;
+	if (rc && start)
+		load_values(m, start);
+	free(start);
+	free(best);
 	free(cv);
 	state_clear(&s);
 	return rc;
@@ -370,7 +455,7 @@ done:
 int pred_fit(pred_fit_report **out, pred_model *m, const pred_fit_row *rows, size_t n_rows,
 	     const pred_fit_options *opt, pred_error *err)
 {
-	pred_fit_options def;
+	pred_fit_options def, o;
 	pred_fit_report *rep = calloc(1, sizeof *rep);
 	int rc;
 	*out = NULL;
@@ -383,7 +468,8 @@ int pred_fit(pred_fit_report **out, pred_model *m, const pred_fit_row *rows, siz
 		return set_err(err, PRED_ENOMEM, "out of memory");
 	}
 	rep->n_params = m->n_params;
-	if ((rc = fit_run(rep, m, rows, n_rows, opt, err))) {
+	o = *opt;
+	if ((rc = fit_run(rep, m, rows, n_rows, &o, err))) {
 		pred_fit_report_free(rep);
 		return rc;
 	}

@@ -97,9 +97,9 @@ static void write_header(FILE *f, const pred_fit_report *rep, const char *data_v
 	fprintf(f, "# fit: %zu rows offered, %zu used, %zu unreadable, %zu without a matching "
 		   "site, %zu trimmed (far off at the start); %zu parameters\n", s->n_rows,
 		s->n_used, s->n_unreadable, s->n_unmatched, s->n_trimmed, s->n_params);
-	fprintf(f, "# weighted train rmse %.3f before, %.3f after; %s cross-validated rmse %.3f;"
-		   " fall-off %.3f\n", s->rmse_before, s->rmse_after, "k-fold", s->rmse_cv,
-		s->falloff);
+	fprintf(f, "# weighted train rmse %.3f before, %.3f after; k-fold cross-validated rmse "
+		   "%.3f; fall-off %.3f; priors weighed against residual sd %.3f\n",
+		s->rmse_before, s->rmse_after, s->rmse_cv, s->falloff, s->resid_sd);
 }
 
 int pred_fit_write_params(const pred_model *m, const pred_fit_report *rep, const char *path,

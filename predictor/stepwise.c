@@ -59,15 +59,22 @@ static double statistical(const step_state *st, size_t i)
  * hydroxylamine (H3N+OH -> H2NOH, not H3N+O-) titrate as drawn. */
 #define ZWITTERION_MARGIN 1.0
 
-static int makes_zwitterion(const step_state *st, const eng_mol *e, const pred_model *m,
-			    size_t i)
+/* Penalty of the step in log units: 0 for ordinary steps, ZWITTERION_MARGIN for one making
+ * a zwitterion, and far more when the two charges would sit one or two bonds apart
+ * (H3N+-O-, C=NH+-O-: minor tautomers whose stability the distance model cannot judge). */
+static double zwitterion_penalty(const step_state *st, const eng_mol *e, const pred_model *m,
+				 size_t i)
 {
 	if (m->sites[e->sites[i].row].kind != PRED_ACID)
 		return 0;
-	for (size_t j = 0; j < e->n_sites; j++)
-		if (st->charge[j] > 0)
-			return 1;
-	return 0;
+	double pen = 0;
+	for (size_t j = 0; j < e->n_sites; j++) {
+		if (st->charge[j] <= 0)
+			continue;
+		int d = e->dist[i * e->nat + (size_t)e->sites[j].atom];
+		pen = fmax(pen, d >= 0 && d <= 2 ? 100.0 : ZWITTERION_MARGIN);
+	}
+	return pen;
 }
 
 static void step_once(term_list *tls, step_state *st, const eng_mol *e, const pred_model *m)
@@ -79,7 +86,7 @@ static void step_once(term_list *tls, step_state *st, const eng_mol *e, const pr
 			continue;
 		double stat = statistical(st, i), inter = interaction(st, e, m, i);
 		double eff = st->micro[i] + stat + inter;
-		double rank = eff + (makes_zwitterion(st, e, m, i) ? ZWITTERION_MARGIN : 0);
+		double rank = eff + zwitterion_penalty(st, e, m, i);
 		if (rank < best_rank) {
 			best_rank = rank;
 			best = i;

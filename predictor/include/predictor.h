@@ -281,7 +281,8 @@ typedef struct pred_fit_row {
 /** Options of pred_fit; pred_fit_options_init fills the defaults. */
 typedef struct pred_fit_options {
 	int folds;           /* k of the k-fold cross-validation of the class rmse; default 5 */
-	double resid_sd;     /* expected residual sd scaling the ridge priors; default 0.5 */
+	double resid_sd;     /* residual sd scaling the ridge priors; 0 (default): the rms
+				residual of the untrimmed rows at the start */
 	double huber;        /* residual (pKa units) beyond which weights fall off; default 1.0 */
 	double trim;         /* rows off by more than this under the starting values are left
 				out (missing site class, tautomer, data error); 0 = keep; default 3 */
@@ -304,10 +305,13 @@ int pred_fit(pred_fit_report **out, pred_model *m, const pred_fit_row *rows, siz
 void pred_fit_report_free(pred_fit_report *rep);
 
 /** Figures of a fit: rows used, unreadable, without a matching site, trimmed; the weighted
- *  training rmse before and after, the overall cross-validated rmse, the fall-off chosen. */
+ *  training rmse before and after, the overall cross-validated rmse, the fall-off chosen.
+ *  The fit relinearises (re-predicts with the new values) and keeps a step only when the
+ *  exact penalised loss falls, so rmse_after is exact, not the linear estimate. */
 typedef struct pred_fit_summary {
 	size_t n_rows, n_used, n_unreadable, n_unmatched, n_trimmed, n_params;
 	double rmse_before, rmse_after, rmse_cv, falloff;
+	double resid_sd; /* the residual sd the priors were weighed against */
 } pred_fit_summary;
 void pred_fit_report_summary(const pred_fit_report *rep, pred_fit_summary *out);
 

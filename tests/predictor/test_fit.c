@@ -100,6 +100,7 @@ static void check_against_closed_form(double rho_prior, double rho_sd)
 	fit_cols cols;
 	double theta[2], want[2];
 	pred_fit_options_init(&opt);
+	opt.resid_sd = 0.5;
 	opt.huber = 1e9; /* plain least squares: the closed form has no reweighting */
 	toy_data(&d, 0);
 	CHECK_INT_EQ(fit_cols_build(&cols, m, &d, -1), 0);
@@ -117,6 +118,22 @@ static void test_fit__solver_equals_closed_form_ridge(void)
 {
 	check_against_closed_form(1.0, 100.0);
 	check_against_closed_form(2.0, 0.05); /* a tight prior pulls rho towards 2 */
+	{
+		pred_model *m = toy_model(2.0, 0.05);
+		pred_fit_options opt;
+		fit_data d;
+		fit_cols cols;
+		double theta[2];
+		pred_fit_options_init(&opt);
+		opt.resid_sd = 0.5;
+		toy_data(&d, 0);
+		fit_cols_build(&cols, m, &d, -1);
+		fit_solve(theta, m, &d, &cols, NULL, &opt, NULL);
+		CHECK(theta[1] > 1.8); /* the data alone say 1.0 */
+		fit_cols_clear(&cols);
+		fit_data_clear(&d);
+		pred_model_free(m);
+	}
 }
 
 static void test_fit__recovers_hammett_benzoic_series(void)
@@ -127,6 +144,7 @@ static void test_fit__recovers_hammett_benzoic_series(void)
 	fit_cols cols;
 	double theta[2];
 	pred_fit_options_init(&opt);
+	opt.resid_sd = 0.5;
 	toy_data(&d, 0);
 	fit_cols_build(&cols, m, &d, -1);
 	CHECK_INT_EQ(fit_solve(theta, m, &d, &cols, NULL, &opt, NULL), 0);
@@ -145,6 +163,7 @@ static void test_fit__huber_weights_resist_an_outlier(void)
 	fit_cols cols;
 	double robust[2], plain[2];
 	pred_fit_options_init(&opt);
+	opt.resid_sd = 0.5;
 	toy_data(&d, 5.0); /* benzoic acid again, 5 units off: a data error */
 	fit_cols_build(&cols, m, &d, -1);
 	fit_solve(robust, m, &d, &cols, NULL, &opt, NULL);
