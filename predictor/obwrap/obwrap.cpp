@@ -16,6 +16,7 @@
 #include <openbabel/ring.h>
 #include <openbabel/stereo/cistrans.h>
 
+#include <algorithm>
 #include <cctype>
 #include <clocale>
 #include <cstdarg>
@@ -840,9 +841,22 @@ extern "C" int obw_pattern_match(int **out, const obw_pattern *p, obw_mol *m)
 {
 	*out = nullptr;
 	try {
-		std::vector<std::vector<int>> ml;
-		if (!p->pat.Match(m->mol, ml, OBSmartsPattern::AllUnique) || ml.empty())
+		/* unique by (first atom, atom set): a symmetric pattern such as the two OH of
+		 * [OX2H1]C(=O)[OX2H1] gives one match per first atom, where unique-by-set
+		 * matching would give one match in all */
+		std::vector<std::vector<int>> all, ml;
+		if (!p->pat.Match(m->mol, all, OBSmartsPattern::All) || all.empty())
 			return 0;
+		std::vector<std::vector<int>> seen;
+		for (const std::vector<int> &mt : all) {
+			std::vector<int> key(mt.begin() + 1, mt.end());
+			std::sort(key.begin(), key.end());
+			key.insert(key.begin(), mt[0]);
+			if (std::find(seen.begin(), seen.end(), key) != seen.end())
+				continue;
+			seen.push_back(key);
+			ml.push_back(mt);
+		}
 		size_t na = p->pat.NumAtoms();
 		int *v = static_cast<int *>(malloc(ml.size() * na * sizeof(int)));
 		if (!v)
