@@ -194,6 +194,15 @@ static size_t drop_minor_oxygen_bases(eng_mol *e, term_list *tls, const pred_mod
 	return dropped;
 }
 
+static int rows_shared(const eng_mol *e)
+{
+	for (size_t i = 0; i < e->n_sites; i++)
+		for (size_t j = 0; j < i; j++)
+			if (e->sites[i].row == e->sites[j].row)
+				return 1;
+	return 0;
+}
+
 static int build_sites(pred_result *r, eng_mol *e, pred_worker *w, pred_error *err)
 {
 	size_t n = e->n_sites;
@@ -204,7 +213,11 @@ static int build_sites(pred_result *r, eng_mol *e, pred_worker *w, pred_error *e
 	r->design = res_alloc(r, (n + 1) * sizeof *r->design);
 	r->micro = res_alloc(r, (n + 1) * sizeof *r->micro);
 	int rc = tls && micro && sym && r->sites && r->design && r->micro ? 0 : PRED_ENOMEM;
-	if (!rc)
+	/* symmetry perception is costly: only sites of one row can be equivalent */
+	e->shared_rows = rows_shared(e);
+	for (size_t a = 0; a < e->nat && sym; a++)
+		sym[a] = (int)a;
+	if (!rc && e->shared_rows)
 		rc = obw_mol_symmetry(e->mol, sym, e->nat, NULL, 0);
 	for (size_t i = 0; i < n && !rc; i++)
 		eng_site_effects(&tls[i], e, w, &e->sites[i]);
@@ -262,7 +275,7 @@ static int finish(pred_result *r, eng_mol *e, pred_worker *w, const pred_options
 		return PRED_ENOMEM;
 	for (size_t i = 0; i < e->n_sites; i++)
 		site_atoms[i] = e->sites[i].atom;
-	ion_input in = {e->mol, w->ctx, site_atoms, e->dist, e->nat};
+	ion_input in = {e->mol, w->ctx, site_atoms, e->dist, e->nat, e->shared_rows};
 	int rc = ionization_fill(r, w->m, &in, opt, err);
 	free(site_atoms);
 	if (!rc && r->n_sites == 0)
