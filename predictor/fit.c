@@ -21,6 +21,7 @@ void pred_fit_options_init(pred_fit_options *opt)
 	opt->falloff_lo = 0.30;
 	opt->falloff_hi = 0.60;
 	opt->falloff_sd = 0.1;
+	opt->match_steps = 0;
 }
 
 static int set_err(pred_error *err, int code, const char *msg)
@@ -75,9 +76,11 @@ static int grow(fit_data *d, size_t rows, size_t nnz)
 }
 
 /* Appends the design of the matched site of one row; 1 when the row has no such site. */
-static int add_row(fit_data *d, const pred_result *r, const pred_fit_row *row, int folds)
+static int add_row(fit_data *d, const pred_result *r, const pred_fit_row *row, int folds,
+		   int steps)
 {
-	long s = pred_result_match(r, row->kind, row->pka_index);
+	long s = steps ? pred_result_match_steps(r, row->kind, row->pka_index)
+		       : pred_result_match(r, row->kind, row->pka_index);
 	pred_design des;
 	size_t base = d->n ? d->off[d->n] : 0;
 	if (s < 0)
@@ -100,8 +103,8 @@ static int add_row(fit_data *d, const pred_result *r, const pred_fit_row *row, i
 }
 
 /* Predicts every row with the model's current values and collects the designs. */
-static int collect(fit_data *d, pred_model *m, const pred_fit_row *rows, size_t n, int folds,
-		   pred_error *err)
+static int collect(fit_data *d, pred_model *m, const pred_fit_row *rows, size_t n,
+		   const pred_fit_options *opt, pred_error *err)
 {
 	pred_worker *w = NULL;
 	pred_options po;
@@ -117,7 +120,7 @@ static int collect(fit_data *d, pred_model *m, const pred_fit_row *rows, size_t 
 			d->n_unreadable++;
 			continue;
 		}
-		rc = add_row(d, r, &rows[i], folds);
+		rc = add_row(d, r, &rows[i], opt->folds, opt->match_steps);
 		d->n_unmatched += rc == 1;
 		rc = rc == 1 ? 0 : rc;
 		pred_result_free(r);
@@ -237,7 +240,7 @@ static int evaluate(fit_state *s, pred_model *m, double falloff, const pred_fit_
 	s->falloff = falloff;
 	if (m->p_falloff >= 0)
 		m->params[m->p_falloff].value = falloff;
-	if ((rc = collect(&s->d, m, rows, n, opt->folds, err)))
+	if ((rc = collect(&s->d, m, rows, n, opt, err)))
 		return rc;
 	if (opt->resid_sd <= 0)
 		estimate_resid_sd(opt, m, &s->d);

@@ -25,6 +25,7 @@ static void usage(FILE *f)
 		   "  --folds K            k of the cross-validated class rmse (default 5)\n"
 		   "  --tier-b-weight W    weight of rows graded tier B (default 0.25)\n"
 		   "  --no-falloff         keep the fall-off factor fixed\n"
+		   "  --match kind|steps   how a row finds its site (see pkad validate --help)\n"
 		   "  --trim X             leave out rows off by more than X at the start\n"
 		   "                       (default 3; 0 keeps every row)\n"
 		   "  -h, --help           this text\n");
@@ -35,7 +36,7 @@ static int parse_opts(fopts *o, int argc, char **argv)
 	static const struct option lo[] = {
 		{"out", 1, 0, 'o'},	      {"fragments", 1, 0, 'F'}, {"folds", 1, 0, 'k'},
 		{"tier-b-weight", 1, 0, 'b'}, {"no-falloff", 0, 0, 'n'}, {"help", 0, 0, 'h'},
-		{"trim", 1, 0, 't'},
+		{"trim", 1, 0, 't'}, {"match", 1, 0, 'm'},
 		{0, 0, 0, 0}};
 	int c;
 	o->out = "fragments/params.tsv";
@@ -51,6 +52,11 @@ static int parse_opts(fopts *o, int argc, char **argv)
 		case 'b': o->tier_b_weight = strtod(optarg, NULL); break;
 		case 'n': o->fit.search_falloff = 0; break;
 		case 't': o->fit.trim = strtod(optarg, NULL); break;
+		case 'm':
+			if (strcmp(optarg, "kind") && strcmp(optarg, "steps"))
+				return fprintf(stderr, "pkad fit: --match must be kind or steps\n"), 2;
+			o->fit.match_steps = !strcmp(optarg, "steps");
+			break;
 		case 'h': usage(stdout); return 1;
 		default: usage(stderr); return 2;
 		}

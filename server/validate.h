@@ -121,10 +121,11 @@ typedef struct srv_validation {
 	size_t n_unreadable;
 } srv_validation;
 
-/** Predicts the rows (all of them; filter before) and scores them. Returns 0 or
- *  PRED_ENOMEM; unreadable SMILES are recorded, not errors. */
+/** Predicts the rows (all of them; filter before) and scores them; match_steps selects
+ *  pred_result_match_steps over pred_result_match. Returns 0 or PRED_ENOMEM; unreadable
+ *  SMILES are recorded, not errors. */
 int srv_validation_add(srv_validation *v, pred_worker *w, const srv_ref *rows, size_t n,
-		       const char *file);
+		       const char *file, int match_steps);
 void srv_validation_clear(srv_validation *v);
 /** Indices of the scored rows sorted by |residual|, largest first; malloc'd (*n of them). */
 size_t *srv_validation_worst(const srv_validation *v, size_t *n);

@@ -72,7 +72,8 @@ static void class_name(srv_eval *e, const pred_site *s)
 	snprintf(e->cls, sizeof e->cls, "%s", c);
 }
 
-static int score_row(srv_validation *v, srv_eval *e, pred_worker *w, pred_options *po)
+static int score_row(srv_validation *v, srv_eval *e, pred_worker *w, pred_options *po,
+		     int steps)
 {
 	pred_result *r = NULL;
 	pred_error err = {0, ""};
@@ -89,7 +90,8 @@ static int score_row(srv_validation *v, srv_eval *e, pred_worker *w, pred_option
 		return (cs = srv_class_stat(&v->classes, e->cls)) ? (srv_stat_add_missing(cs), 0)
 								  : PRED_ENOMEM;
 	}
-	k = pred_result_match(r, e->ref->kind, e->ref->pka_index);
+	k = steps ? pred_result_match_steps(r, e->ref->kind, e->ref->pka_index)
+		  : pred_result_match(r, e->ref->kind, e->ref->pka_index);
 	s = k >= 0 ? pred_result_site(r, (size_t)k) : NULL;
 	class_name(e, s);
 	diagnose(e, r, s);
@@ -113,7 +115,7 @@ static int score_row(srv_validation *v, srv_eval *e, pred_worker *w, pred_option
 }
 
 int srv_validation_add(srv_validation *v, pred_worker *w, const srv_ref *rows, size_t n,
-		       const char *file)
+		       const char *file, int match_steps)
 {
 	pred_options po;
 	pred_options_init(&po);
@@ -124,7 +126,7 @@ int srv_validation_add(srv_validation *v, pred_worker *w, const srv_ref *rows, s
 			return PRED_ENOMEM;
 		e->ref = &rows[i];
 		e->file = file;
-		if ((rc = score_row(v, e, w, &po)))
+		if ((rc = score_row(v, e, w, &po, match_steps)))
 			return rc;
 	}
 	return 0;

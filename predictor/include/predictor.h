@@ -269,6 +269,12 @@ const char *pred_deprotonation_warning(const pred_deprotonation *d, size_t i);
  *  index is 1-based. Returns -1 when the result has fewer sites of that kind. Thread-safe. */
 long pred_result_match(const pred_result *r, pred_kind kind, int index);
 
+/** Like pred_result_match, but ranks the sites of that kind together with the sites of the
+ *  other kind whose pKa lies in 0..14, as the compilations number the steps of one molecule
+ *  (a base book's second step of an amino acid is its COOH; its first step of a
+ *  3-hydroxypyridine is the OH). Returns -1 when there are too few. Thread-safe. */
+long pred_result_match_steps(const pred_result *r, pred_kind kind, int index);
+
 /** One experimental value used for fitting; strings are borrowed from the caller. */
 typedef struct pred_fit_row {
 	const char *smiles;
@@ -289,6 +295,7 @@ typedef struct pred_fit_options {
 	int search_falloff;  /* nonzero: outer 1-D search of the fall-off factor; default 1 */
 	double falloff_lo, falloff_hi; /* search interval; default 0.30 .. 0.60 */
 	double falloff_sd;   /* prior sd of the fall-off when the model gives none; default 0.1 */
+	int match_steps;     /* nonzero: rows are matched with pred_result_match_steps */
 } pred_fit_options;
 
 void pred_fit_options_init(pred_fit_options *opt);
