@@ -21,7 +21,6 @@ void pred_fit_options_init(pred_fit_options *opt)
 	opt->falloff_lo = 0.30;
 	opt->falloff_hi = 0.60;
 	opt->falloff_sd = 0.1;
-	opt->match_steps = 0;
 }
 
 static int set_err(pred_error *err, int code, const char *msg)
@@ -76,10 +75,9 @@ static int grow(fit_data *d, size_t rows, size_t nnz)
 }
 
 /* Appends the design of the matched site of one row; 1 when the row has no such site. */
-static int add_row(fit_data *d, const pred_result *r, const pred_fit_row *row, int folds,
-		   int steps)
+static int add_row(fit_data *d, const pred_result *r, const pred_fit_row *row, int folds)
 {
-	long s = steps ? pred_result_match_steps(r, row->kind, row->pka_index)
+	long s = row->match_steps ? pred_result_match_steps(r, row->kind, row->pka_index)
 		       : pred_result_match(r, row->kind, row->pka_index);
 	pred_design des;
 	size_t base = d->n ? d->off[d->n] : 0;
@@ -120,7 +118,7 @@ static int collect(fit_data *d, pred_model *m, const pred_fit_row *rows, size_t 
 			d->n_unreadable++;
 			continue;
 		}
-		rc = add_row(d, r, &rows[i], opt->folds, opt->match_steps);
+		rc = add_row(d, r, &rows[i], opt->folds);
 		d->n_unmatched += rc == 1;
 		rc = rc == 1 ? 0 : rc;
 		pred_result_free(r);

@@ -52,6 +52,15 @@ typedef struct srv_ref {
  *  *out is malloc'd (free()), *n its length. */
 int srv_ref_read(srv_ref **out, size_t *n, const srv_csv *c, pred_error *err);
 
+/** Match modes: SRV_MATCH_AUTO uses steps for files without a site_class column
+ *  (compilation rows: kind is the book, pka_index numbers the molecule's measured steps)
+ *  and kind for files with one (kind is the site's kind). */
+enum { SRV_MATCH_AUTO = 0, SRV_MATCH_KIND = 1, SRV_MATCH_STEPS = 2 };
+/** Mode of "auto", "kind" or "steps"; -1 for anything else. */
+int srv_match_mode(const char *name);
+/** Whether rows of this file are matched with pred_result_match_steps under `mode`. */
+int srv_match_steps(int mode, const srv_csv *c);
+
 /* ---- statistics ------------------------------------------------------------------------ */
 
 /** Running figures of one set of rows. */

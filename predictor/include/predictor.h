@@ -282,6 +282,7 @@ typedef struct pred_fit_row {
 	int pka_index;  /* 1-based, see pred_result_match */
 	double pka;
 	double weight;  /* relative weight, > 0 (e.g. lower for less reliable grades) */
+	int match_steps; /* nonzero: the site is found with pred_result_match_steps */
 } pred_fit_row;
 
 /** Options of pred_fit; pred_fit_options_init fills the defaults. */
@@ -295,7 +296,6 @@ typedef struct pred_fit_options {
 	int search_falloff;  /* nonzero: outer 1-D search of the fall-off factor; default 1 */
 	double falloff_lo, falloff_hi; /* search interval; default 0.30 .. 0.60 */
 	double falloff_sd;   /* prior sd of the fall-off when the model gives none; default 0.1 */
-	int match_steps;     /* nonzero: rows are matched with pred_result_match_steps */
 } pred_fit_options;
 
 void pred_fit_options_init(pred_fit_options *opt);

@@ -303,7 +303,7 @@ static void test_fit__recovers_a_shifted_parent(void)
 		pred_predict(&r, w, fit_smiles[i], PRED_FMT_SMILES, NULL, NULL);
 		k = r ? pred_result_match(r, PRED_ACID, 1) : -1;
 		ys[i] = k >= 0 ? pred_result_site(r, (size_t)k)->pka : 0;
-		rows[i] = (pred_fit_row){fit_smiles[i], PRED_ACID, 1, ys[i], 1.0};
+		rows[i] = (pred_fit_row){fit_smiles[i], PRED_ACID, 1, ys[i], 1.0, 0};
 		pred_result_free(r);
 	}
 	pred_worker_free(w);
