@@ -11,15 +11,36 @@
 #define STEP_LO 0.0
 #define STEP_HI 14.0
 
-static int candidate(const pred_site *s, pred_kind kind, int steps)
+static int in_window(const pred_site *s)
 {
-	return s->kind == kind || (steps && s->pka >= STEP_LO && s->pka <= STEP_HI);
+	return s->pka >= STEP_LO && s->pka <= STEP_HI;
 }
 
-/* Sort key: acid rows count from the lowest pKa up, base rows from the highest down. */
-static double key(const pred_site *s, pred_kind kind)
+/* Tier of a site for a row of this kind: 0 ranks first, 1 after, 2 never. With steps, the
+ * sites of either kind in the water window come first (they are the steps a measurement
+ * reports), then the sites of the row's kind outside it (a weak base measured by an acidity
+ * function, a strong acid), so an unmeasurable sulfonic acid does not take an acid1. */
+static int tier(const pred_site *s, pred_kind kind, int steps)
 {
-	return kind == PRED_ACID ? s->pka : -s->pka;
+	if (!steps)
+		return s->kind == kind ? 0 : 2;
+	if (in_window(s))
+		return 0;
+	return s->kind == kind ? 1 : 2;
+}
+
+/* Sort key: tier first; acid rows then count from the lowest pKa up, base rows from the
+ * highest down; ties go by site order. */
+static int before(const pred_site *sites, size_t a, size_t b, pred_kind kind, int steps)
+{
+	int ta = tier(&sites[a], kind, steps), tb = tier(&sites[b], kind, steps);
+	double va = kind == PRED_ACID ? sites[a].pka : -sites[a].pka;
+	double vb = kind == PRED_ACID ? sites[b].pka : -sites[b].pka;
+	if (ta != tb)
+		return ta < tb;
+	if (va != vb)
+		return va < vb;
+	return a < b;
 }
 
 static long rank_where(const pred_site *sites, size_t n, pred_kind kind, int index, int steps)
@@ -31,16 +52,11 @@ static long rank_where(const pred_site *sites, size_t n, pred_kind kind, int ind
 	for (int rank = 1; rank <= index; rank++) {
 		long pick = -1;
 		for (size_t i = 0; i < n; i++) {
-			double v = key(&sites[i], kind);
-			if (!candidate(&sites[i], kind, steps))
+			if (tier(&sites[i], kind, steps) == 2)
 				continue;
-			if (best >= 0) {
-				double bv = key(&sites[best], kind);
-				/* strictly after the previous pick in (value, index) order */
-				if (v < bv || (v == bv && (long)i <= best))
-					continue;
-			}
-			if (pick < 0 || v < key(&sites[pick], kind))
+			if (best >= 0 && !before(sites, (size_t)best, i, kind, steps))
+				continue; /* not strictly after the previous pick */
+			if (pick < 0 || before(sites, i, (size_t)pick, kind, steps))
 				pick = (long)i;
 		}
 		if (pick < 0)

@@ -269,10 +269,11 @@ const char *pred_deprotonation_warning(const pred_deprotonation *d, size_t i);
  *  index is 1-based. Returns -1 when the result has fewer sites of that kind. Thread-safe. */
 long pred_result_match(const pred_result *r, pred_kind kind, int index);
 
-/** Like pred_result_match, but ranks the sites of that kind together with the sites of the
- *  other kind whose pKa lies in 0..14, as the compilations number the steps of one molecule
- *  (a base book's second step of an amino acid is its COOH; its first step of a
- *  3-hydroxypyridine is the OH). Returns -1 when there are too few. Thread-safe. */
+/** Like pred_result_match, but numbers the steps of the molecule as the compilations do:
+ *  the sites of either kind with pKa in 0..14 ranked together first (a base book's second
+ *  step of an amino acid is its COOH, its first step of a 3-hydroxypyridine the OH), then
+ *  the sites of the row's kind outside that window (an amide measured by an acidity
+ *  function). Returns -1 when there are too few. Thread-safe. */
 long pred_result_match_steps(const pred_result *r, pred_kind kind, int index);
 
 /** One experimental value used for fitting; strings are borrowed from the caller. */
