@@ -33,7 +33,7 @@ static void usage(FILE *f)
 		   "  --format text|json|markdown   report format (default text)\n"
 		   "  --worst N                list the N worst rows (default 20)\n"
 		   "  --match auto|kind|steps  kind: the i-th site of the row's kind; steps: ranked\n"
-		   "                           with the other kind's sites of pKa 0..14; auto\n"
+		   "                           with the other kind's sites of pKa 1..13; auto\n"
 		   "                           (default): steps for files without site_class\n"
 		   "  --plot FILE.svg          write a parity plot\n"
 		   "  --title TEXT             title of the plot and the Markdown section\n"

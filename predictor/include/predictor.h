@@ -270,7 +270,8 @@ const char *pred_deprotonation_warning(const pred_deprotonation *d, size_t i);
 long pred_result_match(const pred_result *r, pred_kind kind, int index);
 
 /** Like pred_result_match, but numbers the steps of the molecule as the compilations do:
- *  the sites of either kind with pKa in 0..14 ranked together first (a base book's second
+ *  the sites of the row's kind with pKa in 0..14 and of the other kind in 1..13 ranked
+ *  together first (a base book's second
  *  step of an amino acid is its COOH, its first step of a 3-hydroxypyridine the OH), then
  *  the sites of the row's kind outside that window (an amide measured by an acidity
  *  function). Returns -1 when there are too few. Thread-safe. */
