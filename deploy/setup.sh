@@ -2,7 +2,7 @@
 # Installs the Debian packages pkad needs to build, run and test; does nothing when all are present.
 set -euo pipefail
 build_pkgs="build-essential cmake pkg-config libopenbabel-dev openbabel libmicrohttpd-dev libcjson-dev liblapacke-dev"
-test_pkgs="rdkit-data python3-rdkit python3-openbabel default-jre-headless libopsin-java curl wrk valgrind nodejs npm"
+test_pkgs="rdkit-data python3-rdkit python3-openbabel default-jre-headless libopsin-java curl wrk valgrind nodejs npm clang"
 want="$build_pkgs"
 [ "${1:-}" = "--test" ] && want="$build_pkgs $test_pkgs"
 missing=""

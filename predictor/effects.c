@@ -235,9 +235,14 @@ static void ring_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 	}
 }
 
+/* Atoms the walk passes through without a term: plain carbon, and aromatic ring atoms no
+ * group claims (a ring nitrogen of a heteroaromatic parent is part of that parent; remote
+ * heteroaryl rings count through the aryl rows of substituents.tsv). */
 static int plain_carbon(const eng_mol *e, int x)
 {
 	const obw_atom *a = &e->atoms[x];
+	if (a->aromatic && a->charge == 0)
+		return 1;
 	return a->element == 6 && a->charge == 0 && !has_hetero_multiple_bond(e, x);
 }
 

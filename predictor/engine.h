@@ -40,6 +40,7 @@ typedef struct eng_mol {
 	eng_site *sites;
 	size_t n_sites;
 	int *dist;      /* n_sites x nat: bonds from each site's ionizable atom */
+	int shared_rows; /* two sites come from one row: they may be equivalent */
 	int *corr_start; /* CSR: first atoms matched by correction k in corr_atom[..] */
 	int *corr_atom;
 } eng_mol;

@@ -41,31 +41,27 @@ static int site_on(const ion_work *w, size_t s, size_t i, const unsigned char *i
 static char *species_smiles(pred_result *r, const ion_work *w, const ion_input *in, size_t s,
                             const unsigned char *is_extra, pred_error *err)
 {
-	obw_mol *mol = NULL;
+	int *atom = malloc((w->n + 1) * sizeof *atom), *dq = malloc((w->n + 1) * sizeof *dq);
 	char *smi = NULL, *out = NULL, *msg = err ? err->msg : NULL;
-	size_t msgn = err ? sizeof err->msg : 0;
-	const obw_atom *at; /* of the input molecule: the clone's arrays change with each edit */
-	int rc = obw_mol_clone(&mol, in->mol);
-	obw_mol_atoms(in->mol, &at);
+	size_t msgn = err ? sizeof err->msg : 0, n = 0;
+	int rc = atom && dq ? 0 : PRED_ENOMEM;
 	for (size_t i = 0; i < w->n && !rc; i++) {
 		if (!site_on(w, s, i, is_extra))
 			continue;
-		int a = in->site_mol_atom[i], d = w->q_on[i];
 		/* acid: lose H+ (charge -1, one H fewer); base: gain H+ (charge +1, one H more) */
-		rc = obw_mol_set_atom(mol, a, at[a].charge + d, at[a].hcount + d);
+		atom[n] = in->site_mol_atom[i];
+		dq[n++] = w->q_on[i];
 	}
-	if (rc && msg)
-		snprintf(msg, msgn, "cannot build a microspecies (code %d)", rc);
-	if (!rc)
-		rc = obw_mol_refresh(mol, msg, msgn);
-	if (!rc && !(smi = obw_mol_canonical(mol, in->ctx, msg, msgn)))
+	if (!rc && !(smi = obw_mol_smiles_edited(in->mol, in->ctx, atom, dq, n,
+						 in->canonical_species, msg, msgn)))
 		rc = PRED_EINTERNAL;
 	if (!rc && !(out = res_strdup(r, smi)))
 		rc = PRED_ENOMEM;
 	if (rc && err)
 		err->code = rc;
 	free(smi);
-	obw_mol_free(mol);
+	free(atom);
+	free(dq);
 	return out;
 }
 
@@ -159,6 +155,11 @@ int ion_species_fill(pred_result *r, const ion_work *w, const ion_input *in, pre
 	for (size_t x = 0; x < w->nx; x++)
 		is_extra[w->ex[x]] = 1;
 	size_t nc = pick_states(w, cand);
+	/* Without equivalent sites no two microstates are the same species, so only those that
+	 * will be reported need a SMILES (the list is most abundant first). */
+	if (in && in->mol && !in->canonical_species)
+		while (nc > 1 && cand[nc - 1].fraction < ION_REPORT_MIN)
+			nc--;
 	for (size_t i = 0; i < nc; i++) {
 		cand[i].charge = state_charge(w, cand[i].state, is_extra);
 		if (!in || !in->mol) {

@@ -143,6 +143,20 @@ static int warn_approximate(pred_result *r, const ion_work *w, double ph)
 	    w->n, ION_EXACT_MAX, ION_EXACT_MAX, ph, w->nx);
 }
 
+/* Sites left out of the exact cluster whose micro pKa lies far outside the pH range of
+ * interest (carbonyl oxygen bases, alkane-like acids) keep one state over -2..16: the
+ * mean-field treatment of them is exact to within 1e-4 of a charge, so it is no
+ * approximation worth a warning. */
+static int has_active_extra(const ion_work *w)
+{
+	for (size_t x = 0; x < w->nx; x++) {
+		double pka = w->pka[w->ex[x]];
+		if (pka > -6 && pka < 20)
+			return 1;
+	}
+	return 0;
+}
+
 int ionization_fill(pred_result *r, const pred_model *m, const ion_input *in,
                     const pred_options *opt, pred_error *err)
 {
@@ -152,7 +166,7 @@ int ionization_fill(pred_result *r, const pred_model *m, const ion_input *in,
 		return rc;
 	if (ion_work_init(&w, r, m, in, opt->ph))
 		return set_err(err, PRED_ENOMEM, "out of memory in the ionization model");
-	if (w.nx && warn_approximate(r, &w, opt->ph))
+	if (w.nx && has_active_extra(&w) && warn_approximate(r, &w, opt->ph))
 		return set_err(err, PRED_ENOMEM, "out of memory in the ionization model");
 	r->macro = res_alloc(r, (w.n + 1) * sizeof *r->macro);
 	if (!r->macro)

@@ -76,10 +76,16 @@ static char *fragment_smiles(const obw_mol *m, obw_ctx *c, const int *comp, size
 	return s;
 }
 
+/* Removed fragments larger than this are named by size: canonical SMILES of a big graph
+ * costs Open Babel seconds, and the line would not hold it anyway. */
+enum { NAMED_FRAGMENT_MAX = 40 };
+
 /* "removed 2 fragments: [Na+], O" into rep; the list is cut to fit the line. */
 static void warn_removed(norm_report *rep, const obw_mol *m, obw_ctx *c, const int *comp,
-			 size_t nat, size_t ncomp, int kept)
+			 const frag_size *fs, size_t ncomp, int kept)
 {
+	const obw_atom *a;
+	size_t nat = obw_mol_atoms(m, &a);
 	char line[NORM_WARN_LEN];
 	int first = 1;
 	int len = snprintf(line, sizeof line, "removed %zu fragment%s:", ncomp - 1,
@@ -87,9 +93,12 @@ static void warn_removed(norm_report *rep, const obw_mol *m, obw_ctx *c, const i
 	for (size_t k = 0; k < ncomp; k++) {
 		if ((int)k == kept || len < 0 || (size_t)len >= sizeof line)
 			continue;
-		char *s = fragment_smiles(m, c, comp, nat, (int)k);
+		char *s = NULL, size[48];
+		if (fs[k].heavy <= NAMED_FRAGMENT_MAX)
+			s = fragment_smiles(m, c, comp, nat, (int)k);
+		snprintf(size, sizeof size, "(%d heavy atoms)", fs[k].heavy);
 		len += snprintf(line + len, sizeof line - (size_t)len, "%s %s", first ? "" : ",",
-				s ? s : "?");
+				s ? s : size);
 		first = 0;
 		free(s);
 	}
@@ -116,7 +125,7 @@ static int strip_fragments(obw_mol *m, obw_ctx *c, norm_report *rep, pred_error 
 		fs[comp[i]].carbon |= a[i].element == 6;
 	}
 	int kept = pick_fragment(fs, ncomp);
-	warn_removed(rep, m, c, comp, nat, ncomp, kept);
+	warn_removed(rep, m, c, comp, fs, ncomp, kept);
 	for (size_t i = 0; i < nat; i++)
 		keep[i] = comp[i] == kept;
 	char msg[256] = "";
@@ -131,17 +140,16 @@ done:
 
 /* ---- charges -------------------------------------------------------------------------- */
 
-/* Whether atom i has a positively and/or a negatively charged neighbour. */
-static void neighbour_charges(const obw_bond *b, size_t nb, const obw_atom *a, int i,
-			      int *has_pos, int *has_neg)
+/* Marks each atom that has a positively (pos) or negatively (neg) charged neighbour; one
+ * pass over the bonds. */
+static void neighbour_charges(const obw_bond *b, size_t nb, const obw_atom *a,
+			      unsigned char *pos, unsigned char *neg)
 {
-	*has_pos = *has_neg = 0;
 	for (size_t k = 0; k < nb; k++) {
-		int o = b[k].a == i ? b[k].b : b[k].b == i ? b[k].a : -1;
-		if (o < 0)
-			continue;
-		*has_pos |= a[o].charge > 0;
-		*has_neg |= a[o].charge < 0;
+		pos[b[k].a] |= a[b[k].b].charge > 0;
+		neg[b[k].a] |= a[b[k].b].charge < 0;
+		pos[b[k].b] |= a[b[k].a].charge > 0;
+		neg[b[k].b] |= a[b[k].a].charge < 0;
 	}
 }
 
@@ -173,20 +181,32 @@ static int neutralising_h(const obw_atom *a, int i, int has_pos, int has_neg)
 	return 0;
 }
 
-static int neutralise(obw_mol *m, norm_report *rep, pred_error *err)
+/* dh[i]: the H change that neutralises atom i. Returns 0 or PRED_ENOMEM. */
+static int plan_neutralisation(int *dh, const obw_mol *m)
 {
 	const obw_atom *a;
 	const obw_bond *b;
 	size_t nat = obw_mol_atoms(m, &a), nb = obw_mol_bonds(m, &b);
-	int *dh = calloc(nat ? nat : 1, sizeof *dh), changed = 0;
+	unsigned char *pos = calloc(nat ? nat : 1, 2);
+	if (!pos)
+		return PRED_ENOMEM;
+	unsigned char *neg = pos + nat;
+	neighbour_charges(b, nb, a, pos, neg);
+	for (size_t i = 0; i < nat; i++)
+		dh[i] = neutralising_h(a, (int)i, pos[i], neg[i]);
+	free(pos);
+	return 0;
+}
+
+static int neutralise(obw_mol *m, norm_report *rep, pred_error *err)
+{
+	const obw_atom *a;
+	size_t nat = obw_mol_atoms(m, &a);
+	int *dh = calloc(nat ? nat : 1, sizeof *dh), changed = 0, len = 0, rc = 0;
 	char line[NORM_WARN_LEN] = "";
-	int len = 0, rc = 0;
-	if (!dh)
+	if (!dh || plan_neutralisation(dh, m)) {
+		free(dh);
 		return fail(err, PRED_ENOMEM, "out of memory");
-	for (size_t i = 0; i < nat; i++) {
-		int pos, neg;
-		neighbour_charges(b, nb, a, (int)i, &pos, &neg);
-		dh[i] = neutralising_h(a, (int)i, pos, neg);
 	}
 	for (size_t i = 0; i < nat && !rc; i++) {
 		if (!dh[i])

@@ -167,7 +167,43 @@ static int copy_site(pred_result *r, size_t i, const term_list *tl, const eng_mo
 	return 0;
 }
 
-static int build_sites(pred_result *r, const eng_mol *e, pred_worker *w, pred_error *err)
+/* Oxygen bases below pKa 0 (carbonyl, ether, hydroxyl oxygen) are listed only when the
+ * molecule has no stronger base: next to a real base their protonation would be a second
+ * step far below pH 0 that no user asks for. Returns the number of sites dropped. */
+static size_t drop_minor_oxygen_bases(eng_mol *e, term_list *tls, const pred_model *m)
+{
+	int strong = 0;
+	for (size_t i = 0; i < e->n_sites; i++)
+		strong |= m->sites[e->sites[i].row].kind == PRED_BASE && terms_sum(&tls[i]) >= 0;
+	if (!strong)
+		return 0;
+	size_t kept = 0, dropped = 0;
+	for (size_t i = 0; i < e->n_sites; i++) {
+		const eng_site *s = &e->sites[i];
+		if (m->sites[s->row].kind == PRED_BASE && e->atoms[s->atom].element == 8 &&
+		    terms_sum(&tls[i]) < 0) {
+			free(s->match);
+			dropped++;
+			continue;
+		}
+		e->sites[kept] = e->sites[i];
+		memmove(e->dist + kept * e->nat, e->dist + i * e->nat, e->nat * sizeof *e->dist);
+		tls[kept++] = tls[i];
+	}
+	e->n_sites = kept;
+	return dropped;
+}
+
+static int rows_shared(const eng_mol *e)
+{
+	for (size_t i = 0; i < e->n_sites; i++)
+		for (size_t j = 0; j < i; j++)
+			if (e->sites[i].row == e->sites[j].row)
+				return 1;
+	return 0;
+}
+
+static int build_sites(pred_result *r, eng_mol *e, pred_worker *w, pred_error *err)
 {
 	size_t n = e->n_sites;
 	term_list *tls = calloc(n + 1, sizeof *tls);
@@ -177,12 +213,20 @@ static int build_sites(pred_result *r, const eng_mol *e, pred_worker *w, pred_er
 	r->design = res_alloc(r, (n + 1) * sizeof *r->design);
 	r->micro = res_alloc(r, (n + 1) * sizeof *r->micro);
 	int rc = tls && micro && sym && r->sites && r->design && r->micro ? 0 : PRED_ENOMEM;
-	if (!rc)
+	/* symmetry perception is costly: only sites of one row can be equivalent */
+	e->shared_rows = rows_shared(e);
+	for (size_t a = 0; a < e->nat && sym; a++)
+		sym[a] = (int)a;
+	if (!rc && e->shared_rows)
 		rc = obw_mol_symmetry(e->mol, sym, e->nat, NULL, 0);
-	for (size_t i = 0; i < n && !rc; i++) {
+	for (size_t i = 0; i < n && !rc; i++)
 		eng_site_effects(&tls[i], e, w, &e->sites[i]);
+	if (!rc && drop_minor_oxygen_bases(e, tls, w->m))
+		rc = res_note(r, "oxygen bases below pKa 0 not listed: the molecule has a "
+				 "stronger base");
+	n = e->n_sites;
+	for (size_t i = 0; i < n && !rc; i++)
 		micro[i] = terms_sum(&tls[i]);
-	}
 	if (!rc)
 		rc = eng_stepwise(tls, e, w->m, sym);
 	for (size_t i = 0; i < n && !rc; i++)
@@ -231,7 +275,7 @@ static int finish(pred_result *r, eng_mol *e, pred_worker *w, const pred_options
 		return PRED_ENOMEM;
 	for (size_t i = 0; i < e->n_sites; i++)
 		site_atoms[i] = e->sites[i].atom;
-	ion_input in = {e->mol, w->ctx, site_atoms, e->dist, e->nat};
+	ion_input in = {e->mol, w->ctx, site_atoms, e->dist, e->nat, e->shared_rows};
 	int rc = ionization_fill(r, w->m, &in, opt, err);
 	free(site_atoms);
 	if (!rc && r->n_sites == 0)
@@ -257,6 +301,30 @@ static void sort_sites(pred_result *r)
 			r->micro[j - 1] = r->micro[j];
 			r->micro[j] = tm;
 		}
+}
+
+/* A base whose stepwise value lies below pKa -1 while another base of the molecule is above
+ * 1 is a second protonation of a polybase (a diazine dication, say) far below the aqueous
+ * range: it stays in the microstate model but is not listed as a site. */
+static void drop_deep_second_protonations(pred_result *r)
+{
+	int strong = 0;
+	for (size_t i = 0; i < r->n_sites; i++)
+		strong |= r->sites[i].kind == PRED_BASE && r->sites[i].pka >= 1;
+	if (!strong)
+		return;
+	size_t kept = 0;
+	for (size_t i = 0; i < r->n_sites; i++) {
+		if (r->sites[i].kind == PRED_BASE && r->sites[i].pka < -1)
+			continue;
+		r->sites[kept] = r->sites[i];
+		r->design[kept] = r->design[i];
+		r->micro[kept++] = r->micro[i];
+	}
+	if (kept < r->n_sites)
+		res_note(r, "%zu second protonation%s below pKa -1 not listed as sites",
+			 r->n_sites - kept, r->n_sites - kept > 1 ? "s" : "");
+	r->n_sites = kept;
 }
 
 int pred_predict(pred_result **out, pred_worker *w, const char *input, pred_format fmt,
@@ -299,6 +367,7 @@ int pred_predict(pred_result **out, pred_worker *w, const char *input, pred_form
 		pred_result_free(r);
 		return rc;
 	}
+	drop_deep_second_protonations(r);
 	sort_sites(r);
 	*out = r;
 	return 0;

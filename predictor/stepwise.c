@@ -51,18 +51,45 @@ static double statistical(const step_state *st, size_t i)
 	return n > 1 ? log10((double)k / (double)(n - k + 1)) : 0.0;
 }
 
+/* An acid losing its proton while a base of the molecule still holds one makes a
+ * zwitterion. The distance model overstates how much a near charge pair is stabilised in
+ * water (solvation of the separate ions is not in it), so such a step is preferred over a
+ * charge-neutralising one only when it is ahead by more than ZWITTERION_MARGIN units:
+ * amino acids (ahead by 5 or more) keep their zwitterion, borderline cases such as
+ * hydroxylamine (H3N+OH -> H2NOH, not H3N+O-) titrate as drawn. */
+#define ZWITTERION_MARGIN 1.0
+
+/* Penalty of the step in log units: 0 for ordinary steps, ZWITTERION_MARGIN for one making
+ * a zwitterion, and far more when the two charges would sit one or two bonds apart
+ * (H3N+-O-, C=NH+-O-: minor tautomers whose stability the distance model cannot judge). */
+static double zwitterion_penalty(const step_state *st, const eng_mol *e, const pred_model *m,
+				 size_t i)
+{
+	if (m->sites[e->sites[i].row].kind != PRED_ACID)
+		return 0;
+	double pen = 0;
+	for (size_t j = 0; j < e->n_sites; j++) {
+		if (st->charge[j] <= 0)
+			continue;
+		int d = e->dist[i * e->nat + (size_t)e->sites[j].atom];
+		pen = fmax(pen, d >= 0 && d <= 2 ? 100.0 : ZWITTERION_MARGIN);
+	}
+	return pen;
+}
+
 static void step_once(term_list *tls, step_state *st, const eng_mol *e, const pred_model *m)
 {
 	size_t best = 0;
-	double best_eff = HUGE_VAL, best_stat = 0, best_int = 0;
+	double best_rank = HUGE_VAL, best_stat = 0, best_int = 0;
 	for (size_t i = 0; i < e->n_sites; i++) {
 		if (st->done[i])
 			continue;
 		double stat = statistical(st, i), inter = interaction(st, e, m, i);
 		double eff = st->micro[i] + stat + inter;
-		if (eff < best_eff) {
+		double rank = eff + zwitterion_penalty(st, e, m, i);
+		if (rank < best_rank) {
+			best_rank = rank;
 			best = i;
-			best_eff = eff;
 			best_stat = stat;
 			best_int = inter;
 		}

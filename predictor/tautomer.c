@@ -4,6 +4,7 @@
 #include "tautomer.h"
 
 #include <stdio.h>
+#include <stdlib.h>
 #include <string.h>
 
 /* The shifts, in the order they are tried for each OH / SH. */
@@ -21,32 +22,63 @@ typedef struct graph {
 	const obw_bond *b;
 	size_t nb;
 	obw_rings rings;
+	int *start; /* bonds of atom x: bond indices adj[start[x] .. start[x+1]) */
+	int *adj;
 } graph;
 
-static void graph_load(graph *g, const obw_mol *m)
+static void graph_free(graph *g)
 {
+	free(g->start);
+	free(g->adj);
+	g->start = g->adj = NULL;
+}
+
+/* Loads the cached arrays of m and builds the atom-to-bond index. 0 or PRED_ENOMEM. */
+static int graph_load(graph *g, const obw_mol *m)
+{
+	graph_free(g);
 	g->na = obw_mol_atoms(m, &g->a);
 	g->nb = obw_mol_bonds(m, &g->b);
 	obw_mol_rings(m, &g->rings);
+	g->start = calloc(g->na + 2, sizeof *g->start);
+	g->adj = malloc((2 * g->nb + 1) * sizeof *g->adj);
+	if (!g->start || !g->adj)
+		return PRED_ENOMEM;
+	for (size_t k = 0; k < g->nb; k++) {
+		g->start[g->b[k].a + 2]++;
+		g->start[g->b[k].b + 2]++;
+	}
+	for (size_t x = 0; x < g->na; x++)
+		g->start[x + 2] += g->start[x + 1];
+	/* start[x + 1] now counts the slots filled for x; it ends as start of x + 1 */
+	for (size_t k = 0; k < g->nb; k++) {
+		g->adj[g->start[g->b[k].a + 1]++] = (int)k;
+		g->adj[g->start[g->b[k].b + 1]++] = (int)k;
+	}
+	return 0;
+}
+
+/* The atom across bond k from x. */
+static int other(const graph *g, int k, int x)
+{
+	return g->b[k].a == x ? g->b[k].b : g->b[k].a;
 }
 
 /* Order of the bond x-y, 0 when there is none. */
 static int order(const graph *g, int x, int y)
 {
-	for (size_t k = 0; k < g->nb; k++)
-		if ((g->b[k].a == x && g->b[k].b == y) || (g->b[k].a == y && g->b[k].b == x))
-			return g->b[k].order;
+	for (int i = g->start[x]; i < g->start[x + 1]; i++)
+		if (other(g, g->adj[i], x) == y)
+			return g->b[g->adj[i]].order;
 	return 0;
 }
 
 /* The k-th neighbour of x joined by a bond of order ord (k counts from 0), or -1. */
 static int nbr(const graph *g, int x, int ord, int k)
 {
-	for (size_t i = 0; i < g->nb; i++) {
-		int o = g->b[i].a == x ? g->b[i].b : g->b[i].b == x ? g->b[i].a : -1;
-		if (o >= 0 && g->b[i].order == ord && k-- == 0)
-			return o;
-	}
+	for (int i = g->start[x]; i < g->start[x + 1]; i++)
+		if (g->b[g->adj[i]].order == ord && k-- == 0)
+			return other(g, g->adj[i], x);
 	return -1;
 }
 
@@ -121,17 +153,18 @@ static int find_azine(const graph *g, int o, int c1, shift *s)
  * drawn (DESIGN.md: conjugation keeps the enol). */
 static int conjugated(const graph *g, int o, int c1, int c2)
 {
-	for (size_t i = 0; i < g->nb; i++) {
-		int x = g->b[i].a, y = g->b[i].b;
-		int on_x = (x == c1 || x == c2) && y != o && y != c1 && y != c2;
-		int on_y = (y == c1 || y == c2) && x != o && x != c1 && x != c2;
-		int nb = on_x ? y : on_y ? x : -1;
-		if (nb < 0)
-			continue;
-		for (size_t k = 0; k < g->nb; k++) {
-			int p = g->b[k].a == nb ? g->b[k].b : g->b[k].b == nb ? g->b[k].a : -1;
-			if (p >= 0 && p != c1 && p != c2 && g->b[k].order >= 2 && !g->b[k].aromatic)
-				return 1;
+	int ends[2] = {c1, c2};
+	for (int e = 0; e < 2; e++) {
+		for (int i = g->start[ends[e]]; i < g->start[ends[e] + 1]; i++) {
+			int x = other(g, g->adj[i], ends[e]);
+			if (x == o || x == c1 || x == c2)
+				continue;
+			for (int j = g->start[x]; j < g->start[x + 1]; j++) {
+				const obw_bond *bx = &g->b[g->adj[j]];
+				int p = other(g, g->adj[j], x);
+				if (p != c1 && p != c2 && bx->order >= 2 && !bx->aromatic)
+					return 1;
+			}
 		}
 	}
 	return 0;
@@ -197,29 +230,36 @@ static const char *shift_name(const graph *g, const shift *s)
 	}
 }
 
+static int fail(pred_error *err, int code, const char *msg)
+{
+	if (err) {
+		err->code = code;
+		snprintf(err->msg, sizeof err->msg, "%s", msg);
+	}
+	return code;
+}
+
 int taut_standardise(obw_mol *m, norm_report *rep, pred_error *err)
 {
-	graph g;
+	graph g = {0};
 	shift s;
 	char msg[200] = "";
-	graph_load(&g, m);
+	int rc = graph_load(&g, m);
 	/* each shift takes the H off one O/S for good, so the loop ends; the bound is a guard */
-	for (size_t it = 0, limit = g.na + 1; it < limit && find_shift(&g, &s); it++) {
-		int rc = apply(m, &g, &s);
+	for (size_t it = 0, limit = g.na + 1; !rc && it < limit && find_shift(&g, &s); it++) {
+		rc = apply(m, &g, &s);
 		norm_warn(rep, "input tautomer changed: %s at atom %d (H moved to atom %d)",
 			  shift_name(&g, &s), g.a[s.path[0]].orig_index,
 			  g.a[s.path[s.len - 1]].orig_index);
 		if (!rc)
 			rc = obw_mol_refresh(m, msg, sizeof msg);
-		if (rc) {
-			if (err) {
-				err->code = rc;
-				snprintf(err->msg, sizeof err->msg, "%s",
-					 msg[0] ? msg : "cannot move the tautomeric hydrogen");
-			}
-			return rc;
-		}
-		graph_load(&g, m);
+		if (!rc)
+			rc = graph_load(&g, m);
 	}
+	graph_free(&g);
+	if (rc == PRED_ENOMEM)
+		return fail(err, rc, "out of memory");
+	if (rc)
+		return fail(err, rc, msg[0] ? msg : "cannot move the tautomeric hydrogen");
 	return 0;
 }

@@ -65,11 +65,13 @@ static char *sb_finish(sbuf *b)
 	return b->s;
 }
 
-/* "9.95", or "" for a non-finite number (CSV and SD have no null). */
+/* "9.95", or "" for a non-finite number (CSV and SD have no null). Rounded first, so that
+ * a small negative value does not print as "-0.00". */
 static void sb_number(sbuf *b, double x, int decimals)
 {
+	double scale = pow(10.0, decimals), r = round(x * scale) / scale;
 	if (isfinite(x))
-		sb_printf(b, "%.*f", decimals, x == 0.0 ? 0.0 : x);
+		sb_printf(b, "%.*f", decimals, r == 0.0 ? 0.0 : r);
 }
 
 int srv_output_format_parse(srv_output_format *out, const char *s)

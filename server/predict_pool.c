@@ -155,6 +155,28 @@ static void pool_destroy(pool *p)
 	pthread_cond_destroy(&p->done);
 }
 
+static size_t start_workers(pool *p, pthread_t *tids, worker_arg *args, pred_worker **workers,
+			    size_t n)
+{
+	size_t started = 0;
+	for (; started < n; started++) {
+		args[started] = (worker_arg){p, workers[started]};
+		if (pthread_create(&tids[started], NULL, worker_main, &args[started]))
+			break;
+	}
+	return started;
+}
+
+static void stop_workers(pool *p, pthread_t *tids, size_t started)
+{
+	pthread_mutex_lock(&p->mu);
+	p->closed = 1;
+	pthread_cond_broadcast(&p->work);
+	pthread_mutex_unlock(&p->mu);
+	for (size_t i = 0; i < started; i++)
+		pthread_join(tids[i], NULL);
+}
+
 int srv_pool_run(const srv_pool_ops *ops, pred_worker **workers, size_t n_workers,
 		 size_t window, pred_error *err)
 {
@@ -168,34 +190,20 @@ int srv_pool_run(const srv_pool_ops *ops, pred_worker **workers, size_t n_worker
 	rc = pool_init(&p, ops, window < 2 * n_workers ? 2 * n_workers : window);
 	tids = calloc(n_workers, sizeof *tids);
 	args = calloc(n_workers, sizeof *args);
-	if (rc || !tids || !args) {
+	if (rc || !tids || !args)
 		rc = PRED_ENOMEM;
-		goto done;
-	}
-	for (; started < n_workers; started++) {
-		args[started] = (worker_arg){&p, workers[started]};
-		if (pthread_create(&tids[started], NULL, worker_main, &args[started])) {
-			rc = PRED_EINTERNAL;
-			break;
-		}
-	}
+	if (rc == 0 && (started = start_workers(&p, tids, args, workers, n_workers)) < n_workers)
+		rc = PRED_EINTERNAL;
 	if (rc == 0)
 		rc = feed(&p);
-done:
 	if (p.slots) {
-		pthread_mutex_lock(&p.mu);
-		p.closed = 1;
-		pthread_cond_broadcast(&p.work);
-		pthread_mutex_unlock(&p.mu);
+		stop_workers(&p, tids, started);
+		pool_destroy(&p);
 	}
-	for (size_t i = 0; i < started; i++)
-		pthread_join(tids[i], NULL);
 	if (rc && err && !err->code) {
 		err->code = rc;
 		snprintf(err->msg, sizeof err->msg, "%s", pred_status_name(rc));
 	}
-	if (p.slots)
-		pool_destroy(&p);
 	free(tids);
 	free(args);
 	return rc;

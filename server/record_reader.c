@@ -2,6 +2,7 @@
 /* record_reader.c: bounded, streaming reader of SMILES lines and SD records. */
 #include "record_reader.h"
 
+#include <errno.h>
 #include <stdarg.h>
 #include <stdlib.h>
 #include <string.h>
@@ -44,6 +45,15 @@ static void set_err(pred_error *err, int code, const char *fmt, ...)
 	va_start(ap, fmt);
 	vsnprintf(err->msg, sizeof err->msg, fmt, ap);
 	va_end(ap);
+}
+
+/* errno still holds the cause of a failed fread when this runs. */
+static void io_error(pred_error *err, int st)
+{
+	if (st == PRED_ENOMEM)
+		set_err(err, st, "out of memory");
+	else
+		set_err(err, st, "read error: %s", strerror(errno));
 }
 
 static int line_append(line_buf *lb, const char *p, size_t n)
@@ -180,7 +190,7 @@ int srv_reader_new(srv_reader **out, FILE *f, const char *name, srv_input_format
 	if (rd->fmt == SRV_IN_AUTO) {
 		st = peek_lines(rd);
 		if (st < 0) {
-			set_err(err, st, "cannot read %s", name ? name : "input");
+			set_err(err, st, "cannot read %s: %s", name ? name : "input", strerror(errno));
 			srv_reader_free(rd);
 			return st;
 		}
@@ -330,7 +340,7 @@ static int next_smiles(srv_record **out, srv_reader *rd, pred_error *err)
 	return 1;
 io_done:
 	if (st < 0)
-		set_err(err, st, st == PRED_ENOMEM ? "out of memory" : "read error");
+		io_error(err, st);
 	return st;
 }
 
@@ -440,7 +450,7 @@ static int next_sd(srv_record **out, srv_reader *rd, pred_error *err)
 done:
 	free(a.text.s);
 	if (st < 0)
-		set_err(err, st, st == PRED_ENOMEM ? "out of memory" : "read error");
+		io_error(err, st);
 	return st;
 }
 

@@ -18,14 +18,16 @@ static char *dup_text(const char *s)
 /* Open without the token (see cmd_serve.c --help) so that probes need no secret. */
 int srv_route_healthz(srv_response *out, const srv_request *req, srv_service *svc)
 {
-	(void)req;
 	(void)svc;
+	if (srv_no_query_or_reply(out, req) < 0)
+		return out->status;
 	return srv_reply_body(out, 200, "application/json", dup_text("{\"status\":\"ok\"}"));
 }
 
 int srv_route_readyz(srv_response *out, const srv_request *req, srv_service *svc)
 {
-	(void)req;
+	if (srv_no_query_or_reply(out, req) < 0)
+		return out->status;
 	if (!svc->model || !svc->pool)
 		return srv_reply_error(out, "shutting_down", "the model is not loaded");
 	return srv_reply_body(out, 200, "application/json", dup_text("{\"status\":\"ready\"}"));

@@ -22,10 +22,12 @@ static const char page[] =
 
 int srv_route_index(srv_response *out, const srv_request *req, srv_service *svc)
 {
-	char *body = malloc(sizeof page);
+	char *body;
 
-	(void)req;
 	(void)svc;
+	if (srv_no_query_or_reply(out, req) < 0)
+		return out->status;
+	body = malloc(sizeof page);
 	if (!body)
 		return srv_reply_error(out, "out_of_memory", "out of memory");
 	memcpy(body, page, sizeof page);

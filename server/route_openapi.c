@@ -9,10 +9,12 @@
 
 int srv_route_openapi(srv_response *out, const srv_request *req, srv_service *svc)
 {
-	char *body = malloc(strlen(srv_openapi_json) + 1);
+	char *body;
 
-	(void)req;
 	(void)svc;
+	if (srv_no_query_or_reply(out, req) < 0)
+		return out->status;
+	body = malloc(strlen(srv_openapi_json) + 1);
 	if (!body)
 		return srv_reply_error(out, "out_of_memory", "out of memory");
 	strcpy(body, srv_openapi_json);

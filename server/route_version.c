@@ -10,10 +10,12 @@
 
 int srv_route_version(srv_response *out, const srv_request *req, srv_service *svc)
 {
-	cJSON *o = cJSON_CreateObject();
+	cJSON *o;
 	char *text = NULL, *body = NULL;
 
-	(void)req;
+	if (srv_no_query_or_reply(out, req) < 0)
+		return out->status;
+	o = cJSON_CreateObject();
 	cJSON_AddStringToObject(o, "pkad", pred_version());
 	cJSON_AddStringToObject(o, "params", svc->model ? pred_model_params_version(svc->model) : "");
 	cJSON_AddStringToObject(o, "data", svc->model ? pred_model_data_version(svc->model) : "");

@@ -28,6 +28,9 @@ const srv_route *srv_route_find(const char *method, const char *path, char *allo
 {
 	size_t len = 0;
 
+	/* HEAD is answered as GET; libmicrohttpd leaves the body out. */
+	if (!strcmp(method, "HEAD"))
+		method = "GET";
 	allow[0] = '\0';
 	for (size_t i = 0; i < srv_route_count; i++) {
 		if (strcmp(srv_routes[i].path, path))
@@ -104,4 +107,12 @@ int srv_media_type_is(const char *content_type, const char *type)
 	size_t n = strlen(type);
 	return content_type && !strncasecmp(content_type, type, n) &&
 	       (content_type[n] == '\0' || content_type[n] == ';' || content_type[n] == ' ');
+}
+
+int srv_no_query_or_reply(srv_response *out, const srv_request *req)
+{
+	if (!req->n_query)
+		return 0;
+	srv_reply_error(out, "bad_request", "unknown query parameter '%.60s'", req->query[0].key);
+	return -1;
 }

@@ -87,6 +87,9 @@ void srv_route_dispatch(srv_response *out, const srv_request *req, srv_service *
  * case. */
 int srv_media_type_is(const char *content_type, const char *type);
 
+/* 400 naming the first query parameter of a route that takes none; returns -1 then. */
+int srv_no_query_or_reply(srv_response *out, const srv_request *req);
+
 /* Query parameter value or NULL. */
 const char *srv_request_param(const srv_request *req, const char *key);
 

@@ -513,6 +513,60 @@ extern "C" char *obw_mol_canonical(obw_mol *m, obw_ctx *c, char *msg, size_t msg
 	}
 }
 
+/* Writes m with each atom[k] changed by dq[k] in charge and hydrogen count, then restores
+ * m: no copy and no re-perception, so one microspecies costs one SMILES write. */
+static std::string write_edited(obw_mol *m, obw_ctx *c, const int *atom, const int *dq,
+				size_t n, bool canonical)
+{
+	std::vector<std::pair<int, unsigned int>> saved;
+	for (size_t k = 0; k < n; k++) {
+		OBAtom *a = m->mol.GetAtom(atom[k] + 1);
+		saved.emplace_back(a->GetFormalCharge(), a->GetImplicitHCount());
+		int h = (int)a->GetImplicitHCount() + dq[k];
+		a->SetFormalCharge(a->GetFormalCharge() + dq[k]);
+		a->SetImplicitHCount((unsigned int)(h < 0 ? 0 : h));
+	}
+	OBFormat *f = canonical ? c->can : c->smi;
+	std::ostringstream os;
+	c->conv.SetOutFormat(f);
+	c->conv.SetOutStream(&os, false);
+	bool ok = f->WriteMolecule(&m->mol, &c->conv);
+	c->conv.SetOutStream(nullptr, false);
+	for (size_t k = n; k-- > 0;) {
+		OBAtom *a = m->mol.GetAtom(atom[k] + 1);
+		a->SetFormalCharge(saved[k].first);
+		a->SetImplicitHCount(saved[k].second);
+	}
+	if (!ok)
+		return std::string();
+	std::string s = os.str();
+	return s.substr(0, s.find_first_of(" \t\r\n"));
+}
+
+extern "C" char *obw_mol_smiles_edited(obw_mol *m, obw_ctx *c, const int *atom, const int *dq,
+				       size_t n, int canonical, char *msg, size_t msgn)
+{
+	try {
+		for (size_t k = 0; k < n; k++)
+			if (atom[k] < 0 || (size_t)atom[k] >= m->atoms.size()) {
+				set_msg(msg, msgn, "atom %d out of range", atom[k]);
+				return nullptr;
+			}
+		std::string s = write_edited(m, c, atom, dq, n, canonical != 0);
+		if (s.empty()) {
+			set_msg(msg, msgn, "cannot write smiles");
+			return nullptr;
+		}
+		char *p = dup_string(s);
+		if (!p)
+			set_msg(msg, msgn, "out of memory writing smiles");
+		return p;
+	} catch (...) {
+		set_msg(msg, msgn, "cannot write smiles");
+		return nullptr;
+	}
+}
+
 /* ---- editing -------------------------------------------------------------------------- */
 
 extern "C" size_t obw_mol_components(const obw_mol *m, int *comp, size_t n)

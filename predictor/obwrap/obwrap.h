@@ -82,6 +82,12 @@ int obw_mol_symmetry(obw_mol *m, int *cls, size_t n, char *msg, size_t msgn);
 /** Canonical SMILES (no stereo loss), malloc'd; NULL on failure with msg set. */
 char *obw_mol_canonical(obw_mol *m, obw_ctx *c, char *msg, size_t msgn);
 
+/** SMILES of m with atom[k] changed by dq[k] in both formal charge and hydrogen count
+ *  (k < n), canonical or in input order; m itself is left as it was. For microspecies:
+ *  no copy, no re-perception. malloc'd; NULL on failure with msg set. */
+char *obw_mol_smiles_edited(obw_mol *m, obw_ctx *c, const int *atom, const int *dq, size_t n,
+			    int canonical, char *msg, size_t msgn);
+
 /* ---- editing (normalisation, microspecies) --------------------------------------------- */
 
 /** Connected components: writes comp[i] for each atom, returns the component count. */

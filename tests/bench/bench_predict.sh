@@ -7,6 +7,9 @@ set -euo pipefail
 pkad="$1"
 parse="$2"
 set_file="${3:-/usr/share/RDKit/Data/NCI/first_5K.smi}"
+for b in "$pkad" "$parse"; do
+  [ -x "$b" ] || { echo "bench: $b is not an executable" >&2; exit 2; }
+done
 if [ ! -r "$set_file" ]; then
   echo "bench: skip: $set_file not found (Debian package rdkit-data)"
   exit 0
@@ -15,10 +18,12 @@ n="$(grep -cv '^[[:space:]]*\(#\|$\)' "$set_file")"
 
 # best wall time of three runs of the command, in nanoseconds
 best_of_three() {
-  local best=0 t0 t1
+  local best=0 t0 t1 st
   for _ in 1 2 3; do
     t0="$(date +%s%N)"
-    "$@" >/dev/null || true
+    # status 1 only says that some molecule of the set was answered with an error
+    st=0; "$@" >/dev/null || st=$?
+    [ "$st" -le 1 ] || { echo "bench: $* exited with $st" >&2; exit 2; }
     t1="$(date +%s%N)"
     if [ "$best" -eq 0 ] || [ $((t1 - t0)) -lt "$best" ]; then best=$((t1 - t0)); fi
   done

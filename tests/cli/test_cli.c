@@ -281,6 +281,42 @@ static void test_cli__hostile_lines_get_errors_and_the_run_goes_on(void)
 	free(in);
 }
 
+/* --max-atoms bounds the heavy atoms: benzoic acid has 9, methane 1. */
+static void test_cli__max_atoms_rejects_larger_molecules(void)
+{
+	const char *const args[] = {"predict", "--max-atoms", "5", NULL};
+	static const char in[] = "OC(=O)c1ccccc1 benzoic\nC methane\n";
+	size_t n;
+	int status;
+	cJSON **objs = predict_json(args, in, sizeof in - 1, &n, &status);
+	CHECK_INT_EQ(n, 2);
+	CHECK_INT_EQ(status, 1);
+	if (objs && n == 2) {
+		CHECK_STR_EQ(error_code(objs[0]), "too_many_atoms");
+		CHECK(error_code(objs[1]) == NULL);
+	}
+	free_objs(objs, n);
+}
+
+/* Files are read in turn ("-" is stdin) and the record numbers run on across them. */
+static void test_cli__several_files_number_records_across_files(void)
+{
+	static const char a[] = "CCO\nCCN named\n", b[] = "# only a comment\nCC(=O)O\n";
+	char *pa = cli_temp_file(a, sizeof a - 1);
+	const char *const args[] = {"predict", pa ? pa : "missing", "-", NULL};
+	static const char *const ids[] = {"1", "named", "3"};
+	size_t n = 0;
+	int status;
+	cJSON **objs = pa ? predict_json(args, b, sizeof b - 1, &n, &status) : NULL;
+	CHECK_INT_EQ(n, 3);
+	for (size_t i = 0; objs && i < n && i < 3; i++)
+		CHECK_STR_EQ(str_of(objs[i], "id"), ids[i]);
+	free_objs(objs, n);
+	if (pa)
+		unlink(pa);
+	free(pa);
+}
+
 static void test_cli__missing_fragments_dir_fails_cleanly(void)
 {
 	const char *const args[] = {"predict", "--fragments", "no-such-dir-of-tables", NULL};
@@ -323,6 +359,8 @@ int main(void)
 	RUN(test_cli__ph_option_sets_the_species_block);
 	RUN(test_cli__curves_have_matching_lengths);
 	RUN(test_cli__hostile_lines_get_errors_and_the_run_goes_on);
+	RUN(test_cli__max_atoms_rejects_larger_molecules);
+	RUN(test_cli__several_files_number_records_across_files);
 	RUN(test_cli__missing_fragments_dir_fails_cleanly);
 	RUN(test_cli__fragments_dir_of_the_repository_matches_embedded);
 	return harness_done();

@@ -9,8 +9,8 @@
 (d) every substituent row copied from substituent-constants.csv claims its smiles_fragment
     attached to benzene, rooted at the attachment atom, and carries the same constants.
 Run with /usr/bin/python3; exits 77 (CTest skip) when the Open Babel Python module is missing.
-The source tree comes from PKAD_SOURCE_DIR; the reference data from PKAD_SHARED_DATA or the
-project's copy in data/reference.
+The source tree comes from PKAD_SOURCE_DIR; handbook rows from its data/handbook-*.csv and
+constants from data/reference/substituent-constants.csv (PKAD_SHARED_DATA overrides both).
 """
 import csv
 import os
@@ -65,7 +65,7 @@ ANY_KIND = {"amino_acid_zwitterion"}
 # handbook rows the tables knowingly do not answer as the handbook labels them, with the reason
 KNOWN_GAPS = {
     ("creatinine", "amidine"): "acylguanidine in a ring: perceived as guanidine (N-acyl term)",
-}
+}  # tests/predictor/test_handbook.c also lists rows whose predicted step order differs
 SOURCE_WORDS = re.compile(r"from memory|common practice|estimate|IUPAC|HLT1991|Taft|PDS1981|"
                           r"Perrin|Serjeant|Hammett|csv|Clark|DEVELOPERS|attenuation", re.I)
 
@@ -204,14 +204,26 @@ def claims(subst_rows, mol):
     return group, root
 
 
-def shared_dir():
-    d = os.environ.get("PKAD_SHARED_DATA") or os.path.join(SRC, "data", "reference")
-    return d if os.path.isfile(os.path.join(d, "handbook-acids.csv")) else None
+HANDBOOKS = ("handbook-acids.csv", "handbook-bases.csv", "handbook-additions.csv")
 
 
-def check_substituents(rows, data, rep):
+def data_file(name):
+    """Path of a reference file: $PKAD_SHARED_DATA, else data/ or data/reference/; None if absent."""
+    dirs = [os.environ["PKAD_SHARED_DATA"]] if os.environ.get("PKAD_SHARED_DATA") else \
+        [os.path.join(SRC, "data"), os.path.join(SRC, "data", "reference")]
+    for d in dirs:
+        if os.path.isfile(os.path.join(d, name)):
+            return os.path.join(d, name)
+    return None
+
+
+def check_substituents(rows, rep):
     """(d): rows citing 'substituent-constants.csv NAME' claim NAME on benzene, same constants."""
-    ref = {r["substituent"]: r for r in csv.DictReader(open(os.path.join(data, "substituent-constants.csv")))}
+    path = data_file("substituent-constants.csv")
+    if path is None:
+        rep.fail("substituents: data/reference/substituent-constants.csv not found")
+        return
+    ref = {r["substituent"]: r for r in csv.DictReader(open(path))}
     checked = 0
     for r in rows:
         m = re.match(r"substituent-constants\.csv (\S+):", r["source"])
@@ -237,11 +249,15 @@ def check_substituents(rows, data, rep):
         rep.fail(f"substituents: only {checked} rows cite substituent-constants.csv")
 
 
-def coverage(site_rows, data, rep):
+def coverage(site_rows, rep):
     """(b): each handbook row gets a site of its kind whose group answers its site_class."""
     per_class = {}
-    for fname in ("handbook-acids.csv", "handbook-bases.csv"):
-        for h in csv.DictReader(open(os.path.join(data, fname))):
+    for fname in HANDBOOKS:
+        path = data_file(fname)
+        if path is None:
+            rep.fail(f"coverage: data/{fname} not found")
+            continue
+        for h in csv.DictReader(open(path)):
             cls, kind = h["site_class"], h["kind"]
             groups = CLASS_GROUPS.get(cls)
             if groups is None:
@@ -262,10 +278,11 @@ def coverage(site_rows, data, rep):
         print(f"coverage {cls:24s} {ok:3d}/{n:3d}")
 
 
-def unused_rows(site_rows, data):
-    """Informational: site rows that no molecule of the shared IUPAC set matches."""
+def unused_rows(site_rows):
+    """Informational: site rows that no molecule of the IUPAC set (data/iupac-pka.csv) matches."""
     used = set()
-    for r in csv.DictReader(open(os.path.join(data, "iupac-pka.csv"))):
+    path = data_file("iupac-pka.csv")
+    for r in csv.DictReader(open(path)) if path else []:
         try:
             mol = read_mol(r["smiles"])
         except OSError:
@@ -275,20 +292,54 @@ def unused_rows(site_rows, data):
     print(f"site rows matching no IUPAC molecule ({len(idle)}): {' '.join(idle)}")
 
 
+def selftest():
+    """The checks themselves: a copy of the tables with one fault of each kind must fail each."""
+    import shutil
+    import tempfile
+    global FRAG
+    tmp = tempfile.mkdtemp(prefix="pkad-frag-")
+    try:
+        for name in COLUMNS:
+            shutil.copy(os.path.join(FRAG, name), tmp)
+        faults = {
+            "sites.tsv": lambda t: t + t.splitlines()[-1] + "\n",        # duplicate id
+            "corrections.tsv": lambda t: t + "bad\tortho\t*\t[C;\t0\t0\tcommon practice\n",
+            "substituents.tsv": lambda t: t + "short\t[Cl]\t0.1\n",      # column count
+        }
+        for name, inject in faults.items():
+            path = os.path.join(tmp, name)
+            text = open(path, encoding="utf-8").read()
+            open(path, "w", encoding="utf-8").write(inject(text))
+        FRAG = tmp
+        out = []
+        rep = Report()
+        rep.fail = lambda msg: out.append(msg)
+        tables = {name: read_table(name, rep) for name in COLUMNS}
+        for name, rows in tables.items():
+            compile_smarts(name, rows, rep)
+        check_fields(tables, rep)
+    finally:
+        shutil.rmtree(tmp)
+    wanted = ["duplicate id", "cannot parse SMARTS", "expected 10 columns"]
+    missing = [w for w in wanted if not any(w in m for m in out)]
+    for w in missing:
+        print(f"FAIL selftest: an injected fault was not reported: {w}")
+    print(f"selftest: {len(out)} faults reported, {len(wanted) - len(missing)}/{len(wanted)} expected kinds")
+    return 1 if missing else 0
+
+
 def main():
+    if "--selftest" in sys.argv:
+        return selftest()
     rep = Report()
     tables = {name: read_table(name, rep) for name in COLUMNS}
     for name, rows in tables.items():
         compile_smarts(name, rows, rep)
     check_fields(tables, rep)
-    data = shared_dir()
-    if data is None:
-        rep.fail("reference data not found (data/reference or PKAD_SHARED_DATA): checks (b) and (d) not run")
-    else:
-        check_substituents(tables["substituents.tsv"], data, rep)
-        coverage(tables["sites.tsv"], data, rep)
-        if "--unused" in sys.argv:
-            unused_rows(tables["sites.tsv"], data)
+    check_substituents(tables["substituents.tsv"], rep)
+    coverage(tables["sites.tsv"], rep)
+    if "--unused" in sys.argv:
+        unused_rows(tables["sites.tsv"])
     counts = ", ".join(f"{len(v)} {k}" for k, v in tables.items())
     print(f"{counts}; {rep.errors} failures")
     return 1 if rep.errors else 0

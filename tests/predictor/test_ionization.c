@@ -39,7 +39,7 @@ static hand make(const char *kinds, const double *pka, const int *bonds)
 		h.dist = res_alloc(h.r, n * n * sizeof *h.dist);
 		memcpy(h.dist, bonds, n * n * sizeof *h.dist);
 	}
-	h.in = (ion_input){NULL, NULL, h.atom, h.dist, n};
+	h.in = (ion_input){NULL, NULL, h.atom, h.dist, n, 0};
 	return h;
 }
 
@@ -206,14 +206,14 @@ static void test_ionization__curves_cover_0_to_14(void)
 	pred_result_free(h.r);
 }
 
-/* n independent acid sites with pKa 2, 4, 6, ... (invented demo values) */
-static hand independent(size_t n, double ph)
+/* n independent acid sites with pKa 2, 2 + step, 2 + 2 step, ... (invented demo values) */
+static hand independent_step(size_t n, double ph, double step)
 {
 	char kinds[32];
 	double pka[32];
 	for (size_t i = 0; i < n; i++) {
 		kinds[i] = 'a';
-		pka[i] = 2.0 + 2.0 * (double)i;
+		pka[i] = 2.0 + step * (double)i;
 	}
 	kinds[n] = 0;
 	hand h = make(kinds, pka, NULL);
@@ -223,6 +223,11 @@ static hand independent(size_t n, double ph)
 		q -= 1 / (1 + pow(10, pka[i] - ph));
 	CHECK_NEAR(h.r->charge, q, 1e-9); /* independent sites: sum of HH, exact either way */
 	return h;
+}
+
+static hand independent(size_t n, double ph)
+{
+	return independent_step(n, ph, 2.0);
 }
 
 static void test_ionization__twelve_sites_are_exact(void)
@@ -236,10 +241,15 @@ static void test_ionization__twelve_sites_are_exact(void)
 
 static void test_ionization__more_than_twelve_sites_approximate_and_say_so(void)
 {
-	hand h = independent(16, 7.4);
+	hand h = independent_step(16, 7.4, 0.8);
 	CHECK_INT_EQ(h.r->approximate, 1);
 	CHECK_INT_EQ(h.r->n_warnings, 1);
 	CHECK(h.r->n_warnings && strstr(h.r->warnings[0], "approximate"));
+	CHECK_INT_EQ(h.r->n_macro, 16);
+	pred_result_free(h.r);
+	/* sites far outside -6..20 never change state: left out of the cluster, still exact */
+	h = independent(16, 7.4);
+	CHECK_INT_EQ(h.r->approximate, 0);
 	CHECK_INT_EQ(h.r->n_macro, 16);
 	for (size_t i = 0; i < h.r->n_macro; i++)
 		CHECK_NEAR(h.r->macro[i], 2.0 + 2.0 * (double)i, 0.01);

@@ -92,6 +92,10 @@ static const norm_case fragment_cases[] = {
 	{"OS(=O)(=O)O.CN", "CN", "removed 1 fragment: OS(=O)(=O)O", "common practice"},
 	{"c1ccccc1.CC(=O)O", "c1ccccc1", "removed 1 fragment: CC(=O)O", "common practice"},
 	{"[Na+].[Cl-]", "[Na+]", "removed 1 fragment: [Cl-]", "common practice"},
+	/* a big removed fragment is named by its size, not by a long SMILES */
+	{"CCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCC.CCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCC",
+	 "CCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCCC", "removed 1 fragment: (45 heavy atoms)",
+	 "common practice"},
 };
 
 /* Charged forms that are just another protonation state of an acid or base become neutral;

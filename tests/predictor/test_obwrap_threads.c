@@ -40,6 +40,26 @@ static int load_lines(char ***out, const char *path)
 	return (int)n;
 }
 
+/* Clone, deprotonate the first O-H, re-perceive, write: the edit path in the workers. */
+static char *deprotonated(obw_ctx *c, const obw_mol *m)
+{
+	obw_mol *copy = NULL;
+	const obw_atom *a;
+	char *s = NULL;
+	if (obw_mol_clone(&copy, m))
+		return NULL;
+	size_t na = obw_mol_atoms(copy, &a);
+	for (size_t i = 0; i < na; i++) {
+		if (a[i].element != 8 || a[i].hcount != 1 || a[i].charge)
+			continue;
+		if (obw_mol_set_atom(copy, (int)i, -1, 0) == 0 && obw_mol_refresh(copy, NULL, 0) == 0)
+			s = obw_mol_canonical(copy, c, NULL, 0);
+		break;
+	}
+	obw_mol_free(copy);
+	return s;
+}
+
 /* Canonical SMILES, ring count, symmetry class count and the match count of every pattern,
  * as one comparable line (or the parse error). */
 static char *summarise(obw_ctx *c, obw_pattern **pats, const char *line)
@@ -58,8 +78,11 @@ static char *summarise(obw_ctx *c, obw_pattern **pats, const char *line)
 			maxc = cls[i] > maxc ? cls[i] : maxc;
 	free(cls);
 	char *can = obw_mol_canonical(m, c, msg, sizeof msg);
-	int len = snprintf(buf, sizeof buf, "%s r%zu s%d", can ? can : msg, r.n_rings, maxc);
+	char *dep = deprotonated(c, m);
+	int len = snprintf(buf, sizeof buf, "%s r%zu s%d %s", can ? can : msg, r.n_rings, maxc,
+			   dep ? dep : "-");
 	free(can);
+	free(dep);
 	for (int k = 0; k < N_PATTERNS && len > 0 && (size_t)len < sizeof buf; k++) {
 		int *hits = NULL;
 		int nm = obw_pattern_match(&hits, pats[k], m);

@@ -48,6 +48,15 @@ static int read_molecules(void)
 	return n == N_MOLS ? 0 : -1;
 }
 
+/* A placeholder answer, allocated like cJSON's printed text. */
+static char *cjson_text(const char *s)
+{
+	cJSON *o = cJSON_CreateString(s);
+	char *t = cJSON_PrintUnformatted(o);
+	cJSON_Delete(o);
+	return t;
+}
+
 static char *without_id(cJSON *o)
 {
 	cJSON_DeleteItemFromObjectCaseSensitive(o, "id");
@@ -75,7 +84,7 @@ static void ask_one(int i)
 		cJSON_Delete(req);
 	}
 	o = cJSON_Parse(r.body ? r.body : "");
-	answer[i] = o ? without_id(o) : strdup("(no answer)");
+	answer[i] = o ? without_id(o) : cjson_text("(no answer)");
 	cJSON_Delete(o);
 	hc_response_free(&r);
 }
@@ -100,7 +109,7 @@ static void ask_batch(int c)
 	o = cJSON_GetObjectItem(root, "results");
 	for (int k = 0; k < PER_CLIENT; k++) {
 		cJSON *it = cJSON_GetArrayItem(o, k);
-		answer[c * PER_CLIENT + k] = it ? without_id(it) : strdup("(no answer)");
+		answer[c * PER_CLIENT + k] = it ? without_id(it) : cjson_text("(no answer)");
 	}
 	cJSON_Delete(root);
 	cJSON_free(body);
@@ -137,7 +146,7 @@ static char **cli_answers(void)
 	p = popen(cmd, "r");
 	while (p && n < N_MOLS && fgets(line, 1 << 20, p)) {
 		cJSON *o = cJSON_Parse(line);
-		out[n++] = o ? without_id(o) : strdup("(bad cli line)");
+		out[n++] = o ? without_id(o) : cjson_text("(bad cli line)");
 		cJSON_Delete(o);
 	}
 	if (p)
@@ -180,6 +189,12 @@ int main(void)
 	}
 	CHECK_INT_EQ(mismatches, 0);
 	printf("%d molecules from %d clients compared with pkad predict\n", N_MOLS, N_CLIENTS);
+	for (int i = 0; i < N_MOLS; i++) {
+		cJSON_free(want[i]);
+		cJSON_free(answer[i]);
+		free(smiles[i]);
+	}
+	free(want);
 	return harness_done();
 }
 

@@ -103,6 +103,8 @@ static void test_routes__wrong_method_returns_405_with_allow(void)
 	CHECK_INT_EQ(call(&r, "DELETE", "/metrics", NULL, 0, NULL, NULL), 405);
 	CHECK_STR_EQ(r.allow, "GET");
 	free(r.body);
+	CHECK_INT_EQ(call(&r, "HEAD", "/healthz", NULL, 0, NULL, NULL), 200);
+	free(r.body);
 }
 
 static void test_routes__draining_returns_503_with_retry_after(void)
@@ -259,6 +261,9 @@ static void test_pka__query_errors_name_the_parameter(void)
 	free(r.body);
 	CHECK_INT_EQ(call(&r, "GET", "/v1/pka", unknown, 2, NULL, NULL), 400);
 	CHECK(r.body && strstr(r.body, "'format'"));
+	free(r.body);
+	CHECK_INT_EQ(call(&r, "GET", "/metrics", unknown, 2, NULL, NULL), 400);
+	CHECK(r.body && strstr(r.body, "'smiles'"));
 	free(r.body);
 }
 
