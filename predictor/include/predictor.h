@@ -298,6 +298,8 @@ typedef struct pred_fit_options {
 	int search_falloff;  /* nonzero: outer 1-D search of the fall-off factor; default 1 */
 	double falloff_lo, falloff_hi; /* search interval; default 0.30 .. 0.60 */
 	double falloff_sd;   /* prior sd of the fall-off when the model gives none; default 0.1 */
+	double unc_quantile; /* class error stored as rmse_cv: this quantile of the |cv
+				residuals| (default 0.68, about one sd); 0: their rms */
 } pred_fit_options;
 
 void pred_fit_options_init(pred_fit_options *opt);
@@ -321,6 +323,8 @@ typedef struct pred_fit_summary {
 	size_t n_rows, n_used, n_unreadable, n_unmatched, n_trimmed, n_params;
 	double rmse_before, rmse_after, rmse_cv, falloff;
 	double resid_sd; /* the residual sd the priors were weighed against */
+	int folds;
+	double unc_quantile;
 } pred_fit_summary;
 void pred_fit_report_summary(const pred_fit_report *rep, pred_fit_summary *out);
 
