@@ -56,6 +56,7 @@ typedef struct eng_mol {
 	size_t n_sites;
 	int *dist;      /* n_sites x nat: bonds from each site's ionizable atom */
 	smarts_req elements; /* what the molecule holds, to skip hopeless patterns */
+	int *symclass;   /* symmetry class per atom (identity unless shared_rows) */
 	int shared_rows; /* two sites come from one row: they may be equivalent */
 	int *corr_start; /* CSR: first atoms matched by correction k in corr_atom[..] */
 	int *corr_atom;

@@ -225,6 +225,7 @@ void eng_free(eng_mol *e)
 	free(e->sites);
 	free(e->dist);
 	free(e->corr_start);
+	free(e->symclass);
 	free(e->corr_atom);
 	free(e->adj);
 	free(e->adj_start);
