@@ -520,18 +520,23 @@ static std::string write_canonical(obw_mol *m, obw_ctx *c)
 	return s;
 }
 
+/* A written SMILES handed out as a malloc'd copy; NULL with msg set when empty. */
+static char *smiles_out(const std::string &s, const char *what, char *msg, size_t msgn)
+{
+	if (s.empty()) {
+		set_msg(msg, msgn, "cannot write %s", what);
+		return nullptr;
+	}
+	char *p = dup_string(s);
+	if (!p)
+		set_msg(msg, msgn, "out of memory writing smiles");
+	return p;
+}
+
 extern "C" char *obw_mol_canonical(obw_mol *m, obw_ctx *c, char *msg, size_t msgn)
 {
 	try {
-		std::string s = write_canonical(m, c);
-		if (s.empty()) {
-			set_msg(msg, msgn, "cannot write canonical smiles");
-			return nullptr;
-		}
-		char *p = dup_string(s);
-		if (!p)
-			set_msg(msg, msgn, "out of memory writing smiles");
-		return p;
+		return smiles_out(write_canonical(m, c), "canonical smiles", msg, msgn);
 	} catch (...) {
 		set_msg(msg, msgn, "cannot write canonical smiles");
 		return nullptr;
@@ -649,14 +654,7 @@ extern "C" char *obw_mol_smiles_edited(obw_mol *m, obw_ctx *c, const int *atom, 
 		std::string s = canonical ? std::string() : edit_canonical(m, atom, dq, n);
 		if (s.empty())
 			s = write_edited(m, c, atom, dq, n, canonical != 0);
-		if (s.empty()) {
-			set_msg(msg, msgn, "cannot write smiles");
-			return nullptr;
-		}
-		char *p = dup_string(s);
-		if (!p)
-			set_msg(msg, msgn, "out of memory writing smiles");
-		return p;
+		return smiles_out(s, "smiles", msg, msgn);
 	} catch (...) {
 		set_msg(msg, msgn, "cannot write smiles");
 		return nullptr;
