@@ -299,7 +299,7 @@ static void walk_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 	}
 }
 
-static int corr_applies(const frag_corr *c, const frag_site *row)
+int eng_corr_applies(const frag_corr *c, const frag_site *row)
 {
 	if (!strcmp(c->sites, "*"))
 		return 1;
@@ -322,7 +322,7 @@ static void correction_effects(term_list *tl, const eng_mol *e, const pred_model
 	const frag_site *row = &m->sites[s->row];
 	for (size_t k = 0; k < m->n_corrs; k++) {
 		const frag_corr *c = &m->corrs[k];
-		if (!corr_applies(c, row))
+		if (!eng_corr_applies(c, row))
 			continue;
 		for (int i = e->corr_start[k]; i < e->corr_start[k + 1]; i++)
 			if (e->corr_atom[i] == s->atom) {

@@ -17,6 +17,7 @@ void pred_fit_options_init(pred_fit_options *opt)
 	opt->resid_sd = 0;
 	opt->huber = 1.0;
 	opt->trim = 3.0;
+	opt->unc_quantile = 0.68;
 	opt->search_falloff = 1;
 	opt->falloff_lo = 0.30;
 	opt->falloff_hi = 0.60;
@@ -77,7 +78,8 @@ static int grow(fit_data *d, size_t rows, size_t nnz)
 /* Appends the design of the matched site of one row; 1 when the row has no such site. */
 static int add_row(fit_data *d, const pred_result *r, const pred_fit_row *row, int folds)
 {
-	long s = pred_result_match(r, row->kind, row->pka_index);
+	long s = row->match_steps ? pred_result_match_steps(r, row->kind, row->pka_index)
+		       : pred_result_match(r, row->kind, row->pka_index);
 	pred_design des;
 	size_t base = d->n ? d->off[d->n] : 0;
 	if (s < 0)
@@ -100,8 +102,8 @@ static int add_row(fit_data *d, const pred_result *r, const pred_fit_row *row, i
 }
 
 /* Predicts every row with the model's current values and collects the designs. */
-static int collect(fit_data *d, pred_model *m, const pred_fit_row *rows, size_t n, int folds,
-		   pred_error *err)
+static int collect(fit_data *d, pred_model *m, const pred_fit_row *rows, size_t n,
+		   const pred_fit_options *opt, pred_error *err)
 {
 	pred_worker *w = NULL;
 	pred_options po;
@@ -117,7 +119,7 @@ static int collect(fit_data *d, pred_model *m, const pred_fit_row *rows, size_t 
 			d->n_unreadable++;
 			continue;
 		}
-		rc = add_row(d, r, &rows[i], folds);
+		rc = add_row(d, r, &rows[i], opt->folds);
 		d->n_unmatched += rc == 1;
 		rc = rc == 1 ? 0 : rc;
 		pred_result_free(r);
@@ -237,7 +239,7 @@ static int evaluate(fit_state *s, pred_model *m, double falloff, const pred_fit_
 	s->falloff = falloff;
 	if (m->p_falloff >= 0)
 		m->params[m->p_falloff].value = falloff;
-	if ((rc = collect(&s->d, m, rows, n, opt->folds, err)))
+	if ((rc = collect(&s->d, m, rows, n, opt, err)))
 		return rc;
 	if (opt->resid_sd <= 0)
 		estimate_resid_sd(opt, m, &s->d);
@@ -328,31 +330,64 @@ static double rmse_current(const pred_model *m, const fit_data *d)
 	return sw > 0 ? sqrt(s / sw) : NAN;
 }
 
-/* Marks the fitted columns, then stores per parameter the rows that used it and the cv rmse
- * of those rows (for a site class's parent: the class's cross-validated rmse). */
-static void store(pred_model *m, pred_fit_report *rep, const fit_state *s, const double *cv)
+static int by_value(const void *a, const void *b)
 {
+	double x = *(const double *)a, y = *(const double *)b;
+	return x < y ? -1 : x > y;
+}
+
+/* The class error of parameter p from the cv residuals of the kept rows that use it: the
+ * q-quantile of |residual| (q = 0.68: about one sd, robust to the long tail of the broad
+ * set), or their rms when q is 0. Returns the row count. */
+static int class_error(double *out, double *buf, const fit_state *s, const double *cv,
+		       size_t p, double q)
+{
+	double sse = 0;
+	int n = 0;
+	for (size_t i = 0; i < s->d.n; i++) {
+		if (s->d.w[i] <= 0)
+			continue;
+		for (size_t k = s->d.off[i]; k < s->d.off[i + 1]; k++)
+			if (s->d.param[k] == (int)p && s->d.feat[k] != 0) {
+				buf[n++] = fabs(cv[i]);
+				sse += cv[i] * cv[i];
+				break;
+			}
+	}
+	if (n == 0)
+		return 0;
+	if (q <= 0) {
+		*out = sqrt(sse / n);
+	} else {
+		qsort(buf, (size_t)n, sizeof *buf, by_value);
+		*out = buf[(size_t)(q * (n - 1) + 0.5)];
+	}
+	return n;
+}
+
+/* Marks the fitted columns, then stores per parameter the rows that used it and their
+ * cross-validated class error (for a site class's parent: the class's uncertainty). */
+static int store(pred_model *m, pred_fit_report *rep, const fit_state *s, const double *cv,
+		 double q)
+{
+	double *buf = malloc((s->d.n + 1) * sizeof *buf);
+	if (!buf)
+		return PRED_ENOMEM;
 	for (size_t j = 0; j < s->cols.n; j++)
 		rep->fitted[s->cols.param_of[j]] = 1;
 	for (size_t p = 0; p < m->n_params; p++) {
-		double sse = 0;
-		int n = 0;
-		for (size_t i = 0; i < s->d.n; i++)
-			for (size_t k = s->d.off[i]; k < s->d.off[i + 1]; k++)
-				if (s->d.param[k] == (int)p && s->d.feat[k] != 0 &&
-				    s->d.w[i] > 0) {
-					sse += cv[i] * cv[i];
-					n++;
-					break;
-				}
+		double e = 0;
+		int n = class_error(&e, buf, s, cv, p, q);
 		if (n == 0)
 			continue;
-		m->params[p].rmse_cv = sqrt(sse / n);
+		m->params[p].rmse_cv = e;
 		if (rep->fitted[p])
 			m->params[p].n = n;
 		else
-			rep->fitted[p] = 2; /* written for its class rmse only */
+			rep->fitted[p] = 2; /* written for its class error only */
 	}
+	free(buf);
+	return 0;
 }
 
 /* rms of the cross-validated residuals of the rows kept (weight > 0). */
@@ -431,7 +466,10 @@ static int fit_run(pred_fit_report *rep, pred_model *m, const pred_fit_row *rows
 	}
 	if ((rc = cross_validate(cv, m, &s, opt, err)))
 		goto done;
-	store(m, rep, &s, cv);
+	if ((rc = store(m, rep, &s, cv, opt->unc_quantile))) {
+		set_err(err, rc, "out of memory");
+		goto done;
+	}
 	if (search) {
 		m->params[m->p_falloff].n = (int)(s.d.n - s.n_trimmed);
 		if (m->params[m->p_falloff].prior_sd <= 0)
@@ -441,7 +479,7 @@ static int fit_run(pred_fit_report *rep, pred_model *m, const pred_fit_row *rows
 	rep->sum = (pred_fit_summary){n, s.d.n - s.n_trimmed, s.d.n_unreadable, s.d.n_unmatched,
 				      s.n_trimmed, s.cols.n + (size_t)search, rep->sum.rmse_before,
 				      rmse_current(m, &s.d), rms_kept(cv, &s.d), s.falloff,
-				      opt->resid_sd};
+				      opt->resid_sd, opt->folds, opt->unc_quantile};
 done:
 	if (rc && start)
 		load_values(m, start);

@@ -11,7 +11,8 @@ static int set_err(pred_error *err, int code, const char *what, const char *path
 {
 	if (err) {
 		err->code = code;
-		snprintf(err->msg, sizeof err->msg, "%s: %s", path, what);
+		/* a long path is cut, not overflowed */
+		snprintf(err->msg, sizeof err->msg, "%.160s: %.80s", path, what);
 	}
 	return code;
 }
@@ -94,6 +95,13 @@ static void write_header(FILE *f, const pred_fit_report *rep, const char *data_v
 	fprintf(f, "# params_version: fit-%s\n# data_version: %s\n", date, data_version);
 	fprintf(f, "# fitted on the train split only; derived from the reference data under data/ "
 		   "(sources and licences in data/README.md)\n");
+	if (s->unc_quantile > 0)
+		fprintf(f, "# rmse_cv: class error of the rows using the parameter from %d-fold "
+			   "cross-validation: the %.0f%% quantile of |residual|\n", s->folds,
+			100 * s->unc_quantile);
+	else
+		fprintf(f, "# rmse_cv: rms cross-validated residual (%d-fold) of the rows using the "
+			   "parameter\n", s->folds);
 	fprintf(f, "# fit: %zu rows offered, %zu used, %zu unreadable, %zu without a matching "
 		   "site, %zu trimmed (far off at the start); %zu parameters\n", s->n_rows,
 		s->n_used, s->n_unreadable, s->n_unmatched, s->n_trimmed, s->n_params);

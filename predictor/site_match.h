@@ -10,5 +10,8 @@
 /* Index into sites[] of the index-th (1-based) most acidic acid site (ascending pKa) or
  * most basic base site (descending pKa); ties go by array order; -1 when there is none. */
 long pred_site_rank(const pred_site *sites, size_t n, pred_kind kind, int index);
+/* The steps a measurement in water reports: the row kind's sites with pKa 0..14 and the
+ * other kind's with pKa 1..13 ranked together first, then the row kind's other sites. */
+long pred_site_rank_steps(const pred_site *sites, size_t n, pred_kind kind, int index);
 
 #endif

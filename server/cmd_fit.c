@@ -10,7 +10,7 @@
 #include "validate.h"
 
 typedef struct fopts {
-	const char *out, *fragments;
+	const char *out, *fragments, *match;
 	double tier_b_weight;
 	pred_fit_options fit;
 } fopts;
@@ -25,6 +25,7 @@ static void usage(FILE *f)
 		   "  --folds K            k of the cross-validated class rmse (default 5)\n"
 		   "  --tier-b-weight W    weight of rows graded tier B (default 0.25)\n"
 		   "  --no-falloff         keep the fall-off factor fixed\n"
+		   "  --match auto|kind|steps  how a row finds its site (see pkad validate --help)\n"
 		   "  --trim X             leave out rows off by more than X at the start\n"
 		   "                       (default 3; 0 keeps every row)\n"
 		   "  -h, --help           this text\n");
@@ -35,10 +36,11 @@ static int parse_opts(fopts *o, int argc, char **argv)
 	static const struct option lo[] = {
 		{"out", 1, 0, 'o'},	      {"fragments", 1, 0, 'F'}, {"folds", 1, 0, 'k'},
 		{"tier-b-weight", 1, 0, 'b'}, {"no-falloff", 0, 0, 'n'}, {"help", 0, 0, 'h'},
-		{"trim", 1, 0, 't'},
+		{"trim", 1, 0, 't'}, {"match", 1, 0, 'm'},
 		{0, 0, 0, 0}};
 	int c;
 	o->out = "fragments/params.tsv";
+	o->match = "auto";
 	o->fragments = NULL;
 	o->tier_b_weight = 0.25;
 	pred_fit_options_init(&o->fit);
@@ -51,12 +53,15 @@ static int parse_opts(fopts *o, int argc, char **argv)
 		case 'b': o->tier_b_weight = strtod(optarg, NULL); break;
 		case 'n': o->fit.search_falloff = 0; break;
 		case 't': o->fit.trim = strtod(optarg, NULL); break;
+		case 'm': o->match = optarg; break;
 		case 'h': usage(stdout); return 1;
 		default: usage(stderr); return 2;
 		}
 	}
 	if (o->fit.folds < 2 || o->fit.folds > 20 || !(o->tier_b_weight > 0))
 		return fprintf(stderr, "pkad fit: --folds must be 2..20, --tier-b-weight > 0\n"), 2;
+	if (srv_match_mode(o->match) < 0)
+		return fprintf(stderr, "pkad fit: --match must be auto, kind or steps\n"), 2;
 	if (optind >= argc)
 		return fprintf(stderr, "pkad fit: no reference CSV given\n"), usage(stderr), 2;
 	return 0;
@@ -68,7 +73,7 @@ static int add_file(pred_fit_row **rows, size_t *n, srv_csv **csv, srv_ref **ref
 {
 	size_t nr = 0, used = 0, len = strlen(version);
 	pred_fit_row *nrows;
-	int rc = srv_csv_load(csv, path, e);
+	int rc = srv_csv_load(csv, path, e), steps;
 	if (!rc)
 		rc = srv_ref_read(refs, &nr, *csv, e);
 	if (!rc && srv_csv_column(*csv, "split") < 0) {
@@ -77,6 +82,7 @@ static int add_file(pred_fit_row **rows, size_t *n, srv_csv **csv, srv_ref **ref
 	}
 	if (rc)
 		return rc;
+	steps = srv_match_steps(srv_match_mode(o->match), *csv);
 	if (!(nrows = realloc(*rows, (*n + nr + 1) * sizeof *nrows)))
 		return snprintf(e->msg, sizeof e->msg, "out of memory"), PRED_ENOMEM;
 	*rows = nrows;
@@ -85,7 +91,7 @@ static int add_file(pred_fit_row **rows, size_t *n, srv_csv **csv, srv_ref **ref
 		if (strcmp(r->split, "train"))
 			continue;
 		nrows[(*n)++] = (pred_fit_row){r->smiles, r->kind, r->pka_index, r->pka,
-					       strcmp(r->tier, "B") ? 1.0 : o->tier_b_weight};
+					       strcmp(r->tier, "B") ? 1.0 : o->tier_b_weight, steps};
 		used++;
 	}
 	if (len < 200) {

@@ -12,7 +12,7 @@
 #include "validate.h"
 
 typedef struct vopts {
-	const char *split, *plot, *kind, *tier, *format, *fragments, *title;
+	const char *split, *plot, *kind, *tier, *format, *fragments, *title, *match;
 	size_t worst;
 } vopts;
 
@@ -32,6 +32,9 @@ static void usage(FILE *f)
 		   "  --tier T                 rows whose tier column is T (files with one)\n"
 		   "  --format text|json|markdown   report format (default text)\n"
 		   "  --worst N                list the N worst rows (default 20)\n"
+		   "  --match auto|kind|steps  kind: the i-th site of the row's kind; steps: ranked\n"
+		   "                           with the other kind's sites of pKa 1..13; auto\n"
+		   "                           (default): steps for files without site_class\n"
 		   "  --plot FILE.svg          write a parity plot\n"
 		   "  --title TEXT             title of the plot and the Markdown section\n"
 		   "  --fragments DIR          load the model from DIR\n"
@@ -44,9 +47,9 @@ static int parse_opts(vopts *o, int argc, char **argv)
 		{"split", 1, 0, 's'}, {"plot", 1, 0, 'p'},	{"kind", 1, 0, 'k'},
 		{"tier", 1, 0, 't'},  {"format", 1, 0, 'f'},	{"worst", 1, 0, 'w'},
 		{"title", 1, 0, 'T'}, {"fragments", 1, 0, 'F'}, {"help", 0, 0, 'h'},
-		{0, 0, 0, 0}};
+		{"match", 1, 0, 'm'}, {0, 0, 0, 0}};
 	int c;
-	*o = (vopts){"all", NULL, NULL, NULL, "text", NULL, "pkad validation", 20};
+	*o = (vopts){"all", NULL, NULL, NULL, "text", NULL, "pkad validation", "auto", 20};
 	optind = 1;
 	while ((c = getopt_long(argc, argv, "h", lo, NULL)) != -1) {
 		switch (c) {
@@ -58,12 +61,15 @@ static int parse_opts(vopts *o, int argc, char **argv)
 		case 'w': o->worst = (size_t)strtoul(optarg, NULL, 10); break;
 		case 'T': o->title = optarg; break;
 		case 'F': o->fragments = optarg; break;
+		case 'm': o->match = optarg; break;
 		case 'h': usage(stdout); return 1;
 		default: usage(stderr); return 2;
 		}
 	}
 	if (strcmp(o->split, "test") && strcmp(o->split, "train") && strcmp(o->split, "all"))
 		return fprintf(stderr, "pkad validate: --split must be test, train or all\n"), 2;
+	if (srv_match_mode(o->match) < 0)
+		return fprintf(stderr, "pkad validate: --match must be auto, kind or steps\n"), 2;
 	if (o->kind && strcmp(o->kind, "acid") && strcmp(o->kind, "base"))
 		return fprintf(stderr, "pkad validate: --kind must be acid or base\n"), 2;
 	if (strcmp(o->format, "text") && strcmp(o->format, "json") && strcmp(o->format, "markdown"))
@@ -132,7 +138,8 @@ static int run(const vopts *o, char **files, int nf)
 	if (!rc && !(rc = pred_global_init(&e)) && !(rc = pred_model_load(&m, o->fragments, &e)))
 		rc = pred_worker_new(&w, m, &e);
 	for (int i = 0; !rc && i < nf; i++)
-		if ((rc = srv_validation_add(&v, w, vf[i].rows, vf[i].n, files[i])))
+		if ((rc = srv_validation_add(&v, w, vf[i].rows, vf[i].n, files[i],
+					     srv_match_steps(srv_match_mode(o->match), vf[i].csv))))
 			snprintf(e.msg, sizeof e.msg, "out of memory");
 	if (rc)
 		fprintf(stderr, "pkad validate: %s\n", e.msg[0] ? e.msg : "out of memory");

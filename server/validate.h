@@ -52,6 +52,15 @@ typedef struct srv_ref {
  *  *out is malloc'd (free()), *n its length. */
 int srv_ref_read(srv_ref **out, size_t *n, const srv_csv *c, pred_error *err);
 
+/** Match modes: SRV_MATCH_AUTO uses steps for files without a site_class column
+ *  (compilation rows: kind is the book, pka_index numbers the molecule's measured steps)
+ *  and kind for files with one (kind is the site's kind). */
+enum { SRV_MATCH_AUTO = 0, SRV_MATCH_KIND = 1, SRV_MATCH_STEPS = 2 };
+/** Mode of "auto", "kind" or "steps"; -1 for anything else. */
+int srv_match_mode(const char *name);
+/** Whether rows of this file are matched with pred_result_match_steps under `mode`. */
+int srv_match_steps(int mode, const srv_csv *c);
+
 /* ---- statistics ------------------------------------------------------------------------ */
 
 /** Running figures of one set of rows. */
@@ -121,10 +130,11 @@ typedef struct srv_validation {
 	size_t n_unreadable;
 } srv_validation;
 
-/** Predicts the rows (all of them; filter before) and scores them. Returns 0 or
- *  PRED_ENOMEM; unreadable SMILES are recorded, not errors. */
+/** Predicts the rows (all of them; filter before) and scores them; match_steps selects
+ *  pred_result_match_steps over pred_result_match. Returns 0 or PRED_ENOMEM; unreadable
+ *  SMILES are recorded, not errors. */
 int srv_validation_add(srv_validation *v, pred_worker *w, const srv_ref *rows, size_t n,
-		       const char *file);
+		       const char *file, int match_steps);
 void srv_validation_clear(srv_validation *v);
 /** Indices of the scored rows sorted by |residual|, largest first; malloc'd (*n of them). */
 size_t *srv_validation_worst(const srv_validation *v, size_t *n);

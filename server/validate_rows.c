@@ -116,3 +116,19 @@ int srv_ref_read(srv_ref **out, size_t *n, const srv_csv *c, pred_error *err)
 	*n = nr;
 	return 0;
 }
+
+int srv_match_mode(const char *name)
+{
+	if (!strcmp(name, "auto"))
+		return SRV_MATCH_AUTO;
+	if (!strcmp(name, "kind"))
+		return SRV_MATCH_KIND;
+	return strcmp(name, "steps") ? -1 : SRV_MATCH_STEPS;
+}
+
+int srv_match_steps(int mode, const srv_csv *c)
+{
+	if (mode == SRV_MATCH_AUTO)
+		return srv_csv_column(c, "site_class") < 0;
+	return mode == SRV_MATCH_STEPS;
+}

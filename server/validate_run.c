@@ -23,12 +23,36 @@ static int has_warning(const pred_result *r, const char *word)
 	return 0;
 }
 
-/* A first reading of why a prediction is off, from what the model itself reports:
- * the input tautomer was changed, a substituent had no table entry, the site class
- * differs from the reference's, or none of these (data error or a missing correction). */
+/* Another site predicted within 1 unit of the experimental value: the value probably
+ * belongs to that site (step numbering of the compilation, or the model's site order). */
+static const pred_site *near_other(const pred_result *r, const pred_site *s, double exp)
+{
+	const pred_site *best = NULL;
+	for (size_t i = 0; i < pred_result_site_count(r); i++) {
+		const pred_site *o = pred_result_site(r, i);
+		if (o != s && fabs(o->pka - exp) < 1.0 &&
+		    (!best || fabs(o->pka - exp) < fabs(best->pka - exp)))
+			best = o;
+	}
+	return best;
+}
+
+static size_t add_flag(srv_eval *e, size_t n, const char *text)
+{
+	if (n < sizeof e->diag)
+		n += (size_t)snprintf(e->diag + n, sizeof e->diag - n, "%s; ", text);
+	return n;
+}
+
+/* A first reading of why a prediction is off, from what the model itself reports: the
+ * input tautomer was changed, a substituent had no table entry, the site class differs from
+ * the reference's, another site would fit the value; else a missing correction or a data
+ * error. Only rows off by more than 1 unit get a diagnosis. */
 static void diagnose(srv_eval *e, const pred_result *r, const pred_site *s)
 {
 	const char *cls = e->ref->site_class;
+	const pred_site *o;
+	char buf[96];
 	size_t n = 0;
 	e->diag[0] = '\0';
 	if (!s) {
@@ -36,18 +60,24 @@ static void diagnose(srv_eval *e, const pred_result *r, const pred_site *s)
 			 e->ref->kind == PRED_ACID ? "acid" : "base");
 		return;
 	}
+	if (fabs(s->pka - e->ref->pka) <= 1.0)
+		return;
 	if (has_warning(r, "tautomer"))
-		n += (size_t)snprintf(e->diag + n, sizeof e->diag - n, "tautomer changed; ");
-	if (has_term(s, "generic_substituent") && n < sizeof e->diag)
-		n += (size_t)snprintf(e->diag + n, sizeof e->diag - n,
-				      "missing substituent (generic estimate); ");
-	if (cls && *cls && strcmp(cls, s->group) && n < sizeof e->diag)
-		n += (size_t)snprintf(e->diag + n, sizeof e->diag - n, "matched a %s site; ",
-				      s->group);
+		n = add_flag(e, n, "tautomer changed");
+	if (has_term(s, "generic_substituent"))
+		n = add_flag(e, n, "missing substituent (generic estimate)");
+	if (cls && *cls && strcmp(cls, s->group)) {
+		snprintf(buf, sizeof buf, "matched a %s site", s->group);
+		n = add_flag(e, n, buf);
+	}
+	if ((o = near_other(r, s, e->ref->pka))) {
+		snprintf(buf, sizeof buf, "a %s site is predicted at %.2f (numbering or site order)",
+			 o->group, o->pka);
+		n = add_flag(e, n, buf);
+	}
 	if (n == 0)
-		snprintf(e->diag, sizeof e->diag, "no flag raised: missing correction or data "
-						  "error");
-	else if (n < sizeof e->diag)
+		n = add_flag(e, n, "no flag raised: missing correction or data error");
+	if (n >= 2 && n - 2 < sizeof e->diag)
 		e->diag[n - 2] = '\0';
 }
 
@@ -72,7 +102,8 @@ static void class_name(srv_eval *e, const pred_site *s)
 	snprintf(e->cls, sizeof e->cls, "%s", c);
 }
 
-static int score_row(srv_validation *v, srv_eval *e, pred_worker *w, pred_options *po)
+static int score_row(srv_validation *v, srv_eval *e, pred_worker *w, pred_options *po,
+		     int steps)
 {
 	pred_result *r = NULL;
 	pred_error err = {0, ""};
@@ -89,7 +120,8 @@ static int score_row(srv_validation *v, srv_eval *e, pred_worker *w, pred_option
 		return (cs = srv_class_stat(&v->classes, e->cls)) ? (srv_stat_add_missing(cs), 0)
 								  : PRED_ENOMEM;
 	}
-	k = pred_result_match(r, e->ref->kind, e->ref->pka_index);
+	k = steps ? pred_result_match_steps(r, e->ref->kind, e->ref->pka_index)
+		  : pred_result_match(r, e->ref->kind, e->ref->pka_index);
 	s = k >= 0 ? pred_result_site(r, (size_t)k) : NULL;
 	class_name(e, s);
 	diagnose(e, r, s);
@@ -113,7 +145,7 @@ static int score_row(srv_validation *v, srv_eval *e, pred_worker *w, pred_option
 }
 
 int srv_validation_add(srv_validation *v, pred_worker *w, const srv_ref *rows, size_t n,
-		       const char *file)
+		       const char *file, int match_steps)
 {
 	pred_options po;
 	pred_options_init(&po);
@@ -124,7 +156,7 @@ int srv_validation_add(srv_validation *v, pred_worker *w, const srv_ref *rows, s
 			return PRED_ENOMEM;
 		e->ref = &rows[i];
 		e->file = file;
-		if ((rc = score_row(v, e, w, &po)))
+		if ((rc = score_row(v, e, w, &po, match_steps)))
 			return rc;
 	}
 	return 0;

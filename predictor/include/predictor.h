@@ -269,6 +269,14 @@ const char *pred_deprotonation_warning(const pred_deprotonation *d, size_t i);
  *  index is 1-based. Returns -1 when the result has fewer sites of that kind. Thread-safe. */
 long pred_result_match(const pred_result *r, pred_kind kind, int index);
 
+/** Like pred_result_match, but numbers the steps of the molecule as the compilations do:
+ *  the sites of the row's kind with pKa in 0..14 and of the other kind in 1..13 ranked
+ *  together first (a base book's second
+ *  step of an amino acid is its COOH, its first step of a 3-hydroxypyridine the OH), then
+ *  the sites of the row's kind outside that window (an amide measured by an acidity
+ *  function). Returns -1 when there are too few. Thread-safe. */
+long pred_result_match_steps(const pred_result *r, pred_kind kind, int index);
+
 /** One experimental value used for fitting; strings are borrowed from the caller. */
 typedef struct pred_fit_row {
 	const char *smiles;
@@ -276,6 +284,7 @@ typedef struct pred_fit_row {
 	int pka_index;  /* 1-based, see pred_result_match */
 	double pka;
 	double weight;  /* relative weight, > 0 (e.g. lower for less reliable grades) */
+	int match_steps; /* nonzero: the site is found with pred_result_match_steps */
 } pred_fit_row;
 
 /** Options of pred_fit; pred_fit_options_init fills the defaults. */
@@ -289,6 +298,8 @@ typedef struct pred_fit_options {
 	int search_falloff;  /* nonzero: outer 1-D search of the fall-off factor; default 1 */
 	double falloff_lo, falloff_hi; /* search interval; default 0.30 .. 0.60 */
 	double falloff_sd;   /* prior sd of the fall-off when the model gives none; default 0.1 */
+	double unc_quantile; /* class error stored as rmse_cv: this quantile of the |cv
+				residuals| (default 0.68, about one sd); 0: their rms */
 } pred_fit_options;
 
 void pred_fit_options_init(pred_fit_options *opt);
@@ -312,6 +323,8 @@ typedef struct pred_fit_summary {
 	size_t n_rows, n_used, n_unreadable, n_unmatched, n_trimmed, n_params;
 	double rmse_before, rmse_after, rmse_cv, falloff;
 	double resid_sd; /* the residual sd the priors were weighed against */
+	int folds;
+	double unc_quantile;
 } pred_fit_summary;
 void pred_fit_report_summary(const pred_fit_report *rep, pred_fit_summary *out);
 

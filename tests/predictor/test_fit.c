@@ -92,6 +92,39 @@ static void test_fit__ties_rank_in_site_order(void)
 	CHECK_INT_EQ(pred_site_rank(s, 3, PRED_ACID, 3), 2);
 }
 
+/* Perrin numbers the steps of a glycine cation amine (9.78) then COOH (2.35), and those of
+ * a 3-hydroxypyridine OH (8.7) then ring N (4.9) (data/iupac-pka.csv, perrin rows). */
+static void test_fit__steps_rank_both_kinds_in_water_window(void)
+{
+	pred_site gly[3] = {{.kind = PRED_BASE, .pka = 9.6}, {.kind = PRED_ACID, .pka = 2.4},
+			    {.kind = PRED_BASE, .pka = -9.0}};
+	pred_site hyp[2] = {{.kind = PRED_ACID, .pka = 8.6}, {.kind = PRED_BASE, .pka = 4.8}};
+	pred_site ace[2] = {{.kind = PRED_ACID, .pka = 4.8}, {.kind = PRED_BASE, .pka = -6.0}};
+	CHECK_INT_EQ(pred_site_rank_steps(gly, 3, PRED_BASE, 1), 0);
+	CHECK_INT_EQ(pred_site_rank_steps(gly, 3, PRED_BASE, 2), 1);
+	CHECK_INT_EQ(pred_site_rank(gly, 3, PRED_BASE, 2), 2);
+	CHECK_INT_EQ(pred_site_rank_steps(gly, 3, PRED_ACID, 2), 0);
+	CHECK_INT_EQ(pred_site_rank_steps(hyp, 2, PRED_BASE, 1), 0);
+	CHECK_INT_EQ(pred_site_rank_steps(hyp, 2, PRED_BASE, 2), 1);
+	CHECK_INT_EQ(pred_site_rank_steps(ace, 2, PRED_ACID, 1), 0);
+	CHECK_INT_EQ(pred_site_rank_steps(ace, 2, PRED_ACID, 2), -1);
+}
+
+/* A naphtholsulfonic acid's first measured step is the OH: the sulfonic acid is fully ionised
+ * in water (Serjeant & Dempsey rows in data/iupac-pka.csv); acetamide's only measured base
+ * step is O-protonation below 0 (Perrin, handbook-bases.csv -0.63). */
+static void test_fit__steps_put_unmeasurable_sites_last(void)
+{
+	pred_site nso[2] = {{.kind = PRED_ACID, .pka = -1.5}, {.kind = PRED_ACID, .pka = 9.3}};
+	pred_site amd[2] = {{.kind = PRED_ACID, .pka = 15.1}, {.kind = PRED_BASE, .pka = -0.5}};
+	CHECK_INT_EQ(pred_site_rank_steps(nso, 2, PRED_ACID, 1), 1);
+	CHECK_INT_EQ(pred_site_rank_steps(nso, 2, PRED_ACID, 2), 0);
+	CHECK_INT_EQ(pred_site_rank(nso, 2, PRED_ACID, 1), 0);
+	CHECK_INT_EQ(pred_site_rank_steps(amd, 2, PRED_BASE, 1), 1);
+	CHECK_INT_EQ(pred_site_rank_steps(amd, 2, PRED_BASE, 2), -1);
+	CHECK_INT_EQ(pred_site_rank_steps(amd, 2, PRED_ACID, 1), 0);
+}
+
 static void check_against_closed_form(double rho_prior, double rho_sd)
 {
 	pred_model *m = toy_model(rho_prior, rho_sd);
@@ -285,7 +318,7 @@ static void test_fit__recovers_a_shifted_parent(void)
 		pred_predict(&r, w, fit_smiles[i], PRED_FMT_SMILES, NULL, NULL);
 		k = r ? pred_result_match(r, PRED_ACID, 1) : -1;
 		ys[i] = k >= 0 ? pred_result_site(r, (size_t)k)->pka : 0;
-		rows[i] = (pred_fit_row){fit_smiles[i], PRED_ACID, 1, ys[i], 1.0};
+		rows[i] = (pred_fit_row){fit_smiles[i], PRED_ACID, 1, ys[i], 1.0, 0};
 		pred_result_free(r);
 	}
 	pred_worker_free(w);
@@ -313,6 +346,8 @@ int main(void)
 {
 	RUN(test_fit__ranks_sites_by_acidity_and_basicity);
 	RUN(test_fit__ties_rank_in_site_order);
+	RUN(test_fit__steps_rank_both_kinds_in_water_window);
+	RUN(test_fit__steps_put_unmeasurable_sites_last);
 	RUN(test_fit__solver_equals_closed_form_ridge);
 	RUN(test_fit__recovers_hammett_benzoic_series);
 	RUN(test_fit__huber_weights_resist_an_outlier);

@@ -109,6 +109,22 @@ static void test_refs__reads_optional_columns(void)
 	srv_csv_free(c);
 }
 
+static void test_refs__auto_match_follows_the_site_class_column(void)
+{
+	pred_error e = {0, ""};
+	srv_csv *core = parse("smiles,pka,kind,site_class\nO,15.7,acid,water_like\n", &e);
+	srv_csv *book = parse("smiles,pka,kind,book\nO,15.7,acid,serjeant\n", &e);
+	CHECK_INT_EQ(srv_match_mode("auto"), SRV_MATCH_AUTO);
+	CHECK_INT_EQ(srv_match_mode("steps"), SRV_MATCH_STEPS);
+	CHECK_INT_EQ(srv_match_mode("nearest"), -1);
+	CHECK_INT_EQ(srv_match_steps(SRV_MATCH_AUTO, core), 0);
+	CHECK_INT_EQ(srv_match_steps(SRV_MATCH_AUTO, book), 1);
+	CHECK_INT_EQ(srv_match_steps(SRV_MATCH_KIND, book), 0);
+	CHECK_INT_EQ(srv_match_steps(SRV_MATCH_STEPS, core), 1);
+	srv_csv_free(core);
+	srv_csv_free(book);
+}
+
 static void test_stats__figures_match_hand_computation(void)
 {
 	srv_stat s = {0};
@@ -176,6 +192,7 @@ int main(void)
 	RUN(test_csv__unterminated_quote_is_an_error);
 	RUN(test_refs__bad_number_names_line_and_column);
 	RUN(test_refs__reads_optional_columns);
+	RUN(test_refs__auto_match_follows_the_site_class_column);
 	RUN(test_stats__figures_match_hand_computation);
 	RUN(test_stats__classes_keep_first_appearance_order);
 	RUN(test_plot__svg_has_points_band_line_and_legend);
