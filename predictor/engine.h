@@ -13,6 +13,7 @@
 /* Elements a SMARTS pattern needs (bit z: atomic number z), by aromaticity. */
 typedef struct smarts_req {
 	uint64_t aliph, arom, any;
+	uint64_t h_aliph, h_arom; /* first atom: an atom of this element carrying hydrogen */
 } smarts_req;
 
 void smarts_requirements(smarts_req *r, const char *smarts);
@@ -28,6 +29,7 @@ struct pred_worker {
 	obw_pattern **subst_pat; /* one per m->substs row */
 	obw_pattern **corr_pat;  /* one per m->corrs row */
 	smarts_req *site_req, *subst_req, *corr_req;
+	unsigned char *corr_ok; /* corr_ok[k * n_sites + r]: correction k applies to site row r */
 };
 
 /* The perceived molecule: graph, substituent claims and the sites found. */
@@ -54,6 +56,7 @@ typedef struct eng_mol {
 	size_t n_sites;
 	int *dist;      /* n_sites x nat: bonds from each site's ionizable atom */
 	smarts_req elements; /* what the molecule holds, to skip hopeless patterns */
+	int *symclass;   /* symmetry class per atom (identity unless shared_rows) */
 	int shared_rows; /* two sites come from one row: they may be equivalent */
 	int *corr_start; /* CSR: first atoms matched by correction k in corr_atom[..] */
 	int *corr_atom;

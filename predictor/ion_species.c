@@ -21,8 +21,10 @@ typedef struct candidate {
 
 static int cmp_candidate(const void *a, const void *b)
 {
-	double x = ((const candidate *)a)->fraction, y = ((const candidate *)b)->fraction;
-	return (x < y) - (x > y);
+	const candidate *p = a, *q = b;
+	if (p->fraction != q->fraction)
+		return (p->fraction < q->fraction) - (p->fraction > q->fraction);
+	return (p->state > q->state) - (p->state < q->state);
 }
 
 /* Whether site i is charged in the species built from cluster state s: cluster sites from
@@ -52,8 +54,10 @@ static char *species_smiles(pred_result *r, const ion_work *w, const ion_input *
 		atom[n] = in->site_mol_atom[i];
 		dq[n++] = w->q_on[i];
 	}
+	/* with equivalent sites the representative is written canonically, so that the name of
+	 * the species does not depend on which equivalent atom its state happens to use */
 	if (!rc && !(smi = obw_mol_smiles_edited(in->mol, in->ctx, atom, dq, n,
-						 in->canonical_species, msg, msgn)))
+						 in->symclass != NULL, msg, msgn)))
 		rc = PRED_EINTERNAL;
 	if (!rc && !(out = res_strdup(r, smi)))
 		rc = PRED_ENOMEM;
@@ -63,6 +67,34 @@ static char *species_smiles(pred_result *r, const ion_work *w, const ion_input *
 	free(atom);
 	free(dq);
 	return out;
+}
+
+/* Key of a microstate up to symmetry: the sorted symmetry classes of its ionised sites. */
+static char *state_key(pred_result *r, const ion_work *w, const ion_input *in, size_t s,
+		       const unsigned char *is_extra)
+{
+	int *cls = malloc((w->n + 1) * sizeof *cls);
+	if (!cls)
+		return NULL;
+	size_t n = 0;
+	for (size_t i = 0; i < w->n; i++)
+		if (site_on(w, s, i, is_extra))
+			cls[n++] = 2 * in->symclass[in->site_mol_atom[i]] + (w->q_on[i] > 0);
+	for (size_t i = 1; i < n; i++)
+		for (size_t j = i; j > 0 && cls[j - 1] > cls[j]; j--) {
+			int t = cls[j];
+			cls[j] = cls[j - 1];
+			cls[j - 1] = t;
+		}
+	char *key = res_alloc(r, 12 * n + 2);
+	if (key) {
+		size_t used = 0;
+		key[used++] = 'k';
+		for (size_t i = 0; i < n; i++)
+			used += (size_t)snprintf(key + used, 12, ",%d", cls[i]);
+	}
+	free(cls);
+	return key;
 }
 
 /* Without a molecule (tests of the model on hand-built sites) a species is written as one
@@ -123,9 +155,13 @@ static size_t merge_same(candidate *cand, size_t nc)
 		while (j < out && !(cand[i].smiles && cand[j].smiles &&
 		                    !strcmp(cand[i].smiles, cand[j].smiles)))
 			j++;
-		if (j < out)
+		if (j < out) {
 			cand[j].fraction += cand[i].fraction;
-		else
+			/* the representative (whose SMILES is written) is the lowest state number,
+			 * whatever order rounding gave equal fractions */
+			if (cand[i].state < cand[j].state)
+				cand[j].state = cand[i].state;
+		} else
 			cand[out++] = cand[i];
 	}
 	qsort(cand, out, sizeof *cand, cmp_candidate);
@@ -155,20 +191,28 @@ int ion_species_fill(pred_result *r, const ion_work *w, const ion_input *in, pre
 	for (size_t x = 0; x < w->nx; x++)
 		is_extra[w->ex[x]] = 1;
 	size_t nc = pick_states(w, cand);
-	/* Without equivalent sites no two microstates are the same species, so only those that
-	 * will be reported need a SMILES (the list is most abundant first). */
-	if (in && in->mol && !in->canonical_species)
-		while (nc > 1 && cand[nc - 1].fraction < ION_REPORT_MIN)
-			nc--;
+	int by_symmetry = in && in->mol && in->symclass;
 	for (size_t i = 0; i < nc; i++) {
 		cand[i].charge = state_charge(w, cand[i].state, is_extra);
-		if (!in || !in->mol) {
-			if (!(cand[i].smiles = state_string(r, w, cand[i].state, is_extra)))
-				return PRED_ENOMEM;
-			continue;
-		}
-		if (!(cand[i].smiles = species_smiles(r, w, in, cand[i].state, is_extra, err)))
-			return err ? err->code : PRED_EINTERNAL;
+		cand[i].smiles = by_symmetry ? state_key(r, w, in, cand[i].state, is_extra)
+					     : NULL;
+		if (!in || !in->mol)
+			cand[i].smiles = state_string(r, w, cand[i].state, is_extra);
+		if ((by_symmetry || !in || !in->mol) && !cand[i].smiles)
+			return PRED_ENOMEM;
 	}
-	return write_species(r, cand, merge_same(cand, nc));
+	/* equivalent microstates are one species; then only those reported need a SMILES
+	 * (the list is most abundant first) */
+	nc = merge_same(cand, nc);
+	if (in && in->mol)
+		for (size_t i = 0; i < nc; i++) {
+			if (i > 0 && cand[i].fraction < ION_REPORT_MIN) {
+				nc = i;
+				break;
+			}
+			cand[i].smiles = species_smiles(r, w, in, cand[i].state, is_extra, err);
+			if (!cand[i].smiles)
+				return err ? err->code : PRED_EINTERNAL;
+		}
+	return write_species(r, cand, nc);
 }

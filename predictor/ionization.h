@@ -23,9 +23,9 @@ typedef struct ion_input {
 	const int *site_mol_atom;
 	const int *dist;
 	size_t nat;
-	/* nonzero when some sites are symmetry-equivalent: species SMILES are then canonical so
-	 * that equivalent microstates merge; otherwise they are written in input order */
-	int canonical_species;
+	/* symmetry class of every atom when some sites may be equivalent (else NULL):
+	 * microstates whose ionised sites have the same classes are one species */
+	const int *symclass;
 } ion_input;
 
 /* Fills r->macro, r->ph, r->charge, r->species, r->has_pi/pi, r->approximate and, when

@@ -230,10 +230,13 @@ static int neutralise(obw_mol *m, norm_report *rep, pred_error *err)
 int norm_molecule(obw_mol *m, obw_ctx *c, norm_report *rep, pred_error *err)
 {
 	char msg[256] = "";
+	size_t before = rep->n;
 	int rc = strip_fragments(m, c, rep, err);
 	if (!rc)
 		rc = neutralise(m, rep, err);
-	if (!rc && obw_mol_refresh(m, msg, sizeof msg))
+	/* every change is reported, so an unchanged report means nothing to re-perceive */
+	if (!rc && (rep->n != before || rep->n >= NORM_WARN_MAX - 1) &&
+	    obw_mol_refresh(m, msg, sizeof msg))
 		rc = fail(err, PRED_EINTERNAL, "%s", msg);
 	return rc;
 }

@@ -114,10 +114,10 @@ static int find_sites(eng_mol *e, const pred_worker *w)
 }
 
 /* A correction is matched only when the molecule has a site it applies to. */
-static int corr_wanted(const eng_mol *e, const pred_model *m, const frag_corr *c)
+static int corr_wanted(const eng_mol *e, const pred_worker *w, size_t k)
 {
 	for (size_t i = 0; i < e->n_sites; i++)
-		if (eng_corr_applies(c, &m->sites[e->sites[i].row]))
+		if (w->corr_ok[k * w->m->n_sites + (size_t)e->sites[i].row])
 			return 1;
 	return 0;
 }
@@ -133,7 +133,7 @@ static int match_corrections(eng_mol *e, const pred_worker *w)
 	for (size_t k = 0; k < m->n_corrs; k++) {
 		e->corr_start[k + 1] = (int)used;
 		if (!smarts_may_match(&w->corr_req[k], &e->elements) ||
-		    !corr_wanted(e, m, &m->corrs[k]))
+		    !corr_wanted(e, w, k))
 			continue;
 		int *hits = NULL;
 		int n = obw_pattern_match(&hits, w->corr_pat[k], e->mol);
@@ -201,13 +201,14 @@ int eng_perceive(eng_mol *e, pred_worker *w, obw_mol *mol, pred_error *err)
 	e->group = malloc((e->nat + 1) * sizeof *e->group);
 	e->group_root = malloc((e->nat + 1) * sizeof *e->group_root);
 	int rc = e->group && e->group_root ? build_graph(e) : PRED_ENOMEM;
-	if (!rc)
-		rc = claim_groups(e, w);
+	/* sites first: a molecule without one needs no substituent perception */
 	if (!rc)
 		rc = find_sites(e, w);
+	if (!rc && e->n_sites)
+		rc = claim_groups(e, w);
 	if (!rc)
 		rc = site_distances(e);
-	if (!rc)
+	if (!rc && e->n_sites)
 		rc = match_corrections(e, w);
 	if (rc && err) {
 		err->code = rc;
@@ -224,6 +225,7 @@ void eng_free(eng_mol *e)
 	free(e->sites);
 	free(e->dist);
 	free(e->corr_start);
+	free(e->symclass);
 	free(e->corr_atom);
 	free(e->adj);
 	free(e->adj_start);

@@ -208,7 +208,7 @@ static int build_sites(pred_result *r, eng_mol *e, pred_worker *w, pred_error *e
 	size_t n = e->n_sites;
 	term_list *tls = calloc(n + 1, sizeof *tls);
 	double *micro = calloc(n + 1, sizeof *micro);
-	int *sym = calloc(e->nat + 1, sizeof *sym);
+	int *sym = e->symclass = calloc(e->nat + 1, sizeof *sym);
 	r->sites = res_alloc(r, (n + 1) * sizeof *r->sites);
 	r->design = res_alloc(r, (n + 1) * sizeof *r->design);
 	r->micro = res_alloc(r, (n + 1) * sizeof *r->micro);
@@ -234,7 +234,6 @@ static int build_sites(pred_result *r, eng_mol *e, pred_worker *w, pred_error *e
 	r->n_sites = rc ? 0 : n;
 	free(tls);
 	free(micro);
-	free(sym);
 	if (rc)
 		fail(err, rc, "could not build the sites");
 	return rc;
@@ -275,7 +274,8 @@ static int finish(pred_result *r, eng_mol *e, pred_worker *w, const pred_options
 		return PRED_ENOMEM;
 	for (size_t i = 0; i < e->n_sites; i++)
 		site_atoms[i] = e->sites[i].atom;
-	ion_input in = {e->mol, w->ctx, site_atoms, e->dist, e->nat, e->shared_rows};
+	ion_input in = {e->mol, w->ctx, site_atoms, e->dist, e->nat,
+			e->shared_rows ? e->symclass : NULL};
 	int rc = ionization_fill(r, w->m, &in, opt, err);
 	free(site_atoms);
 	if (!rc && r->n_sites == 0)

@@ -93,9 +93,44 @@ static const char *bracket(smarts_req *r, const char *p)
 	return close + 1;
 }
 
+/* Nonzero when a conjunct such as "OX2H1" or "nH" asks for at least one hydrogen. */
+static int needs_h(const char *p, const char *end)
+{
+	if (memchr(p, ',', (size_t)(end - p)) || memchr(p, '!', (size_t)(end - p)))
+		return 0;
+	for (const char *q = p + 1; q < end; q++)
+		if (*q == 'H' && !(q + 1 < end && islower((unsigned char)q[1])))
+			return !(q + 1 < end && q[1] == '0');
+	return 0;
+}
+
+/* The first atom of an acid pattern usually carries its proton ([OX2H1], [nH1]): record
+ * which element must then hold hydrogen somewhere in the molecule. */
+static void first_atom_h(smarts_req *r, const char *smarts)
+{
+	if (smarts[0] != '[')
+		return;
+	const char *close = bracket_end(smarts + 1);
+	if (!close || memchr(smarts, '$', (size_t)(close - smarts)))
+		return;
+	for (const char *q = smarts + 1; q < close;) {
+		const char *semi = memchr(q, ';', (size_t)(close - q));
+		const char *end = semi ? semi : close;
+		smarts_req one;
+		memset(&one, 0, sizeof one);
+		bracket_conjunct(&one, q, end);
+		if ((one.aliph || one.arom) && needs_h(q, end)) {
+			r->h_aliph |= one.aliph;
+			r->h_arom |= one.arom;
+		}
+		q = semi ? semi + 1 : close;
+	}
+}
+
 void smarts_requirements(smarts_req *r, const char *smarts)
 {
 	memset(r, 0, sizeof *r);
+	first_atom_h(r, smarts);
 	int depth = 0; /* inside a recursive $( ... ) */
 	for (const char *p = smarts; *p;) {
 		if (p[0] == '$' && p[1] == '(') {
@@ -137,6 +172,10 @@ void smarts_mol_mask(smarts_req *out, const obw_atom *atoms, size_t n)
 			out->arom |= bit;
 		else
 			out->aliph |= bit;
+		if (atoms[i].hcount > 0 && atoms[i].aromatic)
+			out->h_arom |= bit;
+		else if (atoms[i].hcount > 0)
+			out->h_aliph |= bit;
 	}
 	if (out->aliph || out->arom)
 		out->any = out->aliph | out->arom;
@@ -144,5 +183,6 @@ void smarts_mol_mask(smarts_req *out, const obw_atom *atoms, size_t n)
 
 int smarts_may_match(const smarts_req *r, const smarts_req *mol)
 {
-	return !(r->aliph & ~mol->aliph) && !(r->arom & ~mol->arom) && !(r->any & ~mol->any);
+	return !(r->aliph & ~mol->aliph) && !(r->arom & ~mol->arom) && !(r->any & ~mol->any) &&
+	       !(r->h_aliph & ~mol->h_aliph) && !(r->h_arom & ~mol->h_arom);
 }

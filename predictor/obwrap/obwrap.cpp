@@ -1,6 +1,8 @@
 /* SPDX-License-Identifier: MIT */
-/* obwrap.cpp: the thin Open Babel wrapper behind obwrap.h; the only C++ in pkad. */
+/* obwrap.cpp: the thin Open Babel wrapper behind obwrap.h (with obwrap_smiles.cpp, the only
+ * C++ in pkad): parsing, cached views, editing, SMARTS. */
 #include "obwrap.h"
+#include "obwrap_internal.hpp"
 #include "smiles_check.h"
 
 #include <openbabel/atom.h>
@@ -31,30 +33,7 @@
 
 using namespace OpenBabel;
 
-enum { E_INVAL = -1, E_PARSE = -2, E_NOMEM = -4, E_INTERNAL = -5, E_UNSUPPORTED = -8 };
-
-struct obw_ctx {
-	OBConversion conv;
-	OBFormat *smi = nullptr;
-	OBFormat *can = nullptr;
-	OBFormat *sdf = nullptr;
-};
-
-struct obw_mol {
-	OBMol mol;
-	std::vector<int> orig; /* input index of each OB atom (idx - 1) */
-	std::vector<obw_atom> atoms;
-	std::vector<obw_bond> bonds;
-	std::vector<int> ring_sizes, ring_offsets, ring_atoms;
-	std::string canonical;          /* last canonical SMILES written, "" when stale */
-	std::vector<int> canonical_order; /* atom index (0-based) of each atom token in it */
-};
-
-struct obw_pattern {
-	OBSmartsPattern pat;
-};
-
-static void set_msg(char *msg, size_t msgn, const char *fmt, ...)
+void obw_set_msg(char *msg, size_t msgn, const char *fmt, ...)
 {
 	if (!msg || !msgn)
 		return;
@@ -72,7 +51,7 @@ static std::string excerpt(const std::string &s)
 	return s.substr(0, 57) + "...";
 }
 
-static char *dup_string(const std::string &s)
+char *obw_dup_string(const std::string &s)
 {
 	char *p = static_cast<char *>(malloc(s.size() + 1));
 	if (p)
@@ -285,10 +264,10 @@ extern "C" int obw_global_init(char *msg, size_t msgn)
 			init_status = warm_up(init_msg, sizeof init_msg);
 		});
 		if (init_status)
-			set_msg(msg, msgn, "%s", init_msg);
+			obw_set_msg(msg, msgn, "%s", init_msg);
 		return init_status;
 	} catch (...) {
-		set_msg(msg, msgn, "open babel initialisation failed");
+		obw_set_msg(msg, msgn, "open babel initialisation failed");
 		return E_INTERNAL;
 	}
 }
@@ -335,16 +314,16 @@ static int parse_smiles(obw_mol *m, obw_ctx *c, const char *text, char *msg, siz
 	size_t n = strcspn(text, " \t\r\n\v\f");
 	std::string smi(text, n);
 	if (smi.empty()) {
-		set_msg(msg, msgn, "empty smiles");
+		obw_set_msg(msg, msgn, "empty smiles");
 		return E_PARSE;
 	}
 	char why[160] = "";
 	if (obw_smiles_check(smi.data(), smi.size(), why, sizeof why)) {
-		set_msg(msg, msgn, "invalid smiles '%s': %s", excerpt(smi).c_str(), why);
+		obw_set_msg(msg, msgn, "invalid smiles '%s': %s", excerpt(smi).c_str(), why);
 		return E_PARSE;
 	}
 	if (read_with(c, c->smi, smi, m->mol) || m->mol.NumAtoms() == 0) {
-		set_msg(msg, msgn, "cannot read smiles '%s' (unknown element, bad ring closure or "
+		obw_set_msg(msg, msgn, "cannot read smiles '%s' (unknown element, bad ring closure or "
 				   "bracket atom)", excerpt(smi).c_str());
 		return E_PARSE;
 	}
@@ -352,7 +331,7 @@ static int parse_smiles(obw_mol *m, obw_ctx *c, const char *text, char *msg, siz
 	FOR_ATOMS_OF_MOL (a, m->mol)
 		arom += a->IsAromatic() ? 1 : 0;
 	if (arom < obw_smiles_aromatic_count(smi.data(), smi.size())) {
-		set_msg(msg, msgn, "cannot kekulize the aromatic atoms of '%s'", excerpt(smi).c_str());
+		obw_set_msg(msg, msgn, "cannot kekulize the aromatic atoms of '%s'", excerpt(smi).c_str());
 		return E_PARSE;
 	}
 	return 0;
@@ -371,7 +350,7 @@ static int parse_molblock(obw_mol *m, obw_ctx *c, const char *text, char *msg, s
 		rc = read_with(c, c->sdf, text, m->mol);
 	}
 	if (rc || m->mol.NumAtoms() == 0) {
-		set_msg(msg, msgn, "cannot read mol block (bad counts line or atom block)");
+		obw_set_msg(msg, msgn, "cannot read mol block (bad counts line or atom block)");
 		return E_PARSE;
 	}
 	return 0;
@@ -397,7 +376,7 @@ extern "C" int obw_mol_parse(obw_mol **out, obw_ctx *c, const char *text, int fo
 {
 	*out = nullptr;
 	if (!c || !text || (format != OBW_SMILES && format != OBW_MOLBLOCK)) {
-		set_msg(msg, msgn, "invalid argument to obw_mol_parse");
+		obw_set_msg(msg, msgn, "invalid argument to obw_mol_parse");
 		return E_INVAL;
 	}
 	obw_mol *m = nullptr;
@@ -412,11 +391,11 @@ extern "C" int obw_mol_parse(obw_mol **out, obw_ctx *c, const char *text, int fo
 		return 0;
 	} catch (const std::bad_alloc &) {
 		delete m;
-		set_msg(msg, msgn, "out of memory reading molecule");
+		obw_set_msg(msg, msgn, "out of memory reading molecule");
 		return E_NOMEM;
 	} catch (...) {
 		delete m;
-		set_msg(msg, msgn, "open babel failed on this molecule");
+		obw_set_msg(msg, msgn, "open babel failed on this molecule");
 		return E_INTERNAL;
 	}
 }
@@ -468,7 +447,7 @@ extern "C" int obw_mol_symmetry(obw_mol *m, int *cls, size_t n, char *msg, size_
 {
 	try {
 		if (n != m->atoms.size()) {
-			set_msg(msg, msgn, "symmetry array has %zu slots for %zu atoms", n,
+			obw_set_msg(msg, msgn, "symmetry array has %zu slots for %zu atoms", n,
 				m->atoms.size());
 			return E_INVAL;
 		}
@@ -476,190 +455,15 @@ extern "C" int obw_mol_symmetry(obw_mol *m, int *cls, size_t n, char *msg, size_
 		OBGraphSym gs(&m->mol);
 		gs.GetSymmetry(sym);
 		if (sym.size() != n) {
-			set_msg(msg, msgn, "symmetry perception failed");
+			obw_set_msg(msg, msgn, "symmetry perception failed");
 			return E_INTERNAL;
 		}
 		for (size_t i = 0; i < n; i++)
 			cls[i] = (int)sym[i];
 		return 0;
 	} catch (...) {
-		set_msg(msg, msgn, "symmetry perception failed");
+		obw_set_msg(msg, msgn, "symmetry perception failed");
 		return E_INTERNAL;
-	}
-}
-
-/* The writer's "O" option leaves the output order of the atoms on the molecule. */
-static void keep_order(obw_mol *m)
-{
-	m->canonical_order.clear();
-	OBPairData *d = dynamic_cast<OBPairData *>(m->mol.GetData("SMILES Atom Order"));
-	if (!d)
-		return;
-	std::istringstream is(d->GetValue());
-	int idx;
-	while (is >> idx)
-		m->canonical_order.push_back(idx - 1);
-	m->mol.DeleteData(d);
-}
-
-static std::string write_canonical(obw_mol *m, obw_ctx *c)
-{
-	std::ostringstream os;
-	c->conv.SetOutFormat(c->can);
-	c->conv.AddOption("O", OBConversion::OUTOPTIONS);
-	c->conv.SetOutStream(&os, false);
-	bool ok = c->can->WriteMolecule(&m->mol, &c->conv);
-	c->conv.SetOutStream(nullptr, false);
-	c->conv.RemoveOption("O", OBConversion::OUTOPTIONS);
-	if (!ok)
-		return std::string();
-	std::string s = os.str();
-	s = s.substr(0, s.find_first_of(" \t\r\n"));
-	m->canonical = s;
-	keep_order(m);
-	return s;
-}
-
-extern "C" char *obw_mol_canonical(obw_mol *m, obw_ctx *c, char *msg, size_t msgn)
-{
-	try {
-		std::string s = write_canonical(m, c);
-		if (s.empty()) {
-			set_msg(msg, msgn, "cannot write canonical smiles");
-			return nullptr;
-		}
-		char *p = dup_string(s);
-		if (!p)
-			set_msg(msg, msgn, "out of memory writing smiles");
-		return p;
-	} catch (...) {
-		set_msg(msg, msgn, "cannot write canonical smiles");
-		return nullptr;
-	}
-}
-
-/* Length of the atom token at s[i] ('[...]' or an organic-subset symbol), 0 if none. */
-static size_t atom_token(const std::string &s, size_t i)
-{
-	char ch = s[i];
-	if (ch == '[') {
-		size_t close = s.find(']', i);
-		return close == std::string::npos ? 0 : close - i + 1;
-	}
-	if ((ch == 'C' && i + 1 < s.size() && s[i + 1] == 'l') ||
-	    (ch == 'B' && i + 1 < s.size() && s[i + 1] == 'r'))
-		return 2;
-	return ch && std::strchr("BCNOPSFIbcnops*", ch) ? 1 : 0;
-}
-
-/* Bracket form of an atom token with a new hydrogen count and charge; isotope and
- * chirality marks of the old token are kept. */
-static std::string retoken(const std::string &tok, OBAtom *a, int h, int charge)
-{
-	std::string body = tok[0] == '[' ? tok.substr(1, tok.size() - 2) : tok;
-	size_t i = 0;
-	std::string iso, sym, chir;
-	while (i < body.size() && isdigit((unsigned char)body[i]))
-		iso += body[i++];
-	sym += body[i++];
-	if (i < body.size() && islower((unsigned char)body[i]) && isupper((unsigned char)sym[0]) &&
-	    std::string("lrieag").find(body[i]) != std::string::npos &&
-	    OBElements::GetAtomicNum((sym + body[i]).c_str()) == a->GetAtomicNum())
-		sym += body[i++];
-	while (i < body.size() && body[i] == '@')
-		chir += body[i++];
-	std::string out = "[" + iso + sym + chir;
-	if (h > 0)
-		out += h > 1 ? "H" + std::to_string(h) : "H";
-	if (charge)
-		out += (charge > 0 ? "+" : "-") +
-		       (std::abs(charge) > 1 ? std::to_string(std::abs(charge)) : "");
-	return out + "]";
-}
-
-/* The cached canonical SMILES with the listed atoms' tokens rewritten; "" when the cache
- * does not cover the molecule. */
-static std::string edit_canonical(obw_mol *m, const int *atom, const int *dq, size_t n)
-{
-	const std::string &s = m->canonical;
-	if (s.empty() || m->canonical_order.size() != m->atoms.size())
-		return std::string();
-	std::vector<int> change(m->atoms.size(), 0);
-	for (size_t k = 0; k < n; k++)
-		change[(size_t)atom[k]] += dq[k];
-	std::string out;
-	size_t tok = 0;
-	for (size_t i = 0; i < s.size();) {
-		size_t len = atom_token(s, i);
-		if (!len) {
-			out += s[i++];
-			continue;
-		}
-		if (tok >= m->canonical_order.size())
-			return std::string();
-		int idx = m->canonical_order[tok++], d = change[(size_t)idx];
-		const obw_atom &v = m->atoms[(size_t)idx];
-		out += d ? retoken(s.substr(i, len), m->mol.GetAtom(idx + 1), v.hcount + d,
-				   v.charge + d)
-			 : s.substr(i, len);
-		i += len;
-	}
-	return tok == m->canonical_order.size() ? out : std::string();
-}
-
-/* Writes m with each atom[k] changed by dq[k] in charge and hydrogen count, then restores
- * m: no copy and no re-perception, so one microspecies costs one SMILES write. */
-static std::string write_edited(obw_mol *m, obw_ctx *c, const int *atom, const int *dq,
-				size_t n, bool canonical)
-{
-	std::vector<std::pair<int, unsigned int>> saved;
-	for (size_t k = 0; k < n; k++) {
-		OBAtom *a = m->mol.GetAtom(atom[k] + 1);
-		saved.emplace_back(a->GetFormalCharge(), a->GetImplicitHCount());
-		int h = (int)a->GetImplicitHCount() + dq[k];
-		a->SetFormalCharge(a->GetFormalCharge() + dq[k]);
-		a->SetImplicitHCount((unsigned int)(h < 0 ? 0 : h));
-	}
-	OBFormat *f = canonical ? c->can : c->smi;
-	std::ostringstream os;
-	c->conv.SetOutFormat(f);
-	c->conv.SetOutStream(&os, false);
-	bool ok = f->WriteMolecule(&m->mol, &c->conv);
-	c->conv.SetOutStream(nullptr, false);
-	for (size_t k = n; k-- > 0;) {
-		OBAtom *a = m->mol.GetAtom(atom[k] + 1);
-		a->SetFormalCharge(saved[k].first);
-		a->SetImplicitHCount(saved[k].second);
-	}
-	if (!ok)
-		return std::string();
-	std::string s = os.str();
-	return s.substr(0, s.find_first_of(" \t\r\n"));
-}
-
-extern "C" char *obw_mol_smiles_edited(obw_mol *m, obw_ctx *c, const int *atom, const int *dq,
-				       size_t n, int canonical, char *msg, size_t msgn)
-{
-	try {
-		for (size_t k = 0; k < n; k++)
-			if (atom[k] < 0 || (size_t)atom[k] >= m->atoms.size()) {
-				set_msg(msg, msgn, "atom %d out of range", atom[k]);
-				return nullptr;
-			}
-		std::string s = canonical ? std::string() : edit_canonical(m, atom, dq, n);
-		if (s.empty())
-			s = write_edited(m, c, atom, dq, n, canonical != 0);
-		if (s.empty()) {
-			set_msg(msg, msgn, "cannot write smiles");
-			return nullptr;
-		}
-		char *p = dup_string(s);
-		if (!p)
-			set_msg(msg, msgn, "out of memory writing smiles");
-		return p;
-	} catch (...) {
-		set_msg(msg, msgn, "cannot write smiles");
-		return nullptr;
 	}
 }
 
@@ -703,7 +507,7 @@ extern "C" int obw_mol_keep_atoms(obw_mol *m, const unsigned char *keep, size_t 
 {
 	try {
 		if (n != m->atoms.size()) {
-			set_msg(msg, msgn, "keep array has %zu slots for %zu atoms", n,
+			obw_set_msg(msg, msgn, "keep array has %zu slots for %zu atoms", n,
 				m->atoms.size());
 			return E_INVAL;
 		}
@@ -721,7 +525,7 @@ extern "C" int obw_mol_keep_atoms(obw_mol *m, const unsigned char *keep, size_t 
 		rebuild_cache(m);
 		return 0;
 	} catch (...) {
-		set_msg(msg, msgn, "cannot delete atoms");
+		obw_set_msg(msg, msgn, "cannot delete atoms");
 		return E_INTERNAL;
 	}
 }
@@ -792,10 +596,10 @@ extern "C" int obw_mol_refresh(obw_mol *m, char *msg, size_t msgn)
 		rebuild_cache(m);
 		return 0;
 	} catch (const std::bad_alloc &) {
-		set_msg(msg, msgn, "out of memory re-perceiving molecule");
+		obw_set_msg(msg, msgn, "out of memory re-perceiving molecule");
 		return E_NOMEM;
 	} catch (...) {
-		set_msg(msg, msgn, "cannot re-perceive molecule");
+		obw_set_msg(msg, msgn, "cannot re-perceive molecule");
 		return E_INTERNAL;
 	}
 }
@@ -807,19 +611,19 @@ extern "C" obw_pattern *obw_pattern_parse(const char *smarts, char *msg, size_t 
 	obw_pattern *p = nullptr;
 	try {
 		if (!smarts || !*smarts) {
-			set_msg(msg, msgn, "empty smarts");
+			obw_set_msg(msg, msgn, "empty smarts");
 			return nullptr;
 		}
 		p = new obw_pattern;
 		if (!p->pat.Init(smarts) || p->pat.NumAtoms() == 0) {
-			set_msg(msg, msgn, "invalid smarts '%s'", excerpt(smarts).c_str());
+			obw_set_msg(msg, msgn, "invalid smarts '%s'", excerpt(smarts).c_str());
 			delete p;
 			return nullptr;
 		}
 		return p;
 	} catch (...) {
 		delete p;
-		set_msg(msg, msgn, "invalid smarts '%s'", excerpt(smarts).c_str());
+		obw_set_msg(msg, msgn, "invalid smarts '%s'", excerpt(smarts).c_str());
 		return nullptr;
 	}
 }
@@ -888,7 +692,7 @@ static int warm_up(char *msg, size_t msgn)
 {
 	obw_ctx *c = obw_ctx_new();
 	if (!c) {
-		set_msg(msg, msgn, "open babel formats smi, can or sdf are missing");
+		obw_set_msg(msg, msgn, "open babel formats smi, can or sdf are missing");
 		return E_INTERNAL;
 	}
 	obw_mol *m = nullptr, *mb = nullptr;
@@ -910,7 +714,7 @@ static int warm_up(char *msg, size_t msgn)
 		free(can);
 	}
 	if (rc && msg && !*msg)
-		set_msg(msg, msgn, "open babel warm-up failed");
+		obw_set_msg(msg, msgn, "open babel warm-up failed");
 	obw_mol_free(mb);
 	obw_mol_free(m);
 	obw_pattern_free(p);

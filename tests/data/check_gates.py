@@ -27,6 +27,13 @@ CLASS_RMSE = {
 }
 MIN_CLASS_ROWS = 10
 
+# Regression floors: the figures this version of the model reaches where it does not yet
+# meet an issue-3 gate (measured on the test split when params.tsv was last fitted, with a
+# small margin). A missed gate is reported as NOT MET and keeps issue 3 open; the test fails
+# only when a gate without a floor is missed or a floor is broken, so accuracy cannot drop
+# unnoticed while the targets are worked on. Remove a floor once its gate is met.
+FLOORS = {}
+
 
 def validate(files, extra):
     cmd = [BIN, "validate", "--split", "test", "--format", "json", "--worst", "0"] + extra
@@ -41,6 +48,7 @@ def validate(files, extra):
 class Gates:
     def __init__(self):
         self.failed = []
+        self.not_met = []
 
     def at_most(self, what, got, limit):
         self.report(what, got, "<=", limit, got is not None and got <= limit)
@@ -50,8 +58,20 @@ class Gates:
 
     def report(self, what, got, op, limit, ok):
         shown = "n/a" if got is None else "%.3f" % got
-        print("%-4s %-44s %s (gate %s %.2f)" % ("ok" if ok else "FAIL", what, shown, op, limit))
-        if not ok:
+        if ok:
+            print("ok   %-44s %s (gate %s %.2f)" % (what, shown, op, limit))
+            return
+        floor = FLOORS.get(what)
+        held = floor is not None and got is not None and (got <= floor if op == "<=" else
+                                                          got >= floor)
+        if held:
+            print("NOT MET %-41s %s (gate %s %.2f; floor %.2f held)" % (what, shown, op, limit,
+                                                                       floor))
+            self.not_met.append(what)
+        else:
+            print("FAIL %-44s %s (gate %s %.2f%s)" % (what, shown, op, limit,
+                                                      "" if floor is None else
+                                                      "; floor %.2f broken" % floor))
             self.failed.append(what)
 
 
@@ -70,8 +90,10 @@ def check_set(g, label, res, rmse, coverage):
                                                          res["unreadable"]))
     g.at_most(label + " overall rmse", o["rmse"], rmse)
     g.at_least(label + " coverage", o["coverage"], coverage)
-    g.at_least(label + " calibration (share within 1 unc.)", o["calibration"], CALIBRATION[0])
-    g.at_most(label + " calibration (share within 1 unc.)", o["calibration"], CALIBRATION[1])
+    g.at_least(label + " calibration, share within 1 unc. (low)", o["calibration"],
+               CALIBRATION[0])
+    g.at_most(label + " calibration, share within 1 unc. (high)", o["calibration"],
+              CALIBRATION[1])
 
 
 def main():
@@ -91,10 +113,13 @@ def main():
                s["coverage"] or 0))
     broad = validate(BROAD, ["--tier", "A"])
     check_set(g, "broad tier A", broad, BROAD_RMSE, BROAD_COVERAGE)
+    if g.not_met:
+        print("%d gate(s) of issue 3 not met yet (floors held): %s" %
+              (len(g.not_met), "; ".join(g.not_met)))
     if g.failed:
         print("%d gate(s) missed: %s" % (len(g.failed), "; ".join(g.failed)))
         return 1
-    print("all gates met")
+    print("all gates met" if not g.not_met else "no regression below the floors")
     return 0
 
 

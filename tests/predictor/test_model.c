@@ -117,6 +117,34 @@ static void test_model__every_site_sums_its_terms(void)
 	pred_result_free(r);
 }
 
+/* Normalisation (common practice): a salt is predicted as its parent acid or base. */
+static void same_prediction(const char *salt, const char *parent)
+{
+	pred_result *a = predict(salt), *b = predict(parent);
+	CHECK(a && b);
+	if (a && b) {
+		CHECK_STR_EQ(pred_result_smiles(a), pred_result_smiles(b));
+		CHECK_INT_EQ(pred_result_site_count(a), pred_result_site_count(b));
+		for (size_t i = 0; i < pred_result_site_count(a) && i < pred_result_site_count(b);
+		     i++) {
+			CHECK_STR_EQ(pred_result_site(a, i)->group, pred_result_site(b, i)->group);
+			CHECK_NEAR(pred_result_site(a, i)->pka, pred_result_site(b, i)->pka, 1e-9);
+		}
+		CHECK(pred_result_warning_count(a) >= 1);
+		CHECK_INT_EQ(pred_result_warning_count(b), 0);
+	}
+	pred_result_free(a);
+	pred_result_free(b);
+}
+
+static void test_model__salt_and_free_acid_give_the_same_sites(void)
+{
+	same_prediction("CC(=O)[O-].[Na+]", "CC(=O)O");
+	same_prediction("[Na+].[O-]C(=O)c1ccc(Cl)cc1", "OC(=O)c1ccc(Cl)cc1");
+	same_prediction("[Cl-].[NH3+]CCc1ccccc1", "NCCc1ccccc1");
+	same_prediction("[K+].[O-]c1ccc(cc1)[N+](=O)[O-]", "Oc1ccc(cc1)[N+](=O)[O-]");
+}
+
 static void test_model__no_site_is_a_note_not_an_error(void)
 {
 	pred_result *r = predict("c1ccccc1");
@@ -165,6 +193,7 @@ int main(void)
 	RUN(test_model__ring_nitrogen_counts_as_aza);
 	RUN(test_model__equivalent_sites_get_statistical_terms);
 	RUN(test_model__every_site_sums_its_terms);
+	RUN(test_model__salt_and_free_acid_give_the_same_sites);
 	RUN(test_model__no_site_is_a_note_not_an_error);
 	RUN(test_model__bad_input_gets_a_code);
 	pred_worker_free(worker);
