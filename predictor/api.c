@@ -85,6 +85,30 @@ static const char *corr_smarts(const pred_model *m, size_t i)
 	return m->corrs[i].smarts;
 }
 
+static int corr_table(pred_worker *w)
+{
+	const pred_model *m = w->m;
+	w->corr_ok = calloc(m->n_corrs * m->n_sites + 1, 1);
+	if (!w->corr_ok)
+		return PRED_ENOMEM;
+	for (size_t k = 0; k < m->n_corrs; k++)
+		for (size_t r = 0; r < m->n_sites; r++)
+			w->corr_ok[k * m->n_sites + r] =
+			    (unsigned char)eng_corr_applies(&m->corrs[k], &m->sites[r]);
+	return 0;
+}
+
+static int requirements(smarts_req **out, size_t n,
+			const char *(*smarts)(const pred_model *, size_t), const pred_model *m)
+{
+	*out = calloc(n + 1, sizeof **out);
+	if (!*out)
+		return PRED_ENOMEM;
+	for (size_t i = 0; i < n; i++)
+		smarts_requirements(&(*out)[i], smarts(m, i));
+	return 0;
+}
+
 int pred_worker_new(pred_worker **out, const pred_model *m, pred_error *err)
 {
 	*out = NULL;
@@ -100,6 +124,14 @@ int pred_worker_new(pred_worker **out, const pred_model *m, pred_error *err)
 		rc = compile_all(&w->subst_pat, m->n_substs, subst_smarts, m, err);
 	if (!rc)
 		rc = compile_all(&w->corr_pat, m->n_corrs, corr_smarts, m, err);
+	if (!rc)
+		rc = requirements(&w->site_req, m->n_sites, site_smarts, m);
+	if (!rc)
+		rc = requirements(&w->subst_req, m->n_substs, subst_smarts, m);
+	if (!rc)
+		rc = requirements(&w->corr_req, m->n_corrs, corr_smarts, m);
+	if (!rc)
+		rc = corr_table(w);
 	if (rc) {
 		pred_worker_free(w);
 		return rc;
@@ -125,5 +157,9 @@ void pred_worker_free(pred_worker *w)
 	free_patterns(w->subst_pat, w->m->n_substs);
 	free_patterns(w->corr_pat, w->m->n_corrs);
 	obw_ctx_free(w->ctx);
+	free(w->site_req);
+	free(w->subst_req);
+	free(w->corr_req);
+	free(w->corr_ok);
 	free(w);
 }

@@ -299,7 +299,7 @@ static void walk_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 	}
 }
 
-static int corr_applies(const frag_corr *c, const frag_site *row)
+int eng_corr_applies(const frag_corr *c, const frag_site *row)
 {
 	if (!strcmp(c->sites, "*"))
 		return 1;
@@ -316,13 +316,13 @@ static int corr_applies(const frag_corr *c, const frag_site *row)
 	return 0;
 }
 
-static void correction_effects(term_list *tl, const eng_mol *e, const pred_model *m,
+static void correction_effects(term_list *tl, const eng_mol *e, const pred_worker *w,
 			       const eng_site *s)
 {
-	const frag_site *row = &m->sites[s->row];
+	const pred_model *m = w->m;
 	for (size_t k = 0; k < m->n_corrs; k++) {
 		const frag_corr *c = &m->corrs[k];
-		if (!corr_applies(c, row))
+		if (!w->corr_ok[k * m->n_sites + (size_t)s->row])
 			continue;
 		for (int i = e->corr_start[k]; i < e->corr_start[k + 1]; i++)
 			if (e->corr_atom[i] == s->atom) {
@@ -346,7 +346,7 @@ void eng_site_effects(term_list *tl, const eng_mol *e, const pred_worker *w, con
 		if (k >= 0)
 			ring_effects(tl, e, m, s, (size_t)k, ipso, seen);
 		walk_effects(tl, e, m, s, seen, queue, depth);
-		correction_effects(tl, e, m, s);
+		correction_effects(tl, e, w, s);
 	}
 	free(seen);
 	free(queue);

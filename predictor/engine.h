@@ -4,10 +4,23 @@
 #define PKAD_ENGINE_H
 
 #include <stddef.h>
+#include <stdint.h>
 
 #include "model.h"
 #include "obwrap.h"
 #include "result.h"
+
+/* Elements a SMARTS pattern needs (bit z: atomic number z), by aromaticity. */
+typedef struct smarts_req {
+	uint64_t aliph, arom, any;
+	uint64_t h_aliph, h_arom; /* first atom: an atom of this element carrying hydrogen */
+} smarts_req;
+
+void smarts_requirements(smarts_req *r, const char *smarts);
+/* The molecule's elements in the same form. */
+void smarts_mol_mask(smarts_req *out, const obw_atom *atoms, size_t n);
+/* Zero when the pattern cannot match a molecule with these elements. */
+int smarts_may_match(const smarts_req *r, const smarts_req *mol);
 
 struct pred_worker {
 	const pred_model *m;
@@ -15,6 +28,8 @@ struct pred_worker {
 	obw_pattern **site_pat;  /* one per m->sites row */
 	obw_pattern **subst_pat; /* one per m->substs row */
 	obw_pattern **corr_pat;  /* one per m->corrs row */
+	smarts_req *site_req, *subst_req, *corr_req;
+	unsigned char *corr_ok; /* corr_ok[k * n_sites + r]: correction k applies to site row r */
 };
 
 /* The perceived molecule: graph, substituent claims and the sites found. */
@@ -40,6 +55,7 @@ typedef struct eng_mol {
 	eng_site *sites;
 	size_t n_sites;
 	int *dist;      /* n_sites x nat: bonds from each site's ionizable atom */
+	smarts_req elements; /* what the molecule holds, to skip hopeless patterns */
 	int shared_rows; /* two sites come from one row: they may be equivalent */
 	int *corr_start; /* CSR: first atoms matched by correction k in corr_atom[..] */
 	int *corr_atom;
@@ -67,6 +83,9 @@ typedef struct term_list {
 	double extra_var; /* uncertainty added in quadrature by extrapolation */
 	int n_generic;
 } term_list;
+
+/* Nonzero when correction c applies to sites of this row (its id or group is listed). */
+int eng_corr_applies(const frag_corr *c, const frag_site *row);
 
 /* Adds a term; value = param value * feature (param >= 0) or feature (param < 0). */
 void terms_add(term_list *tl, const pred_model *m, const char *term, int param, double feature,

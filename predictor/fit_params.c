@@ -11,7 +11,8 @@ static int set_err(pred_error *err, int code, const char *what, const char *path
 {
 	if (err) {
 		err->code = code;
-		snprintf(err->msg, sizeof err->msg, "%s: %s", path, what);
+		/* a long path is cut, not overflowed */
+		snprintf(err->msg, sizeof err->msg, "%.160s: %.80s", path, what);
 	}
 	return code;
 }

@@ -37,6 +37,8 @@ static int claim_groups(eng_mol *e, const pred_worker *w)
 	for (size_t a = 0; a < e->nat; a++)
 		e->group[a] = e->group_root[a] = -1;
 	for (size_t g = 0; g < m->n_substs; g++) {
+		if (!smarts_may_match(&w->subst_req[g], &e->elements))
+			continue;
 		int *hits = NULL;
 		int n = obw_pattern_match(&hits, w->subst_pat[g], e->mol);
 		if (n < 0)
@@ -91,6 +93,8 @@ static int find_sites(eng_mol *e, const pred_worker *w)
 {
 	const pred_model *m = w->m;
 	for (size_t r = 0; r < m->n_sites; r++) {
+		if (!smarts_may_match(&w->site_req[r], &e->elements))
+			continue;
 		int *hits = NULL;
 		int n = obw_pattern_match(&hits, w->site_pat[r], e->mol);
 		if (n < 0)
@@ -109,6 +113,15 @@ static int find_sites(eng_mol *e, const pred_worker *w)
 	return 0;
 }
 
+/* A correction is matched only when the molecule has a site it applies to. */
+static int corr_wanted(const eng_mol *e, const pred_worker *w, size_t k)
+{
+	for (size_t i = 0; i < e->n_sites; i++)
+		if (w->corr_ok[k * w->m->n_sites + (size_t)e->sites[i].row])
+			return 1;
+	return 0;
+}
+
 /* First atoms of every correction pattern's matches, once per molecule. */
 static int match_corrections(eng_mol *e, const pred_worker *w)
 {
@@ -118,6 +131,10 @@ static int match_corrections(eng_mol *e, const pred_worker *w)
 		return PRED_ENOMEM;
 	size_t used = 0, cap = 0;
 	for (size_t k = 0; k < m->n_corrs; k++) {
+		e->corr_start[k + 1] = (int)used;
+		if (!smarts_may_match(&w->corr_req[k], &e->elements) ||
+		    !corr_wanted(e, w, k))
+			continue;
 		int *hits = NULL;
 		int n = obw_pattern_match(&hits, w->corr_pat[k], e->mol);
 		if (n < 0)
@@ -180,16 +197,18 @@ int eng_perceive(eng_mol *e, pred_worker *w, obw_mol *mol, pred_error *err)
 	e->nat = obw_mol_atoms(mol, &e->atoms);
 	e->nbonds = obw_mol_bonds(mol, &e->bonds);
 	obw_mol_rings(mol, &e->rings);
+	smarts_mol_mask(&e->elements, e->atoms, e->nat);
 	e->group = malloc((e->nat + 1) * sizeof *e->group);
 	e->group_root = malloc((e->nat + 1) * sizeof *e->group_root);
 	int rc = e->group && e->group_root ? build_graph(e) : PRED_ENOMEM;
-	if (!rc)
-		rc = claim_groups(e, w);
+	/* sites first: a molecule without one needs no substituent perception */
 	if (!rc)
 		rc = find_sites(e, w);
+	if (!rc && e->n_sites)
+		rc = claim_groups(e, w);
 	if (!rc)
 		rc = site_distances(e);
-	if (!rc)
+	if (!rc && e->n_sites)
 		rc = match_corrections(e, w);
 	if (rc && err) {
 		err->code = rc;

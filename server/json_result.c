@@ -18,11 +18,35 @@ static double round_to(double x, int decimals)
 	return r == 0.0 ? 0.0 : r;
 }
 
+/* A finite number written once with the given decimals, trailing zeros dropped: cJSON's
+ * own printing (%1.15g, then a read-back check) is a sizeable share of a prediction. */
+static cJSON *fixed_number(double x, int decimals)
+{
+	char buf[64];
+	int n = snprintf(buf, sizeof buf, "%.*f", decimals, round_to(x, decimals));
+	if (n <= 0 || (size_t)n >= sizeof buf)
+		return cJSON_CreateNumber(x);
+	if (strchr(buf, '.')) {
+		while (n > 0 && buf[n - 1] == '0')
+			buf[--n] = '\0';
+		if (n > 0 && buf[n - 1] == '.')
+			buf[--n] = '\0';
+	}
+	if (!strcmp(buf, "-0"))
+		strcpy(buf, "0");
+	return cJSON_CreateRaw(buf);
+}
+
 cJSON *srv_json_add_number(cJSON *obj, const char *name, double x, int decimals,
 			   cJSON *warnings)
 {
-	if (isfinite(x))
-		return cJSON_AddNumberToObject(obj, name, round_to(x, decimals));
+	if (isfinite(x)) {
+		cJSON *v = fixed_number(x, decimals);
+		if (v && cJSON_AddItemToObject(obj, name, v))
+			return v;
+		cJSON_Delete(v);
+		return NULL;
+	}
 	if (warnings) {
 		char msg[160];
 		snprintf(msg, sizeof msg, "non-finite value of '%s' encoded as null", name);
@@ -35,7 +59,7 @@ cJSON *srv_json_add_number(cJSON *obj, const char *name, double x, int decimals,
 static cJSON *array_number(double x, int decimals, int *bad)
 {
 	if (isfinite(x))
-		return cJSON_CreateNumber(round_to(x, decimals));
+		return fixed_number(x, decimals);
 	*bad = 1;
 	return cJSON_CreateNull();
 }

@@ -5,6 +5,8 @@
 
 #include <openbabel/atom.h>
 #include <openbabel/bond.h>
+#include <openbabel/elements.h>
+#include <openbabel/generic.h>
 #include <openbabel/graphsym.h>
 #include <openbabel/mol.h>
 #include <openbabel/obconversion.h>
@@ -14,6 +16,7 @@
 #include <openbabel/ring.h>
 #include <openbabel/stereo/cistrans.h>
 
+#include <algorithm>
 #include <cctype>
 #include <clocale>
 #include <cstdarg>
@@ -43,6 +46,8 @@ struct obw_mol {
 	std::vector<obw_atom> atoms;
 	std::vector<obw_bond> bonds;
 	std::vector<int> ring_sizes, ring_offsets, ring_atoms;
+	std::string canonical;          /* last canonical SMILES written, "" when stale */
+	std::vector<int> canonical_order; /* atom index (0-based) of each atom token in it */
 };
 
 struct obw_pattern {
@@ -207,6 +212,7 @@ static void reset_perception(OBMol &mol)
 static void rebuild_cache(obw_mol *m)
 {
 	OBMol &mol = m->mol;
+	m->canonical.clear();
 	reset_perception(mol);
 	m->atoms.clear();
 	m->bonds.clear();
@@ -482,17 +488,36 @@ extern "C" int obw_mol_symmetry(obw_mol *m, int *cls, size_t n, char *msg, size_
 	}
 }
 
+/* The writer's "O" option leaves the output order of the atoms on the molecule. */
+static void keep_order(obw_mol *m)
+{
+	m->canonical_order.clear();
+	OBPairData *d = dynamic_cast<OBPairData *>(m->mol.GetData("SMILES Atom Order"));
+	if (!d)
+		return;
+	std::istringstream is(d->GetValue());
+	int idx;
+	while (is >> idx)
+		m->canonical_order.push_back(idx - 1);
+	m->mol.DeleteData(d);
+}
+
 static std::string write_canonical(obw_mol *m, obw_ctx *c)
 {
 	std::ostringstream os;
 	c->conv.SetOutFormat(c->can);
+	c->conv.AddOption("O", OBConversion::OUTOPTIONS);
 	c->conv.SetOutStream(&os, false);
 	bool ok = c->can->WriteMolecule(&m->mol, &c->conv);
 	c->conv.SetOutStream(nullptr, false);
+	c->conv.RemoveOption("O", OBConversion::OUTOPTIONS);
 	if (!ok)
 		return std::string();
 	std::string s = os.str();
-	return s.substr(0, s.find_first_of(" \t\r\n"));
+	s = s.substr(0, s.find_first_of(" \t\r\n"));
+	m->canonical = s;
+	keep_order(m);
+	return s;
 }
 
 extern "C" char *obw_mol_canonical(obw_mol *m, obw_ctx *c, char *msg, size_t msgn)
@@ -511,6 +536,75 @@ extern "C" char *obw_mol_canonical(obw_mol *m, obw_ctx *c, char *msg, size_t msg
 		set_msg(msg, msgn, "cannot write canonical smiles");
 		return nullptr;
 	}
+}
+
+/* Length of the atom token at s[i] ('[...]' or an organic-subset symbol), 0 if none. */
+static size_t atom_token(const std::string &s, size_t i)
+{
+	char ch = s[i];
+	if (ch == '[') {
+		size_t close = s.find(']', i);
+		return close == std::string::npos ? 0 : close - i + 1;
+	}
+	if ((ch == 'C' && i + 1 < s.size() && s[i + 1] == 'l') ||
+	    (ch == 'B' && i + 1 < s.size() && s[i + 1] == 'r'))
+		return 2;
+	return ch && std::strchr("BCNOPSFIbcnops*", ch) ? 1 : 0;
+}
+
+/* Bracket form of an atom token with a new hydrogen count and charge; isotope and
+ * chirality marks of the old token are kept. */
+static std::string retoken(const std::string &tok, OBAtom *a, int h, int charge)
+{
+	std::string body = tok[0] == '[' ? tok.substr(1, tok.size() - 2) : tok;
+	size_t i = 0;
+	std::string iso, sym, chir;
+	while (i < body.size() && isdigit((unsigned char)body[i]))
+		iso += body[i++];
+	sym += body[i++];
+	if (i < body.size() && islower((unsigned char)body[i]) && isupper((unsigned char)sym[0]) &&
+	    std::string("lrieag").find(body[i]) != std::string::npos &&
+	    OBElements::GetAtomicNum((sym + body[i]).c_str()) == a->GetAtomicNum())
+		sym += body[i++];
+	while (i < body.size() && body[i] == '@')
+		chir += body[i++];
+	std::string out = "[" + iso + sym + chir;
+	if (h > 0)
+		out += h > 1 ? "H" + std::to_string(h) : "H";
+	if (charge)
+		out += (charge > 0 ? "+" : "-") +
+		       (std::abs(charge) > 1 ? std::to_string(std::abs(charge)) : "");
+	return out + "]";
+}
+
+/* The cached canonical SMILES with the listed atoms' tokens rewritten; "" when the cache
+ * does not cover the molecule. */
+static std::string edit_canonical(obw_mol *m, const int *atom, const int *dq, size_t n)
+{
+	const std::string &s = m->canonical;
+	if (s.empty() || m->canonical_order.size() != m->atoms.size())
+		return std::string();
+	std::vector<int> change(m->atoms.size(), 0);
+	for (size_t k = 0; k < n; k++)
+		change[(size_t)atom[k]] += dq[k];
+	std::string out;
+	size_t tok = 0;
+	for (size_t i = 0; i < s.size();) {
+		size_t len = atom_token(s, i);
+		if (!len) {
+			out += s[i++];
+			continue;
+		}
+		if (tok >= m->canonical_order.size())
+			return std::string();
+		int idx = m->canonical_order[tok++], d = change[(size_t)idx];
+		const obw_atom &v = m->atoms[(size_t)idx];
+		out += d ? retoken(s.substr(i, len), m->mol.GetAtom(idx + 1), v.hcount + d,
+				   v.charge + d)
+			 : s.substr(i, len);
+		i += len;
+	}
+	return tok == m->canonical_order.size() ? out : std::string();
 }
 
 /* Writes m with each atom[k] changed by dq[k] in charge and hydrogen count, then restores
@@ -552,7 +646,9 @@ extern "C" char *obw_mol_smiles_edited(obw_mol *m, obw_ctx *c, const int *atom, 
 				set_msg(msg, msgn, "atom %d out of range", atom[k]);
 				return nullptr;
 			}
-		std::string s = write_edited(m, c, atom, dq, n, canonical != 0);
+		std::string s = canonical ? std::string() : edit_canonical(m, atom, dq, n);
+		if (s.empty())
+			s = write_edited(m, c, atom, dq, n, canonical != 0);
 		if (s.empty()) {
 			set_msg(msg, msgn, "cannot write smiles");
 			return nullptr;
@@ -641,6 +737,7 @@ extern "C" int obw_mol_set_atom(obw_mol *m, int atom, int charge, int hcount)
 			return E_INVAL;
 		a->SetFormalCharge(charge);
 		a->SetImplicitHCount((unsigned int)implicit);
+		m->canonical.clear();
 		m->atoms[(size_t)atom].charge = charge;
 		m->atoms[(size_t)atom].hcount = hcount;
 		return 0;
@@ -679,6 +776,7 @@ extern "C" int obw_mol_set_bond_order(obw_mol *m, int a, int b, int order)
 		if ((int)bond->GetBondOrder() != order)
 			drop_cis_trans(m->mol, bond);
 		bond->SetBondOrder(order);
+		m->canonical.clear();
 		for (obw_bond &v : m->bonds)
 			if ((v.a == a && v.b == b) || (v.a == b && v.b == a))
 				v.order = order;
@@ -743,9 +841,22 @@ extern "C" int obw_pattern_match(int **out, const obw_pattern *p, obw_mol *m)
 {
 	*out = nullptr;
 	try {
-		std::vector<std::vector<int>> ml;
-		if (!p->pat.Match(m->mol, ml, OBSmartsPattern::AllUnique) || ml.empty())
+		/* unique by (first atom, atom set): a symmetric pattern such as the two OH of
+		 * [OX2H1]C(=O)[OX2H1] gives one match per first atom, where unique-by-set
+		 * matching would give one match in all */
+		std::vector<std::vector<int>> all, ml;
+		if (!p->pat.Match(m->mol, all, OBSmartsPattern::All) || all.empty())
 			return 0;
+		std::vector<std::vector<int>> seen;
+		for (const std::vector<int> &mt : all) {
+			std::vector<int> key(mt.begin() + 1, mt.end());
+			std::sort(key.begin(), key.end());
+			key.insert(key.begin(), mt[0]);
+			if (std::find(seen.begin(), seen.end(), key) != seen.end())
+				continue;
+			seen.push_back(key);
+			ml.push_back(mt);
+		}
 		size_t na = p->pat.NumAtoms();
 		int *v = static_cast<int *>(malloc(ml.size() * na * sizeof(int)));
 		if (!v)
