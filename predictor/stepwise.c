@@ -98,9 +98,12 @@ static void step_once(term_list *tls, step_state *st, const eng_mol *e, const pr
 	if (best_stat != 0)
 		terms_add(tl, m, "statistical", -1, best_stat, "%d equivalent sites",
 			  st->eq_n[st->leader[best]]);
-	if (fabs(best_int) >= 0.005)
+	if (fabs(best_int) >= 0.005) {
 		terms_add(tl, m, "interaction", -1, best_int,
 			  "charges of sites ionised before this one");
+		/* the distance model of the interaction is rough: a quarter of it as 1 sd */
+		tl->extra_var += 0.0625 * best_int * best_int;
+	}
 	st->done[best] = 1;
 	st->charge[best] -= 1;
 	st->eq_done[st->leader[best]]++;
