@@ -76,6 +76,7 @@ struct pred_model {
 	int p_falloff;      /* attenuation per intervening bond of the Taft walk */
 	int p_interaction;  /* charge-interaction scale (pKa units at distance 1) */
 	int p_interaction_decay; /* per-bond decay of the charge interaction */
+	int p_unc_scale;    /* calibration factor of every site uncertainty */
 };
 
 /* Index of the parameter with this id, or -1. */

@@ -127,7 +127,7 @@ static double site_uncertainty(const term_list *tl, const pred_model *m, const f
 	for (size_t i = 1; i < tl->n; i++)
 		shift += fabs(tl->t[i].value);
 	double var = base * base + tl->extra_var + (0.08 * shift) * (0.08 * shift);
-	return sqrt(var);
+	return m->params[m->p_unc_scale].value * sqrt(var);
 }
 
 static int copy_site(pred_result *r, size_t i, const term_list *tl, const eng_mol *e,
