@@ -330,37 +330,45 @@ static double rmse_current(const pred_model *m, const fit_data *d)
 	return sw > 0 ? sqrt(s / sw) : NAN;
 }
 
-static int by_value(const void *a, const void *b)
+typedef struct wres {
+	double abs_res, w;
+} wres;
+
+static int by_abs_res(const void *a, const void *b)
 {
-	double x = *(const double *)a, y = *(const double *)b;
+	double x = ((const wres *)a)->abs_res, y = ((const wres *)b)->abs_res;
 	return x < y ? -1 : x > y;
 }
 
 /* The class error of parameter p from the cv residuals of the kept rows that use it: the
- * q-quantile of |residual| (q = 0.68: about one sd, robust to the long tail of the broad
- * set), or their rms when q is 0. Returns the row count. */
-static int class_error(double *out, double *buf, const fit_state *s, const double *cv,
+ * weighted q-quantile of |residual| (q = 0.68: about one sd, robust to the long tail of the
+ * broad set; weights as in the fit), or their weighted rms when q is 0. Returns the rows. */
+static int class_error(double *out, wres *buf, const fit_state *s, const double *cv,
 		       size_t p, double q)
 {
-	double sse = 0;
+	double sse = 0, sw = 0, acc = 0;
 	int n = 0;
 	for (size_t i = 0; i < s->d.n; i++) {
 		if (s->d.w[i] <= 0)
 			continue;
 		for (size_t k = s->d.off[i]; k < s->d.off[i + 1]; k++)
 			if (s->d.param[k] == (int)p && s->d.feat[k] != 0) {
-				buf[n++] = fabs(cv[i]);
-				sse += cv[i] * cv[i];
+				buf[n++] = (wres){fabs(cv[i]), s->d.w[i]};
+				sse += s->d.w[i] * cv[i] * cv[i];
+				sw += s->d.w[i];
 				break;
 			}
 	}
 	if (n == 0)
 		return 0;
-	if (q <= 0) {
-		*out = sqrt(sse / n);
-	} else {
-		qsort(buf, (size_t)n, sizeof *buf, by_value);
-		*out = buf[(size_t)(q * (n - 1) + 0.5)];
+	*out = sqrt(sse / sw);
+	if (q <= 0)
+		return n;
+	qsort(buf, (size_t)n, sizeof *buf, by_abs_res);
+	for (int i = 0; i < n; i++) {
+		*out = buf[i].abs_res;
+		if ((acc += buf[i].w) >= q * sw)
+			break;
 	}
 	return n;
 }
@@ -370,7 +378,7 @@ static int class_error(double *out, double *buf, const fit_state *s, const doubl
 static int store(pred_model *m, pred_fit_report *rep, const fit_state *s, const double *cv,
 		 double q)
 {
-	double *buf = malloc((s->d.n + 1) * sizeof *buf);
+	wres *buf = malloc((s->d.n + 1) * sizeof *buf);
 	if (!buf)
 		return PRED_ENOMEM;
 	for (size_t j = 0; j < s->cols.n; j++)

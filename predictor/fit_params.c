@@ -97,7 +97,7 @@ static void write_header(FILE *f, const pred_fit_report *rep, const char *data_v
 		   "(sources and licences in data/README.md)\n");
 	if (s->unc_quantile > 0)
 		fprintf(f, "# rmse_cv: class error of the rows using the parameter from %d-fold "
-			   "cross-validation: the %.0f%% quantile of |residual|\n", s->folds,
+			   "cross-validation: the weighted %.0f%% quantile of |residual|\n", s->folds,
 			100 * s->unc_quantile);
 	else
 		fprintf(f, "# rmse_cv: rms cross-validated residual (%d-fold) of the rows using the "

@@ -11,7 +11,7 @@
 
 typedef struct fopts {
 	const char *out, *fragments, *match;
-	double tier_b_weight;
+	double tier_b_weight, core_weight;
 	pred_fit_options fit;
 } fopts;
 
@@ -24,6 +24,8 @@ static void usage(FILE *f)
 		   "  --fragments DIR      start from the model in DIR\n"
 		   "  --folds K            k of the cross-validated class rmse (default 5)\n"
 		   "  --tier-b-weight W    weight of rows graded tier B (default 0.25)\n"
+		   "  --core-weight W      weight of rows from files with a site_class column, whose\n"
+		   "                       site is assigned by hand (default 4)\n"
 		   "  --no-falloff         keep the fall-off factor fixed\n"
 		   "  --match auto|kind|steps  how a row finds its site (see pkad validate --help)\n"
 		   "  --trim X             leave out rows off by more than X at the start\n"
@@ -36,13 +38,14 @@ static int parse_opts(fopts *o, int argc, char **argv)
 	static const struct option lo[] = {
 		{"out", 1, 0, 'o'},	      {"fragments", 1, 0, 'F'}, {"folds", 1, 0, 'k'},
 		{"tier-b-weight", 1, 0, 'b'}, {"no-falloff", 0, 0, 'n'}, {"help", 0, 0, 'h'},
-		{"trim", 1, 0, 't'}, {"match", 1, 0, 'm'},
+		{"trim", 1, 0, 't'}, {"match", 1, 0, 'm'}, {"core-weight", 1, 0, 'c'},
 		{0, 0, 0, 0}};
 	int c;
 	o->out = "fragments/params.tsv";
 	o->match = "auto";
 	o->fragments = NULL;
 	o->tier_b_weight = 0.25;
+	o->core_weight = 4.0;
 	pred_fit_options_init(&o->fit);
 	optind = 1;
 	while ((c = getopt_long(argc, argv, "h", lo, NULL)) != -1) {
@@ -51,6 +54,7 @@ static int parse_opts(fopts *o, int argc, char **argv)
 		case 'F': o->fragments = optarg; break;
 		case 'k': o->fit.folds = atoi(optarg); break;
 		case 'b': o->tier_b_weight = strtod(optarg, NULL); break;
+		case 'c': o->core_weight = strtod(optarg, NULL); break;
 		case 'n': o->fit.search_falloff = 0; break;
 		case 't': o->fit.trim = strtod(optarg, NULL); break;
 		case 'm': o->match = optarg; break;
@@ -58,8 +62,9 @@ static int parse_opts(fopts *o, int argc, char **argv)
 		default: usage(stderr); return 2;
 		}
 	}
-	if (o->fit.folds < 2 || o->fit.folds > 20 || !(o->tier_b_weight > 0))
-		return fprintf(stderr, "pkad fit: --folds must be 2..20, --tier-b-weight > 0\n"), 2;
+	if (o->fit.folds < 2 || o->fit.folds > 20 || !(o->tier_b_weight > 0) ||
+	    !(o->core_weight > 0))
+		return fprintf(stderr, "pkad fit: --folds must be 2..20, weights > 0\n"), 2;
 	if (srv_match_mode(o->match) < 0)
 		return fprintf(stderr, "pkad fit: --match must be auto, kind or steps\n"), 2;
 	if (optind >= argc)
@@ -74,6 +79,7 @@ static int add_file(pred_fit_row **rows, size_t *n, srv_csv **csv, srv_ref **ref
 	size_t nr = 0, used = 0, len = strlen(version);
 	pred_fit_row *nrows;
 	int rc = srv_csv_load(csv, path, e), steps;
+	double base_w;
 	if (!rc)
 		rc = srv_ref_read(refs, &nr, *csv, e);
 	if (!rc && srv_csv_column(*csv, "split") < 0) {
@@ -83,6 +89,7 @@ static int add_file(pred_fit_row **rows, size_t *n, srv_csv **csv, srv_ref **ref
 	if (rc)
 		return rc;
 	steps = srv_match_steps(srv_match_mode(o->match), *csv);
+	base_w = srv_csv_column(*csv, "site_class") >= 0 ? o->core_weight : 1.0;
 	if (!(nrows = realloc(*rows, (*n + nr + 1) * sizeof *nrows)))
 		return snprintf(e->msg, sizeof e->msg, "out of memory"), PRED_ENOMEM;
 	*rows = nrows;
@@ -91,7 +98,8 @@ static int add_file(pred_fit_row **rows, size_t *n, srv_csv **csv, srv_ref **ref
 		if (strcmp(r->split, "train"))
 			continue;
 		nrows[(*n)++] = (pred_fit_row){r->smiles, r->kind, r->pka_index, r->pka,
-					       strcmp(r->tier, "B") ? 1.0 : o->tier_b_weight, steps};
+					       base_w * (strcmp(r->tier, "B") ? 1.0 : o->tier_b_weight),
+					       steps};
 		used++;
 	}
 	if (len < 200) {
