@@ -289,7 +289,7 @@ static void header_versions(pred_model *m, const char *text)
 		sscanf(p + 17, " %127[^\n]", m->params_version);
 	p = strstr(text, "# data_version:");
 	if (p)
-		sscanf(p + 15, " %127[^\n]", m->data_version);
+		sscanf(p + 15, " %511[^\n]", m->data_version);
 }
 
 static int parse_params(pred_model *m, const tsv_table *t, pred_error *err)

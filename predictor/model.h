@@ -71,7 +71,7 @@ struct pred_model {
 	frag_base *bases;
 	size_t n_bases;
 	char params_version[128];
-	char data_version[128];
+	char data_version[512];
 	/* global parameter indices */
 	int p_falloff;      /* attenuation per intervening bond of the Taft walk */
 	int p_interaction;  /* charge-interaction scale (pKa units at distance 1) */
