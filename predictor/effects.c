@@ -96,17 +96,6 @@ typedef struct sigmas {
 	int generic; /* 0 tabulated, 1 estimated from element and charge */
 } sigmas;
 
-static int has_hetero_multiple_bond(const eng_mol *e, int x)
-{
-	for (size_t i = 0; i < e->nbonds; i++) {
-		const obw_bond *b = &e->bonds[i];
-		int other = b->a == x ? b->b : b->b == x ? b->a : -1;
-		if (other >= 0 && b->order >= 2 && e->atoms[other].element != 6)
-			return 1;
-	}
-	return 0;
-}
-
 /* Estimate for an atom no substituent row claims, from element, bonding and charge. The
  * values are rough class averages of substituent-constants.csv rows (estimates, flagged). */
 static void generic_sigmas(sigmas *g, const eng_mol *e, int x)
@@ -135,7 +124,7 @@ static void generic_sigmas(sigmas *g, const eng_mol *e, int x)
 		return;
 	}
 	if (a->element == 6) {
-		if (has_hetero_multiple_bond(e, x))
+		if (e->hetero_pi[x])
 			*g = (sigmas){0.35, 0.45, 0.85, 0.45, 1.60, "acyl-like C", 1};
 		else
 			*g = (sigmas){-0.07, -0.15, -0.15, -0.30, 0.0, "alkyl", 0};
@@ -160,14 +149,6 @@ static void group_sigmas(sigmas *g, const eng_mol *e, const pred_model *m, int x
 	const frag_subst *t = &m->substs[k];
 	*g = (sigmas){t->sigma_m, t->sigma_p, t->sigma_p_minus, t->sigma_p_plus, t->sigma_star,
 		      t->id, 0};
-}
-
-static int find_subst(const pred_model *m, const char *id)
-{
-	for (size_t k = 0; k < m->n_substs; k++)
-		if (!strcmp(m->substs[k].id, id))
-			return (int)k;
-	return -1;
 }
 
 static void hammett_term(term_list *tl, const pred_model *m, const frag_site *row, int pos,
@@ -208,7 +189,7 @@ static void ring_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 {
 	const frag_site *row = &m->sites[s->row];
 	const obw_rings *R = &e->rings;
-	int i0 = ring_index_of(R, k, ipso), aza = find_subst(m, "aza");
+	int i0 = ring_index_of(R, k, ipso), aza = m->subst_aza;
 	for (int j = 0; j < 6; j++) {
 		int a = R->atoms[R->offsets[k] + j], d = abs(j - i0);
 		int pos = (d < 6 - d ? d : 6 - d) + 1;
@@ -243,7 +224,7 @@ static int plain_carbon(const eng_mol *e, int x)
 	const obw_atom *a = &e->atoms[x];
 	if (a->aromatic && a->charge == 0)
 		return 1;
-	return a->element == 6 && a->charge == 0 && !has_hetero_multiple_bond(e, x);
+	return a->element == 6 && a->charge == 0 && !e->hetero_pi[x];
 }
 
 /* Taft walk: breadth-first from the centre; each group adds -rho* sigma* f^(d-1). */

@@ -51,6 +51,7 @@ typedef struct eng_mol {
 	int *adj;
 	int *group;     /* substituent row claiming each atom, -1 none */
 	int *group_root; /* root atom of the claim each atom belongs to, -1 none */
+	unsigned char *hetero_pi; /* atom has a double or triple bond to a heteroatom */
 	obw_rings rings;
 	eng_site *sites;
 	size_t n_sites;

@@ -229,6 +229,8 @@ static int parse_substs(pred_model *m, const tsv_table *t, pred_error *err)
 		m->n_substs = i + 1;
 		if (rc)
 			return rc;
+		if (!strcmp(m->substs[i].id, "aza"))
+			m->subst_aza = (int)i;
 	}
 	return 0;
 }
@@ -358,6 +360,7 @@ int pred_model_load(pred_model **out, const char *dir, pred_error *err)
 		dir = getenv("PKAD_FRAGMENTS");
 	if (dir && !*dir)
 		dir = NULL;
+	m->subst_aza = -1;
 	snprintf(m->params_version, sizeof m->params_version, "unfitted");
 	snprintf(m->data_version, sizeof m->data_version, "none");
 	int rc = add_globals(m);

@@ -66,6 +66,7 @@ struct pred_model {
 	size_t n_sites;
 	frag_subst *substs;
 	size_t n_substs;
+	int subst_aza; /* the "aza" row (ring nitrogen as a Hammett substituent), -1 none */
 	frag_corr *corrs;
 	size_t n_corrs;
 	frag_base *bases;

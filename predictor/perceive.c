@@ -19,12 +19,19 @@ static int build_graph(eng_mol *e)
 	for (size_t a = 0; a < e->nat; a++)
 		e->adj_start[a + 1] += e->adj_start[a];
 	int *fill = calloc(e->nat + 1, sizeof *fill);
-	if (!fill)
+	e->hetero_pi = calloc(e->nat + 1, 1);
+	if (!fill || !e->hetero_pi) {
+		free(fill);
 		return PRED_ENOMEM;
+	}
 	for (size_t i = 0; i < e->nbonds; i++) {
 		int a = e->bonds[i].a, b = e->bonds[i].b;
 		e->adj[e->adj_start[a] + fill[a]++] = b;
 		e->adj[e->adj_start[b] + fill[b]++] = a;
+		if (e->bonds[i].order >= 2) {
+			e->hetero_pi[a] |= e->atoms[b].element != 6;
+			e->hetero_pi[b] |= e->atoms[a].element != 6;
+		}
 	}
 	free(fill);
 	return 0;
@@ -231,5 +238,6 @@ void eng_free(eng_mol *e)
 	free(e->adj_start);
 	free(e->group);
 	free(e->group_root);
+	free(e->hetero_pi);
 	memset(e, 0, sizeof *e);
 }
