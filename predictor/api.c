@@ -85,6 +85,24 @@ static const char *corr_smarts(const pred_model *m, size_t i)
 	return m->corrs[i].smarts;
 }
 
+/* Nonzero when correction c applies to sites of this row (its id or group is listed). */
+static int corr_applies(const frag_corr *c, const frag_site *row)
+{
+	if (!strcmp(c->sites, "*"))
+		return 1;
+	size_t li = strlen(row->id), lg = strlen(row->group);
+	for (const char *p = c->sites; *p;) {
+		size_t len = strcspn(p, ",");
+		if ((len == li && !strncmp(p, row->id, li)) ||
+		    (len == lg && !strncmp(p, row->group, lg)))
+			return 1;
+		p += len;
+		if (*p == ',')
+			p++;
+	}
+	return 0;
+}
+
 static int corr_table(pred_worker *w)
 {
 	const pred_model *m = w->m;
@@ -94,7 +112,7 @@ static int corr_table(pred_worker *w)
 	for (size_t k = 0; k < m->n_corrs; k++)
 		for (size_t r = 0; r < m->n_sites; r++)
 			w->corr_ok[k * m->n_sites + r] =
-			    (unsigned char)eng_corr_applies(&m->corrs[k], &m->sites[r]);
+			    (unsigned char)corr_applies(&m->corrs[k], &m->sites[r]);
 	return 0;
 }
 

@@ -280,23 +280,6 @@ static void walk_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 	}
 }
 
-int eng_corr_applies(const frag_corr *c, const frag_site *row)
-{
-	if (!strcmp(c->sites, "*"))
-		return 1;
-	size_t li = strlen(row->id), lg = strlen(row->group);
-	for (const char *p = c->sites; *p;) {
-		size_t len = strcspn(p, ",");
-		if ((len == li && !strncmp(p, row->id, li)) ||
-		    (len == lg && !strncmp(p, row->group, lg)))
-			return 1;
-		p += len;
-		if (*p == ',')
-			p++;
-	}
-	return 0;
-}
-
 static void correction_effects(term_list *tl, const eng_mol *e, const pred_worker *w,
 			       const eng_site *s)
 {

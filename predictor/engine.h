@@ -86,9 +86,6 @@ typedef struct term_list {
 	int n_generic;
 } term_list;
 
-/* Nonzero when correction c applies to sites of this row (its id or group is listed). */
-int eng_corr_applies(const frag_corr *c, const frag_site *row);
-
 /* Adds a term; value = param value * feature (param >= 0) or feature (param < 0). */
 void terms_add(term_list *tl, const pred_model *m, const char *term, int param, double feature,
 	       const char *fmt, ...);
