@@ -7,6 +7,7 @@
 
 #include <openbabel/atom.h>
 #include <openbabel/bond.h>
+#include <openbabel/bondtyper.h>
 #include <openbabel/elements.h>
 #include <openbabel/generic.h>
 #include <openbabel/graphsym.h>
@@ -15,8 +16,10 @@
 #include <openbabel/oberror.h>
 #include <openbabel/obiter.h>
 #include <openbabel/parsmart.h>
+#include <openbabel/phmodel.h>
 #include <openbabel/ring.h>
 #include <openbabel/stereo/cistrans.h>
+#include <openbabel/typer.h>
 
 #include <algorithm>
 #include <cctype>
@@ -32,6 +35,12 @@
 #include <vector>
 
 using namespace OpenBabel;
+
+/* Defined per thread in libopenbabel (THREAD_LOCAL) but not declared by its headers. */
+namespace OpenBabel {
+extern thread_local OBBondTyper bondtyper;
+extern thread_local OBPhModel phmodel;
+} // namespace OpenBabel
 
 void obw_set_msg(char *msg, size_t msgn, const char *fmt, ...)
 {
@@ -337,16 +346,32 @@ static int parse_smiles(obw_mol *m, obw_ctx *c, const char *text, char *msg, siz
 	return 0;
 }
 
-/* The MDL reader calls the global OBLocale's SetLocale/RestoreLocale on every record, and
- * two threads doing that race on its saved-locale string (ThreadSanitizer, see
- * test_obwrap_threads). Mol-block reads are therefore serialised; SMILES reads are not. */
-static std::mutex molblock_lock;
+/* Open Babel's OBLocale is one global object whose SetLocale/RestoreLocale keep a counter
+ * and a saved-locale string without a lock; two threads inside it corrupt the heap. Two
+ * things call it after start-up: the MDL reader, on every record, and the first use in each
+ * thread of the typers that Open Babel keeps per thread (atom, bond and pH typers: their
+ * lazy data-table Init, reached for example from stereo perception in the canonical SMILES
+ * writer). Both run under this one lock: mol-block reads take it, and every entry point of
+ * the wrapper that can reach a typer first calls obw_thread_ready. */
+static std::mutex locale_lock;
+
+void obw_thread_ready(void)
+{
+	static thread_local bool ready = false;
+	if (ready)
+		return;
+	std::lock_guard<std::mutex> hold(locale_lock);
+	OpenBabel::atomtyper.Init();
+	OpenBabel::bondtyper.Init();
+	OpenBabel::phmodel.Init();
+	ready = true;
+}
 
 static int parse_molblock(obw_mol *m, obw_ctx *c, const char *text, char *msg, size_t msgn)
 {
 	int rc;
 	{
-		std::lock_guard<std::mutex> hold(molblock_lock);
+		std::lock_guard<std::mutex> hold(locale_lock);
 		rc = read_with(c, c->sdf, text, m->mol);
 	}
 	if (rc || m->mol.NumAtoms() == 0) {
@@ -381,6 +406,7 @@ extern "C" int obw_mol_parse(obw_mol **out, obw_ctx *c, const char *text, int fo
 	}
 	obw_mol *m = nullptr;
 	try {
+		obw_thread_ready();
 		m = new obw_mol;
 		int rc = parse_into(m, c, text, format, msg, msgn);
 		if (rc) {
@@ -412,6 +438,7 @@ extern "C" int obw_mol_clone(obw_mol **out, const obw_mol *m)
 {
 	*out = nullptr;
 	try {
+		obw_thread_ready();
 		*out = new obw_mol(*m);
 		return 0;
 	} catch (const std::bad_alloc &) {
@@ -446,6 +473,7 @@ extern "C" void obw_mol_rings(const obw_mol *m, obw_rings *out)
 extern "C" int obw_mol_symmetry(obw_mol *m, int *cls, size_t n, char *msg, size_t msgn)
 {
 	try {
+		obw_thread_ready();
 		if (n != m->atoms.size()) {
 			obw_set_msg(msg, msgn, "symmetry array has %zu slots for %zu atoms", n,
 				m->atoms.size());
@@ -506,6 +534,7 @@ extern "C" int obw_mol_keep_atoms(obw_mol *m, const unsigned char *keep, size_t 
 				  size_t msgn)
 {
 	try {
+		obw_thread_ready();
 		if (n != m->atoms.size()) {
 			obw_set_msg(msg, msgn, "keep array has %zu slots for %zu atoms", n,
 				m->atoms.size());
@@ -593,6 +622,7 @@ extern "C" int obw_mol_set_bond_order(obw_mol *m, int a, int b, int order)
 extern "C" int obw_mol_refresh(obw_mol *m, char *msg, size_t msgn)
 {
 	try {
+		obw_thread_ready();
 		rebuild_cache(m);
 		return 0;
 	} catch (const std::bad_alloc &) {
@@ -610,6 +640,7 @@ extern "C" obw_pattern *obw_pattern_parse(const char *smarts, char *msg, size_t 
 {
 	obw_pattern *p = nullptr;
 	try {
+		obw_thread_ready();
 		if (!smarts || !*smarts) {
 			obw_set_msg(msg, msgn, "empty smarts");
 			return nullptr;
@@ -645,6 +676,7 @@ extern "C" int obw_pattern_match(int **out, const obw_pattern *p, obw_mol *m)
 {
 	*out = nullptr;
 	try {
+		obw_thread_ready();
 		/* unique by (first atom, atom set): a symmetric pattern such as the two OH of
 		 * [OX2H1]C(=O)[OX2H1] gives one match per first atom, where unique-by-set
 		 * matching would give one match in all */

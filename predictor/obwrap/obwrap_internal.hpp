@@ -44,6 +44,9 @@ struct obw_pattern {
 /* One-line message into msg (msgn bytes; msg may be NULL). */
 void obw_set_msg(char *msg, size_t msgn, const char *fmt, ...)
 	__attribute__((format(printf, 3, 4)));
+/* Makes the calling thread's Open Babel typers ready under the locale lock (obwrap.cpp);
+ * cheap after the first call in a thread. Every entry point that can perceive calls it. */
+void obw_thread_ready(void);
 /* malloc'd copy of s, NULL when out of memory. */
 char *obw_dup_string(const std::string &s);
 

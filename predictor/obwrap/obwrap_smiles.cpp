@@ -63,6 +63,7 @@ static char *smiles_out(const std::string &s, const char *what, char *msg, size_
 extern "C" char *obw_mol_canonical(obw_mol *m, obw_ctx *c, char *msg, size_t msgn)
 {
 	try {
+		obw_thread_ready();
 		return smiles_out(write_canonical(m, c), "canonical smiles", msg, msgn);
 	} catch (...) {
 		obw_set_msg(msg, msgn, "cannot write canonical smiles");
@@ -173,6 +174,7 @@ extern "C" char *obw_mol_smiles_edited(obw_mol *m, obw_ctx *c, const int *atom, 
 				       size_t n, int canonical, char *msg, size_t msgn)
 {
 	try {
+		obw_thread_ready();
 		for (size_t k = 0; k < n; k++)
 			if (atom[k] < 0 || (size_t)atom[k] >= m->atoms.size()) {
 				obw_set_msg(msg, msgn, "atom %d out of range", atom[k]);

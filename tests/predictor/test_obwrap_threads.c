@@ -133,6 +133,44 @@ static void *run_job(void *arg)
 	return NULL;
 }
 
+/* Fresh threads whose very first call writes canonical SMILES of a molecule with a
+ * stereocentre: Open Babel builds its per-thread atom typer right there, and that build
+ * goes through the process-wide OBLocale. Under ThreadSanitizer this reported a race (and
+ * in the daemon a corrupted heap) until the wrapper serialised the first use per thread. */
+enum { N_FRESH = 8 };
+static pthread_barrier_t fresh_start;
+
+static void *fresh_thread(void *arg)
+{
+	char **out = arg;
+	pthread_barrier_wait(&fresh_start);
+	obw_ctx *c = obw_ctx_new();
+	obw_mol *m = NULL;
+	if (c && obw_mol_parse(&m, c, "N[C@@H](C)C(=O)O.[Na+]", OBW_SMILES, NULL, 0) == 0)
+		*out = obw_mol_canonical(m, c, NULL, 0);
+	obw_mol_free(m);
+	obw_ctx_free(c);
+	return NULL;
+}
+
+static void test_obwrap_threads__first_call_in_fresh_threads(void)
+{
+	pthread_t tid[N_FRESH];
+	char *out[N_FRESH] = {0};
+	CHECK_INT_EQ(pthread_barrier_init(&fresh_start, NULL, N_FRESH), 0);
+	for (int t = 0; t < N_FRESH; t++)
+		CHECK_INT_EQ(pthread_create(&tid[t], NULL, fresh_thread, &out[t]), 0);
+	for (int t = 0; t < N_FRESH; t++)
+		pthread_join(tid[t], NULL);
+	pthread_barrier_destroy(&fresh_start);
+	for (int t = 0; t < N_FRESH; t++) {
+		CHECK(out[t] != NULL);
+		CHECK_STR_EQ(out[t] ? out[t] : "", out[0] ? out[0] : "?");
+	}
+	for (int t = 0; t < N_FRESH; t++)
+		free(out[t]);
+}
+
 static void free_results(char **r, size_t n)
 {
 	for (size_t i = 0; r && i < n; i++)
@@ -179,6 +217,7 @@ int main(void)
 {
 	char msg[256] = "", **lines = NULL;
 	CHECK_INT_EQ(obw_global_init(msg, sizeof msg), 0);
+	test_obwrap_threads__first_call_in_fresh_threads();
 	int n = load_lines(&lines, NCI_SET);
 	if (n < 0) {
 		printf("skip: %s missing (install rdkit-data)\n", NCI_SET);
