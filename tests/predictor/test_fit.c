@@ -246,6 +246,15 @@ static void test_fit__params_file_keeps_rows_it_did_not_fit(void)
 	CHECK(strstr(text, "benzoic.parent") == NULL);
 	CHECK(strstr(text, "# interaction") < strstr(text, "id\tvalue"));
 	free(text);
+	/* a second fit over the file replaces its own header lines instead of adding to them */
+	CHECK_INT_EQ(pred_fit_write_params(m, &rep, path, "test rows", NULL), 0);
+	text = read_all(path);
+	const char *rm = strstr(text, "# rmse_cv:");
+	CHECK(rm != NULL && strstr(rm + 1, "# rmse_cv:") == NULL);
+	const char *dv = strstr(text, "# data_version:");
+	CHECK(dv != NULL && strstr(dv + 1, "# data_version:") == NULL);
+	CHECK(strstr(text, "# interaction rows fitted elsewhere\n") != NULL);
+	free(text);
 	free(rep.fitted);
 	unlink(path);
 	pred_model_free(m);
