@@ -60,6 +60,7 @@ static int grow(fit_data *d, size_t rows, size_t nnz)
 		GROW_OR_FAIL(d->y, cap);
 		GROW_OR_FAIL(d->w, cap);
 		GROW_OR_FAIL(d->c, cap);
+		GROW_OR_FAIL(d->ufac, cap);
 		GROW_OR_FAIL(d->fold, cap);
 		GROW_OR_FAIL(d->off, cap + 1);
 		d->cap = cap;
@@ -96,6 +97,7 @@ static int add_row(fit_data *d, const pred_result *r, const pred_fit_row *row, i
 	d->y[d->n] = row->pka;
 	d->w[d->n] = row->weight > 0 ? row->weight : 1.0;
 	d->c[d->n] = des.constant;
+	d->ufac[d->n] = des.unc_factor > 0 ? des.unc_factor : 1.0;
 	d->fold[d->n] = fold_of(row->smiles, folds);
 	d->off[++d->n] = base + des.n;
 	return 0;
@@ -341,8 +343,9 @@ static int by_abs_res(const void *a, const void *b)
 }
 
 /* The class error of parameter p from the cv residuals of the kept rows that use it: the
- * weighted q-quantile of |residual| (q = 0.68: about one sd, robust to the long tail of the
- * broad set; weights as in the fit), or their weighted rms when q is 0. Returns the rows. */
+ * weighted q-quantile of |residual| / (the row's widening factor) (q = 0.68: about one sd,
+ * robust to the long tail of the broad set; weights as in the fit), or their weighted rms
+ * when q is 0. Returns the rows. */
 static int class_error(double *out, wres *buf, const fit_state *s, const double *cv,
 		       size_t p, double q)
 {
@@ -353,8 +356,9 @@ static int class_error(double *out, wres *buf, const fit_state *s, const double 
 			continue;
 		for (size_t k = s->d.off[i]; k < s->d.off[i + 1]; k++)
 			if (s->d.param[k] == (int)p && s->d.feat[k] != 0) {
-				buf[n++] = (wres){fabs(cv[i]), s->d.w[i]};
-				sse += s->d.w[i] * cv[i] * cv[i];
+				double z = cv[i] / s->d.ufac[i];
+				buf[n++] = (wres){fabs(z), s->d.w[i]};
+				sse += s->d.w[i] * z * z;
 				sw += s->d.w[i];
 				break;
 			}

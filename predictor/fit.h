@@ -13,6 +13,7 @@
 typedef struct fit_data {
 	size_t n;          /* usable rows */
 	double *y, *w, *c; /* experimental pKa, weight, constant */
+	double *ufac;      /* the site's uncertainty widening factor (pred_design) */
 	size_t *off;       /* n + 1 offsets into param/feat */
 	int *param;
 	double *feat;

@@ -10,6 +10,7 @@
 void fit_data_clear(fit_data *d)
 {
 	free(d->y);
+	free(d->ufac);
 	free(d->w);
 	free(d->c);
 	free(d->off);

@@ -344,8 +344,12 @@ static int add_globals(pred_model *m)
 	/* One factor on every site uncertainty, chosen on the train split so that the share of
 	 * residuals within one uncertainty is near 68% (not fitted by least squares). */
 	m->p_unc_scale = model_param_add(m, "global.unc_scale", 1.0, 0);
+	/* Widening of the uncertainty with molecule size and site count (0: none); chosen on
+	 * the train split by tests/tools/fit_unc_widening.py, rows in params.tsv. */
+	m->p_unc_size = model_param_add(m, "global.unc_size", 0.0, 0);
+	m->p_unc_sites = model_param_add(m, "global.unc_sites", 0.0, 0);
 	return m->p_falloff < 0 || m->p_interaction < 0 || m->p_interaction_decay < 0 ||
-		       m->p_unc_scale < 0
+		       m->p_unc_scale < 0 || m->p_unc_size < 0 || m->p_unc_sites < 0
 		       ? PRED_ENOMEM
 		       : 0;
 }

@@ -78,6 +78,8 @@ struct pred_model {
 	int p_interaction;  /* charge-interaction scale (pKa units at distance 1) */
 	int p_interaction_decay; /* per-bond decay of the charge interaction */
 	int p_unc_scale;    /* calibration factor of every site uncertainty */
+	int p_unc_size;     /* widening per 10 heavy atoms beyond 8 (see site_unc_factor) */
+	int p_unc_sites;    /* widening per site beyond the first */
 };
 
 /* Index of the parameter with this id, or -1. */
@@ -93,6 +95,7 @@ typedef struct pred_design {
 	const int *param;
 	const double *feature;
 	double constant;
+	double unc_factor; /* the molecule's widening of the site's uncertainty (>= 1) */
 } pred_design;
 
 /* Design of site i of a result; borrowed. */

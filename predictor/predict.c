@@ -117,9 +117,25 @@ static const char *confidence_word(double u)
 	return u <= 0.5 ? "high" : u <= 1.0 ? "medium" : "low";
 }
 
+/* The molecule's widening of every site uncertainty: residuals grow with the size of the
+ * molecule (more groups near a site than the model's terms see) and with the number of
+ * sites (step assignment, interactions). 1 for a small one-site molecule; the two slopes
+ * are params.tsv rows. */
+static double site_unc_factor(const eng_mol *e, size_t n_sites, const pred_model *m)
+{
+	size_t heavy = 0;
+	for (size_t a = 0; a < e->nat; a++)
+		heavy += e->atoms[a].element != 1;
+	double big = heavy > 8 ? (double)(heavy - 8) / 10.0 : 0.0;
+	double more = n_sites > 1 ? (double)(n_sites - 1) : 0.0;
+	return 1.0 + m->params[m->p_unc_size].value * big + m->params[m->p_unc_sites].value * more;
+}
+
 /* Uncertainty: the class's cross-validated error (or table value before fitting), widened
- * for estimated substituents, for corrections and for large extrapolated shifts. */
-static double site_uncertainty(const term_list *tl, const pred_model *m, const frag_site *row)
+ * for estimated substituents, for corrections, for large extrapolated shifts and by the
+ * molecule's factor (the fit derives the class error from residuals divided by it). */
+static double site_uncertainty(const term_list *tl, const pred_model *m, const frag_site *row,
+			       double factor)
 {
 	double base = m->params[row->p_parent].rmse_cv > 0 ? m->params[row->p_parent].rmse_cv
 							  : row->unc;
@@ -127,11 +143,11 @@ static double site_uncertainty(const term_list *tl, const pred_model *m, const f
 	for (size_t i = 1; i < tl->n; i++)
 		shift += fabs(tl->t[i].value);
 	double var = base * base + tl->extra_var + (0.08 * shift) * (0.08 * shift);
-	return m->params[m->p_unc_scale].value * sqrt(var);
+	return m->params[m->p_unc_scale].value * factor * sqrt(var);
 }
 
 static int copy_site(pred_result *r, size_t i, const term_list *tl, const eng_mol *e,
-		     const pred_model *m, double micro)
+		     const pred_model *m, double micro, double factor)
 {
 	const eng_site *s = &e->sites[i];
 	const frag_site *row = &m->sites[s->row];
@@ -159,7 +175,8 @@ static int copy_site(pred_result *r, size_t i, const term_list *tl, const eng_mo
 	out->group = row->group;
 	out->kind = row->kind;
 	out->pka = terms_sum(tl);
-	out->uncertainty = site_uncertainty(tl, m, row);
+	out->uncertainty = site_uncertainty(tl, m, row, factor);
+	d->unc_factor = factor;
 	out->confidence = confidence_word(out->uncertainty);
 	out->n_terms = tl->n;
 	out->terms = terms;
@@ -229,8 +246,9 @@ static int build_sites(pred_result *r, eng_mol *e, pred_worker *w, pred_error *e
 		micro[i] = terms_sum(&tls[i]);
 	if (!rc)
 		rc = eng_stepwise(tls, e, w->m, sym);
+	double factor = site_unc_factor(e, n, w->m);
 	for (size_t i = 0; i < n && !rc; i++)
-		rc = copy_site(r, i, &tls[i], e, w->m, micro[i]);
+		rc = copy_site(r, i, &tls[i], e, w->m, micro[i], factor);
 	r->n_sites = rc ? 0 : n;
 	free(tls);
 	free(micro);

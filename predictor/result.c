@@ -196,4 +196,5 @@ void pred_result_design(const pred_result *r, size_t i, pred_design *out)
 	out->param = d->param;
 	out->feature = d->feature;
 	out->constant = d->constant;
+	out->unc_factor = d->unc_factor;
 }

@@ -13,6 +13,7 @@ typedef struct site_design {
 	int *param;
 	double *feature;
 	double constant;
+	double unc_factor;
 } site_design;
 
 typedef struct res_chunk res_chunk;
