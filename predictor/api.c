@@ -127,6 +127,26 @@ static int requirements(smarts_req **out, size_t n,
 	return 0;
 }
 
+static int screens(smarts_screen ***out, size_t n,
+		   const char *(*smarts)(const pred_model *, size_t), const pred_model *m)
+{
+	*out = calloc(n + 1, sizeof **out);
+	if (!*out)
+		return PRED_ENOMEM;
+	for (size_t i = 0; i < n; i++)
+		(*out)[i] = smarts_screen_new(smarts(m, i));
+	return 0;
+}
+
+static void free_screens(smarts_screen **s, size_t n)
+{
+	if (!s)
+		return;
+	for (size_t i = 0; i < n; i++)
+		smarts_screen_free(s[i]);
+	free(s);
+}
+
 int pred_worker_new(pred_worker **out, const pred_model *m, pred_error *err)
 {
 	*out = NULL;
@@ -148,6 +168,12 @@ int pred_worker_new(pred_worker **out, const pred_model *m, pred_error *err)
 		rc = requirements(&w->subst_req, m->n_substs, subst_smarts, m);
 	if (!rc)
 		rc = requirements(&w->corr_req, m->n_corrs, corr_smarts, m);
+	if (!rc)
+		rc = screens(&w->site_scr, m->n_sites, site_smarts, m);
+	if (!rc)
+		rc = screens(&w->subst_scr, m->n_substs, subst_smarts, m);
+	if (!rc)
+		rc = screens(&w->corr_scr, m->n_corrs, corr_smarts, m);
 	if (!rc)
 		rc = corr_table(w);
 	if (rc) {
@@ -179,5 +205,8 @@ void pred_worker_free(pred_worker *w)
 	free(w->subst_req);
 	free(w->corr_req);
 	free(w->corr_ok);
+	free_screens(w->site_scr, w->m->n_sites);
+	free_screens(w->subst_scr, w->m->n_substs);
+	free_screens(w->corr_scr, w->m->n_corrs);
 	free(w);
 }

@@ -9,6 +9,7 @@
 #include "model.h"
 #include "obwrap.h"
 #include "result.h"
+#include "smarts_screen.h"
 
 /* Elements a SMARTS pattern needs (bit z: atomic number z), by aromaticity. */
 typedef struct smarts_req {
@@ -29,6 +30,7 @@ struct pred_worker {
 	obw_pattern **subst_pat; /* one per m->substs row */
 	obw_pattern **corr_pat;  /* one per m->corrs row */
 	smarts_req *site_req, *subst_req, *corr_req;
+	smarts_screen **site_scr, **subst_scr, **corr_scr; /* NULL entries: never screened */
 	unsigned char *corr_ok; /* corr_ok[k * n_sites + r]: correction k applies to site row r */
 };
 
@@ -49,6 +51,11 @@ typedef struct eng_mol {
 	size_t nbonds;
 	int *adj_start; /* CSR adjacency: neighbours of a in adj[adj_start[a] .. adj_start[a+1]) */
 	int *adj;
+	int *adj_bond;  /* bond index of each adj[] entry */
+	uint32_t *ring_sizes; /* per atom, bit k: in an SSSR ring of size k */
+	uint32_t *kind;       /* sx_kind of each atom */
+	unsigned char *scratch; /* the screen's working memory */
+	sx_mol screen;  /* the graph as smarts_screen reads it */
 	int *group;     /* substituent row claiming each atom, -1 none */
 	int *group_root; /* root atom of the claim each atom belongs to, -1 none */
 	unsigned char *hetero_pi; /* atom has a double or triple bond to a heteroatom */

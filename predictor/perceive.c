@@ -10,7 +10,8 @@ static int build_graph(eng_mol *e)
 {
 	e->adj_start = calloc(e->nat + 1, sizeof *e->adj_start);
 	e->adj = malloc((2 * e->nbonds + 1) * sizeof *e->adj);
-	if (!e->adj_start || !e->adj)
+	e->adj_bond = malloc((2 * e->nbonds + 1) * sizeof *e->adj_bond);
+	if (!e->adj_start || !e->adj || !e->adj_bond)
 		return PRED_ENOMEM;
 	for (size_t i = 0; i < e->nbonds; i++) {
 		e->adj_start[e->bonds[i].a + 1]++;
@@ -26,7 +27,9 @@ static int build_graph(eng_mol *e)
 	}
 	for (size_t i = 0; i < e->nbonds; i++) {
 		int a = e->bonds[i].a, b = e->bonds[i].b;
+		e->adj_bond[e->adj_start[a] + fill[a]] = (int)i;
 		e->adj[e->adj_start[a] + fill[a]++] = b;
+		e->adj_bond[e->adj_start[b] + fill[b]] = (int)i;
 		e->adj[e->adj_start[b] + fill[b]++] = a;
 		if (e->bonds[i].order >= 2) {
 			e->hetero_pi[a] |= e->atoms[b].element != 6;
@@ -37,6 +40,33 @@ static int build_graph(eng_mol *e)
 	return 0;
 }
 
+/* The screen's view of the molecule: the CSR graph plus the SSSR ring sizes of each atom. */
+static int screen_view(eng_mol *e)
+{
+	e->ring_sizes = calloc(e->nat + 1, sizeof *e->ring_sizes);
+	e->kind = malloc((e->nat + 1) * sizeof *e->kind);
+	e->scratch = calloc(smarts_screen_scratch(e->nat), 1);
+	if (!e->ring_sizes || !e->kind || !e->scratch)
+		return PRED_ENOMEM;
+	uint32_t kinds = 0;
+	for (size_t a = 0; a < e->nat; a++)
+		kinds |= e->kind[a] = sx_kind(e->atoms[a].element, e->atoms[a].aromatic);
+	for (size_t k = 0; k < e->rings.n_rings; k++) {
+		int size = e->rings.sizes[k];
+		for (int i = 0; i < size && size < 32; i++)
+			e->ring_sizes[e->rings.atoms[e->rings.offsets[k] + i]] |= (uint32_t)1 << size;
+	}
+	e->screen = (sx_mol){e->atoms, e->bonds,      e->nat, e->adj_start, e->adj,
+			     e->adj_bond, e->ring_sizes, e->kind, kinds, e->scratch};
+	return 0;
+}
+
+/* The element prefilter, then the graph screen: zero when pattern p cannot match. */
+static int may_match(const eng_mol *e, const smarts_req *req, const smarts_screen *scr)
+{
+	return smarts_may_match(req, &e->elements) && smarts_screen_may_match(scr, &e->screen);
+}
+
 /* Substituent groups claim their atoms in table order; an atom belongs to one group. */
 static int claim_groups(eng_mol *e, const pred_worker *w)
 {
@@ -44,7 +74,7 @@ static int claim_groups(eng_mol *e, const pred_worker *w)
 	for (size_t a = 0; a < e->nat; a++)
 		e->group[a] = e->group_root[a] = -1;
 	for (size_t g = 0; g < m->n_substs; g++) {
-		if (!smarts_may_match(&w->subst_req[g], &e->elements))
+		if (!may_match(e, &w->subst_req[g], w->subst_scr[g]))
 			continue;
 		int *hits = NULL;
 		int n = obw_pattern_match(&hits, w->subst_pat[g], e->mol);
@@ -100,7 +130,7 @@ static int find_sites(eng_mol *e, const pred_worker *w)
 {
 	const pred_model *m = w->m;
 	for (size_t r = 0; r < m->n_sites; r++) {
-		if (!smarts_may_match(&w->site_req[r], &e->elements))
+		if (!may_match(e, &w->site_req[r], w->site_scr[r]))
 			continue;
 		int *hits = NULL;
 		int n = obw_pattern_match(&hits, w->site_pat[r], e->mol);
@@ -139,8 +169,7 @@ static int match_corrections(eng_mol *e, const pred_worker *w)
 	size_t used = 0, cap = 0;
 	for (size_t k = 0; k < m->n_corrs; k++) {
 		e->corr_start[k + 1] = (int)used;
-		if (!smarts_may_match(&w->corr_req[k], &e->elements) ||
-		    !corr_wanted(e, w, k))
+		if (!corr_wanted(e, w, k) || !may_match(e, &w->corr_req[k], w->corr_scr[k]))
 			continue;
 		int *hits = NULL;
 		int n = obw_pattern_match(&hits, w->corr_pat[k], e->mol);
@@ -208,6 +237,8 @@ int eng_perceive(eng_mol *e, pred_worker *w, obw_mol *mol, pred_error *err)
 	e->group = malloc((e->nat + 1) * sizeof *e->group);
 	e->group_root = malloc((e->nat + 1) * sizeof *e->group_root);
 	int rc = e->group && e->group_root ? build_graph(e) : PRED_ENOMEM;
+	if (!rc)
+		rc = screen_view(e);
 	/* sites first: a molecule without one needs no substituent perception */
 	if (!rc)
 		rc = find_sites(e, w);
@@ -235,6 +266,10 @@ void eng_free(eng_mol *e)
 	free(e->symclass);
 	free(e->corr_atom);
 	free(e->adj);
+	free(e->adj_bond);
+	free(e->ring_sizes);
+	free(e->kind);
+	free(e->scratch);
 	free(e->adj_start);
 	free(e->group);
 	free(e->group_root);

@@ -197,11 +197,13 @@ static void reset_perception(OBMol &mol)
 	mol.SetClosureBondsPerceived(false);
 }
 
-static void rebuild_cache(obw_mol *m)
+/* Views of the current graph; reset forgets the toolkit's perception first (after edits). */
+static void rebuild_cache(obw_mol *m, bool reset = true)
 {
 	OBMol &mol = m->mol;
 	m->canonical.clear();
-	reset_perception(mol);
+	if (reset)
+		reset_perception(mol);
 	m->atoms.clear();
 	m->bonds.clear();
 	FOR_ATOMS_OF_MOL (a, mol)
@@ -232,7 +234,8 @@ static bool foldable_h(OBAtom *a)
 	return b->GetBondOrder() == 1 && b->GetNbrAtom(a)->GetAtomicNum() != 1;
 }
 
-static void fold_hydrogens(obw_mol *m)
+/* Folds ordinary explicit hydrogens into their heavy atom; returns how many. */
+static size_t fold_hydrogens(obw_mol *m)
 {
 	OBMol &mol = m->mol;
 	std::vector<OBAtom *> gone;
@@ -253,6 +256,7 @@ static void fold_hydrogens(obw_mol *m)
 	for (size_t i = gone.size(); i-- > 0;)
 		mol.DeleteAtom(gone[i], true);
 	m->orig.swap(orig);
+	return gone.size();
 }
 
 /* ---- lifecycle ------------------------------------------------------------------------ */
@@ -391,8 +395,11 @@ static int parse_into(obw_mol *m, obw_ctx *c, const char *text, int format, char
 	m->orig.resize(m->mol.NumAtoms());
 	for (size_t i = 0; i < m->orig.size(); i++)
 		m->orig[i] = (int)i;
-	fold_hydrogens(m);
-	rebuild_cache(m);
+	/* the SMILES reader leaves aromaticity and rings perceived on the graph it built;
+	 * perceiving them again is needed only when folding hydrogens changed that graph */
+	size_t folded = fold_hydrogens(m);
+	rebuild_cache(m, format != OBW_SMILES || folded > 0 || !m->mol.HasAromaticPerceived() ||
+				 !m->mol.HasSSSRPerceived());
 	return 0;
 }
 

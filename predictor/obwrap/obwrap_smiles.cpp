@@ -180,7 +180,12 @@ extern "C" char *obw_mol_smiles_edited(obw_mol *m, obw_ctx *c, const int *atom, 
 				obw_set_msg(msg, msgn, "atom %d out of range", atom[k]);
 				return nullptr;
 			}
-		std::string s = canonical ? std::string() : edit_canonical(m, atom, dq, n);
+		bool unchanged = true;
+		for (size_t k = 0; k < n; k++)
+			unchanged = unchanged && dq[k] == 0;
+		/* the molecule as it is: its canonical SMILES is already written */
+		std::string s = canonical ? (unchanged ? m->canonical : std::string())
+					  : edit_canonical(m, atom, dq, n);
 		if (s.empty())
 			s = write_edited(m, c, atom, dq, n, canonical != 0);
 		return smiles_out(s, "smiles", msg, msgn);

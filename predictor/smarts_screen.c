@@ -1,0 +1,227 @@
+/* SPDX-License-Identifier: MIT */
+/* smarts_screen.c: does a compiled screen (smarts_screen_parse.c) possibly match a molecule?
+ * Backtracking over the pattern atoms in SMARTS order with three-valued primitives; only a
+ * primitive read exactly from the toolkit's own perception (element, aromaticity, H count,
+ * connections, charge, SSSR rings, bond order) can say no, so a "no" is never wrong. */
+#include <stdlib.h>
+#include <string.h>
+
+#include "smarts_screen.h"
+
+typedef struct search {
+	const smarts_screen *s;
+	const sx_mol *m;
+	unsigned char *memo;     /* n_pats x nat recursive values, 0 = not yet, else value + 1 */
+	unsigned char *used;     /* n_pats x nat: atoms taken by the embedding of each pattern */
+	unsigned char *feasible; /* per pattern: 0 not yet, 1 no, 2 yes */
+	int *map;                /* pattern atom -> molecule atom, all patterns side by side */
+	int map_base[SX_MAX_PATS];
+} search;
+
+static int tv_and(int a, int b)
+{
+	return a < b ? a : b;
+}
+
+static int tv_or(int a, int b)
+{
+	return a > b ? a : b;
+}
+
+static int tv(int cond)
+{
+	return cond ? SX_T : SX_F;
+}
+
+static int recursive_value(search *x, int pat, int atom);
+
+static int ring_size_value(const sx_mol *m, int atom, int size)
+{
+	if (!m->atoms[atom].in_ring)
+		return SX_F;
+	if (size < 32 && (m->ring_sizes[atom] >> size) & 1)
+		return SX_T;
+	return SX_U;
+}
+
+static int atom_prim(search *x, const sx_node *n, int atom)
+{
+	const obw_atom *a = &x->m->atoms[atom];
+	switch (n->prim) {
+	case SXP_TRUE: return SX_T;
+	case SXP_ELEM: return tv(a->element == n->value);
+	case SXP_AROM_ELEM: return tv(a->element == n->value && a->aromatic);
+	case SXP_ALIPH_ELEM: return tv(a->element == n->value && !a->aromatic);
+	case SXP_AROMATIC: return tv(a->aromatic);
+	case SXP_ALIPHATIC: return tv(!a->aromatic);
+	case SXP_HCOUNT: return tv(a->hcount == n->value);
+	case SXP_CONNECT: return tv(a->degree + a->hcount == n->value);
+	case SXP_DEGREE:
+		return tv(x->m->adj_start[atom + 1] - x->m->adj_start[atom] == n->value);
+	case SXP_CHARGE: return tv(a->charge == n->value);
+	case SXP_IN_RING: return tv(a->in_ring == n->value);
+	case SXP_RING_COUNT: return a->in_ring ? SX_U : SX_F;
+	case SXP_RING_SIZE: return ring_size_value(x->m, atom, n->value);
+	case SXP_RECURSIVE: return recursive_value(x, n->value, atom);
+	default: return SX_U;
+	}
+}
+
+static int bond_prim(const sx_node *n, const obw_bond *b)
+{
+	switch (n->prim) {
+	case SXB_SINGLE: return b->aromatic ? SX_U : tv(b->order == 1);
+	case SXB_DOUBLE: return b->aromatic ? SX_U : tv(b->order == 2);
+	case SXB_TRIPLE: return b->aromatic ? SX_U : tv(b->order == 3);
+	case SXB_AROMATIC: return tv(b->aromatic);
+	case SXB_ANY: return SX_T;
+	case SXB_RING: return tv(b->in_ring);
+	case SXB_DEFAULT: return tv(b->aromatic || b->order == 1);
+	default: return SX_U;
+	}
+}
+
+/* Value of expression node k on an atom (bond == NULL) or on a bond. */
+static int eval(search *x, int k, int atom, const obw_bond *bond)
+{
+	const sx_node *n = &x->s->nodes[k];
+	switch (n->op) {
+	case SX_AND: {
+		int a = eval(x, n->a, atom, bond);
+		return a == SX_F ? SX_F : tv_and(a, eval(x, n->b, atom, bond));
+	}
+	case SX_OR: {
+		int a = eval(x, n->a, atom, bond);
+		return a == SX_T ? SX_T : tv_or(a, eval(x, n->b, atom, bond));
+	}
+	case SX_NOT: return SX_T - eval(x, n->a, atom, bond);
+	default: return bond ? bond_prim(n, bond) : atom_prim(x, n, atom);
+	}
+}
+
+/* The molecule bond between atoms a and b, NULL when none. */
+static const obw_bond *bond_between(const sx_mol *m, int a, int b)
+{
+	for (int j = m->adj_start[a]; j < m->adj_start[a + 1]; j++)
+		if (m->adj[j] == b)
+			return &m->bonds[m->adj_bond[j]];
+	return NULL;
+}
+
+/* Lowest value of the ring-closure bonds that end at pattern atom k placed on atom. */
+static int closures_value(search *x, const sx_pat *pt, const int *map, int k, int atom)
+{
+	int v = SX_T;
+	for (int c = 0; c < pt->n_closures && v != SX_F; c++) {
+		const sx_closure *cl = &pt->closures[c];
+		if (cl->b != k)
+			continue;
+		const obw_bond *b = bond_between(x->m, map[cl->a], atom);
+		v = b ? tv_and(v, eval(x, cl->bond, -1, b)) : SX_F;
+	}
+	return v;
+}
+
+/* Best value (the lowest value along an embedding, maximised over embeddings) of the
+ * embeddings of pattern pat that extend atoms 0..k-1 of value cur; stops at target. */
+static int extend(search *x, int pat, int k, int cur, int target)
+{
+	const sx_pat *pt = &x->s->pats[pat];
+	int *map = x->map + x->map_base[pat];
+	unsigned char *used = x->used + (size_t)pat * x->m->nat;
+	if (k == pt->n_atoms)
+		return cur;
+	const sx_patom *pa = &pt->atoms[k];
+	const sx_mol *m = x->m;
+	int from = map[pa->parent], best = SX_F;
+	for (int j = m->adj_start[from]; j < m->adj_start[from + 1] && best < target; j++) {
+		int atom = m->adj[j];
+		if (used[atom] || !(m->kind[atom] & pa->kinds))
+			continue;
+		int v = tv_and(cur, eval(x, pa->bond, -1, &m->bonds[m->adj_bond[j]]));
+		if (v > best)
+			v = tv_and(v, eval(x, pa->expr, atom, NULL));
+		if (v > best)
+			v = tv_and(v, closures_value(x, pt, map, k, atom));
+		if (v <= best)
+			continue;
+		map[k] = atom;
+		used[atom] = 1;
+		v = extend(x, pat, k + 1, v, target);
+		used[atom] = 0;
+		if (v > best)
+			best = v;
+	}
+	return best;
+}
+
+/* Every atom of pattern pat has a kind the molecule holds. */
+static int feasible(search *x, int pat)
+{
+	if (!x->feasible[pat]) {
+		const sx_pat *pt = &x->s->pats[pat];
+		int yes = 1;
+		for (int i = 0; i < pt->n_atoms && yes; i++)
+			yes = (pt->atoms[i].kinds & x->m->kinds) != 0;
+		x->feasible[pat] = (unsigned char)(yes ? 2 : 1);
+	}
+	return x->feasible[pat] == 2;
+}
+
+/* Best value of the embeddings of pattern pat with its first atom on atom. */
+static int rooted(search *x, int pat, int atom, int target)
+{
+	const sx_pat *pt = &x->s->pats[pat];
+	if (!(x->m->kind[atom] & pt->atoms[0].kinds))
+		return SX_F;
+	int v = eval(x, pt->atoms[0].expr, atom, NULL);
+	if (v == SX_F)
+		return SX_F;
+	unsigned char *used = x->used + (size_t)pat * x->m->nat;
+	x->map[x->map_base[pat]] = atom;
+	used[atom] = 1;
+	v = extend(x, pat, 1, v, target);
+	used[atom] = 0;
+	return v;
+}
+
+/* A recursive pattern is matched on its own (its atoms may repeat the outer match's). */
+static int recursive_value(search *x, int pat, int atom)
+{
+	unsigned char *slot = &x->memo[(size_t)pat * x->m->nat + (size_t)atom];
+	if (!*slot)
+		*slot = (unsigned char)(1 + (feasible(x, pat) ? rooted(x, pat, atom, SX_T) : SX_F));
+	return *slot - 1;
+}
+
+size_t smarts_screen_scratch(size_t nat)
+{
+	return 2 * (size_t)SX_MAX_PATS * nat + SX_MAX_PATS + SX_MAX_ATOMS * sizeof(int) + 16;
+}
+
+int smarts_screen_may_match(const smarts_screen *s, const sx_mol *m)
+{
+	if (!s || !m->nat || !m->scratch)
+		return 1;
+	search x;
+	x.s = s;
+	x.m = m;
+	size_t total = 0, cells = (size_t)s->n_pats * m->nat;
+	for (int p = 0; p < s->n_pats; p++) {
+		x.map_base[p] = (int)total;
+		total += (size_t)s->pats[p].n_atoms;
+	}
+	/* layout: map (ints, aligned first), memo, used, feasible */
+	x.map = (int *)(void *)m->scratch;
+	x.memo = m->scratch + SX_MAX_ATOMS * sizeof(int);
+	x.used = x.memo + (size_t)SX_MAX_PATS * m->nat;
+	x.feasible = x.used + (size_t)SX_MAX_PATS * m->nat;
+	memset(x.memo, 0, cells);
+	memset(x.feasible, 0, (size_t)s->n_pats);
+	if (!feasible(&x, 0))
+		return 0;
+	for (size_t a = 0; a < m->nat; a++)
+		if (rooted(&x, 0, (int)a, SX_U) != SX_F)
+			return 1;
+	return 0;
+}

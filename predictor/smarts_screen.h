@@ -1,0 +1,88 @@
+/* SPDX-License-Identifier: MIT */
+/* smarts_screen.h: a conservative SMARTS screen over the engine's own graph (three-valued:
+ * a primitive it cannot decide exactly counts as "maybe"), so the toolkit's matcher runs only
+ * on molecules where a pattern can match. Shared by smarts_screen_parse.c and smarts_screen.c. */
+#ifndef PKAD_SMARTS_SCREEN_H
+#define PKAD_SMARTS_SCREEN_H
+
+#include <stddef.h>
+#include <stdint.h>
+
+#include "obwrap.h"
+
+enum { SX_MAX_PATS = 64, SX_MAX_ATOMS = 256 }; /* larger patterns are not screened */
+
+enum { SX_F = 0, SX_U = 1, SX_T = 2 }; /* false, unknown, true */
+
+enum {
+	SX_AND, SX_OR, SX_NOT, SX_PRIM
+};
+
+enum {
+	/* atom primitives */
+	SXP_TRUE, SXP_UNKNOWN, SXP_ELEM, SXP_AROM_ELEM, SXP_ALIPH_ELEM, SXP_AROMATIC,
+	SXP_ALIPHATIC, SXP_HCOUNT, SXP_CONNECT, SXP_DEGREE, SXP_CHARGE, SXP_IN_RING,
+	SXP_RING_COUNT, SXP_RING_SIZE, SXP_RECURSIVE,
+	/* bond primitives */
+	SXB_SINGLE, SXB_DOUBLE, SXB_TRIPLE, SXB_AROMATIC, SXB_ANY, SXB_RING, SXB_DEFAULT
+};
+
+typedef struct sx_node {
+	int op;    /* SX_AND, SX_OR, SX_NOT (a), SX_PRIM (prim, value) */
+	int prim;
+	int value; /* element, count, charge, size, or the sub-pattern of SXP_RECURSIVE */
+	int a, b;  /* operand nodes */
+} sx_node;
+
+typedef struct sx_patom {
+	uint32_t kinds; /* atom kinds (sx_kind) the expression may accept */
+	int expr;   /* atom expression node */
+	int parent; /* earlier pattern atom bonded to this one, -1 for the first */
+	int bond;   /* expression of that bond */
+} sx_patom;
+
+typedef struct sx_closure {
+	int a, b, bond; /* ring-closure bond between pattern atoms a < b */
+} sx_closure;
+
+typedef struct sx_pat {
+	int n_atoms, n_closures;
+	sx_patom *atoms;
+	sx_closure *closures;
+} sx_pat;
+
+typedef struct smarts_screen {
+	sx_node *nodes;
+	int n_nodes;
+	sx_pat *pats; /* pats[0] is the pattern, the rest its recursive parts */
+	int n_pats;
+} smarts_screen;
+
+/* The molecule as the screen sees it (borrowed arrays; built once per molecule). */
+/* Kind of an atom for the fast pre-test: bit 2 * i + aromatic for element i of
+ * sx_kind_elements, bit 31 for any other element. */
+uint32_t sx_kind(int element, int aromatic);
+
+typedef struct sx_mol {
+	const obw_atom *atoms;
+	const obw_bond *bonds;
+	size_t nat;
+	const int *adj_start, *adj, *adj_bond; /* CSR: neighbour and bond index */
+	const uint32_t *ring_sizes; /* bit k: the atom is in an SSSR ring of size k (k < 32) */
+	const uint32_t *kind;       /* sx_kind of each atom */
+	uint32_t kinds;             /* union of kind[] */
+	unsigned char *scratch;     /* smarts_screen_scratch(nat) bytes, owned by the caller */
+} sx_mol;
+
+/* Bytes of scratch the screen needs for a molecule of nat atoms. */
+size_t smarts_screen_scratch(size_t nat);
+
+/* Compiles smarts; NULL when it uses anything the screen does not read (never screened). */
+smarts_screen *smarts_screen_new(const char *smarts);
+void smarts_screen_free(smarts_screen *s);
+
+/* Zero only when the pattern surely has no match in the molecule; nonzero when it may.
+ * A NULL screen always may, and so does any failure (out of memory). */
+int smarts_screen_may_match(const smarts_screen *s, const sx_mol *m);
+
+#endif

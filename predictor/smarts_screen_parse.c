@@ -1,0 +1,480 @@
+/* SPDX-License-Identifier: MIT */
+/* smarts_screen_parse.c: compiles the SMARTS subset the screen reads (Daylight SMARTS
+ * grammar: '!' binds tightest, then '&' and adjacency, then ',', then ';'); anything else
+ * makes the pattern unscreened rather than guessed. */
+#include <ctype.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "smarts_screen.h"
+
+typedef struct parser {
+	smarts_screen *s;
+	const char *p, *end;
+	int bad;
+} parser;
+
+static int node(parser *ps, int op, int prim, int value, int a, int b)
+{
+	smarts_screen *s = ps->s;
+	sx_node *grown = realloc(s->nodes, (size_t)(s->n_nodes + 1) * sizeof *grown);
+	if (!grown) {
+		ps->bad = 1;
+		return 0;
+	}
+	s->nodes = grown;
+	s->nodes[s->n_nodes] = (sx_node){op, prim, value, a, b};
+	return s->n_nodes++;
+}
+
+static int prim(parser *ps, int kind, int value)
+{
+	return node(ps, SX_PRIM, kind, value, -1, -1);
+}
+
+static int number(parser *ps, int dflt)
+{
+	if (ps->p >= ps->end || !isdigit((unsigned char)*ps->p))
+		return dflt;
+	int v = 0;
+	while (ps->p < ps->end && isdigit((unsigned char)*ps->p))
+		v = 10 * v + (*ps->p++ - '0');
+	return v;
+}
+
+static const struct {
+	const char *sym;
+	int z;
+} two_letter[] = {{"Cl", 17}, {"Br", 35}, {"Si", 14}, {"Se", 34}, {"Na", 11},
+		  {"Li", 3},  {"Mg", 12}, {"Al", 13}, {"As", 33}, {"Te", 52}};
+
+/* Element symbol at ps->p; outside brackets only Cl and Br take two letters. */
+static int element(parser *ps, int in_bracket)
+{
+	static const char one[] = "BCNOFPSIK", one_z[] = {5, 6, 7, 8, 9, 15, 16, 53, 19};
+	const char *q = ps->p;
+	if (q + 1 < ps->end && islower((unsigned char)q[1]))
+		for (size_t i = 0; i < (in_bracket ? sizeof two_letter / sizeof two_letter[0] : 2);
+		     i++)
+			if (!strncmp(q, two_letter[i].sym, 2)) {
+				ps->p += 2;
+				return prim(ps, SXP_ALIPH_ELEM, two_letter[i].z);
+			}
+	if (in_bracket && q + 1 < ps->end && islower((unsigned char)q[1])) {
+		ps->bad = 1; /* an element symbol this table does not know */
+		return 0;
+	}
+	const char *c = strchr(one, *q);
+	if (!*q || !c) {
+		ps->bad = 1;
+		return 0;
+	}
+	ps->p++;
+	return prim(ps, SXP_ALIPH_ELEM, one_z[c - one]);
+}
+
+static int aromatic_element(parser *ps)
+{
+	static const char one[] = "cnospb";
+	static const int one_z[] = {6, 7, 8, 16, 15, 5};
+	if (ps->p + 1 < ps->end && !strncmp(ps->p, "se", 2)) {
+		ps->p += 2;
+		return prim(ps, SXP_AROM_ELEM, 34);
+	}
+	const char *c = strchr(one, *ps->p);
+	ps->p++;
+	return prim(ps, SXP_AROM_ELEM, one_z[c - one]);
+}
+
+static int parse_pattern(parser *ps, const char *start, const char *end);
+
+/* "$(...)": the sub-pattern becomes a pattern of its own. */
+static int recursive(parser *ps)
+{
+	const char *q = ps->p + 2;
+	int depth = 1;
+	for (; q < ps->end && depth; q++)
+		depth += (*q == '(') - (*q == ')');
+	if (depth) {
+		ps->bad = 1;
+		return 0;
+	}
+	int sub = parse_pattern(ps, ps->p + 2, q - 1);
+	ps->p = q;
+	return prim(ps, SXP_RECURSIVE, sub);
+}
+
+static int charge(parser *ps)
+{
+	char sign = *ps->p++;
+	int n = 1;
+	if (ps->p < ps->end && isdigit((unsigned char)*ps->p))
+		n = number(ps, 1);
+	else
+		while (ps->p < ps->end && *ps->p == sign) {
+			n++;
+			ps->p++;
+		}
+	return prim(ps, SXP_CHARGE, sign == '+' ? n : -n);
+}
+
+static int ring_prim(parser *ps, int size_form)
+{
+	ps->p++;
+	int n = number(ps, -1);
+	if (n < 0)
+		return prim(ps, SXP_IN_RING, 1);
+	if (n == 0)
+		return prim(ps, SXP_IN_RING, 0);
+	return prim(ps, size_form ? SXP_RING_SIZE : SXP_RING_COUNT, n);
+}
+
+static int atom_prim(parser *ps, int first, int in_bracket)
+{
+	char c = *ps->p;
+	if (c == '$' && ps->p + 1 < ps->end && ps->p[1] == '(')
+		return recursive(ps);
+	if (c == '#') {
+		ps->p++;
+		return prim(ps, SXP_ELEM, number(ps, -1));
+	}
+	if (c == '*' || c == 'a' || c == 'A') {
+		ps->p++;
+		return prim(ps, c == '*' ? SXP_TRUE : c == 'a' ? SXP_AROMATIC : SXP_ALIPHATIC, 0);
+	}
+	if (c == 'H' && !first) {
+		ps->p++;
+		return prim(ps, SXP_HCOUNT, number(ps, 1));
+	}
+	if (c == 'X' || c == 'D') {
+		ps->p++;
+		return prim(ps, c == 'X' ? SXP_CONNECT : SXP_DEGREE, number(ps, 1));
+	}
+	if (c == 'R' || c == 'r')
+		return ring_prim(ps, c == 'r');
+	if (c == '+' || c == '-')
+		return charge(ps);
+	if (c == 'x' || c == 'v' || c == '^' || c == '@' || isdigit((unsigned char)c)) {
+		/* ring connectivity, valence, hybridisation, chirality, isotope: not decided */
+		ps->p++;
+		while (ps->p < ps->end && (isdigit((unsigned char)*ps->p) || *ps->p == '@'))
+			ps->p++;
+		return prim(ps, SXP_UNKNOWN, 0);
+	}
+	if (strchr("cnospb", c) && c)
+		return aromatic_element(ps);
+	if (isupper((unsigned char)c) && c != 'H')
+		return element(ps, in_bracket);
+	ps->bad = 1;
+	return 0;
+}
+
+static int atom_not(parser *ps, int first)
+{
+	if (ps->p < ps->end && *ps->p == '!') {
+		ps->p++;
+		return node(ps, SX_NOT, 0, 0, atom_not(ps, 0), -1);
+	}
+	return atom_prim(ps, first, 1);
+}
+
+static int atom_and_hi(parser *ps, int first)
+{
+	int a = atom_not(ps, first);
+	while (!ps->bad && ps->p < ps->end && !strchr("],;", *ps->p)) {
+		if (*ps->p == '&')
+			ps->p++;
+		a = node(ps, SX_AND, 0, 0, a, atom_not(ps, 0));
+	}
+	return a;
+}
+
+static int atom_or(parser *ps, int first)
+{
+	int a = atom_and_hi(ps, first);
+	while (!ps->bad && ps->p < ps->end && *ps->p == ',') {
+		ps->p++;
+		a = node(ps, SX_OR, 0, 0, a, atom_and_hi(ps, 0));
+	}
+	return a;
+}
+
+/* Bracket atom at ps->p ('[' already passed) up to its ']'. */
+static int bracket_atom(parser *ps)
+{
+	int a = atom_or(ps, 1);
+	while (!ps->bad && ps->p < ps->end && *ps->p == ';') {
+		ps->p++;
+		a = node(ps, SX_AND, 0, 0, a, atom_or(ps, 0));
+	}
+	if (ps->p >= ps->end || *ps->p != ']')
+		ps->bad = 1;
+	else
+		ps->p++;
+	return a;
+}
+
+static int bond_prim(parser *ps)
+{
+	static const char sym[] = "-=#:~@";
+	static const int kind[] = {SXB_SINGLE, SXB_DOUBLE, SXB_TRIPLE, SXB_AROMATIC, SXB_ANY,
+				   SXB_RING};
+	char c = *ps->p;
+	if (c == '!') {
+		ps->p++;
+		return node(ps, SX_NOT, 0, 0, bond_prim(ps), -1);
+	}
+	const char *k = c ? strchr(sym, c) : NULL;
+	ps->p++;
+	if (!k) {
+		ps->bad = 1; /* '/', '\\' and anything else */
+		return 0;
+	}
+	return prim(ps, kind[k - sym], 0);
+}
+
+static int is_bond_char(char c)
+{
+	return c && strchr("-=#:~@!&,;", c);
+}
+
+/* Bond expression: '&' and adjacency, then ',', then ';'. */
+static int bond_expr(parser *ps)
+{
+	int lo = -1;
+	while (!ps->bad && ps->p < ps->end && is_bond_char(*ps->p)) {
+		int or = -1;
+		while (!ps->bad && ps->p < ps->end && is_bond_char(*ps->p) && *ps->p != ';') {
+			int and = bond_prim(ps);
+			while (!ps->bad && ps->p < ps->end && is_bond_char(*ps->p) &&
+			       !strchr(",;", *ps->p)) {
+				if (*ps->p == '&')
+					ps->p++;
+				and = node(ps, SX_AND, 0, 0, and, bond_prim(ps));
+			}
+			or = or < 0 ? and : node(ps, SX_OR, 0, 0, or, and);
+			if (ps->p < ps->end && *ps->p == ',')
+				ps->p++;
+		}
+		lo = lo < 0 ? or : node(ps, SX_AND, 0, 0, lo, or);
+		if (ps->p < ps->end && *ps->p == ';')
+			ps->p++;
+	}
+	return lo;
+}
+
+static int add_atom(parser *ps, sx_pat *pt, int expr, int parent, int bond)
+{
+	sx_patom *grown = realloc(pt->atoms, (size_t)(pt->n_atoms + 1) * sizeof *grown);
+	if (!grown) {
+		ps->bad = 1;
+		return -1;
+	}
+	pt->atoms = grown;
+	pt->atoms[pt->n_atoms] = (sx_patom){0, expr, parent, bond};
+	return pt->n_atoms++;
+}
+
+static void add_closure(parser *ps, sx_pat *pt, int a, int b, int bond)
+{
+	sx_closure *grown = realloc(pt->closures, (size_t)(pt->n_closures + 1) * sizeof *grown);
+	if (!grown) {
+		ps->bad = 1;
+		return;
+	}
+	pt->closures = grown;
+	pt->closures[pt->n_closures++] = (sx_closure){a, b, bond};
+}
+
+static int new_pat(parser *ps)
+{
+	smarts_screen *s = ps->s;
+	sx_pat *grown = realloc(s->pats, (size_t)(s->n_pats + 1) * sizeof *grown);
+	if (!grown) {
+		ps->bad = 1;
+		return 0;
+	}
+	s->pats = grown;
+	memset(&s->pats[s->n_pats], 0, sizeof s->pats[0]);
+	return s->n_pats++;
+}
+
+enum { SX_MAX_BRANCH = 64, SX_MAX_RING = 100 };
+
+typedef struct chain {
+	int prev, bond, depth;
+	int stack[SX_MAX_BRANCH];
+	int ring_atom[SX_MAX_RING], ring_bond[SX_MAX_RING];
+} chain;
+
+static void ring_digit(parser *ps, int pi, chain *ch)
+{
+	int d;
+	if (*ps->p == '%') {
+		ps->p++;
+		d = number(ps, -1);
+	} else {
+		d = *ps->p++ - '0';
+	}
+	if (d < 0 || d >= SX_MAX_RING || ch->prev < 0) {
+		ps->bad = 1;
+		return;
+	}
+	if (ch->ring_atom[d] < 0) {
+		ch->ring_atom[d] = ch->prev;
+		ch->ring_bond[d] = ch->bond;
+	} else {
+		int bond = ch->bond >= 0 ? ch->bond : ch->ring_bond[d];
+		if (bond < 0)
+			bond = prim(ps, SXB_DEFAULT, 0);
+		add_closure(ps, &ps->s->pats[pi], ch->ring_atom[d], ch->prev, bond);
+		ch->ring_atom[d] = -1;
+	}
+	ch->bond = -1;
+}
+
+static void chain_atom(parser *ps, int pi, chain *ch, int expr)
+{
+	int bond = ch->bond;
+	if (ch->prev >= 0 && bond < 0)
+		bond = prim(ps, SXB_DEFAULT, 0);
+	if (ps->bad)
+		return;
+	ch->prev = add_atom(ps, &ps->s->pats[pi], expr, ch->prev, ch->prev >= 0 ? bond : -1);
+	ch->bond = -1;
+}
+
+static void chain_step(parser *ps, int pi, chain *ch)
+{
+	char c = *ps->p;
+	if (c == '[') {
+		ps->p++;
+		chain_atom(ps, pi, ch, bracket_atom(ps));
+	} else if (c == '(') {
+		if (ch->depth >= SX_MAX_BRANCH || ch->prev < 0)
+			ps->bad = 1;
+		else
+			ch->stack[ch->depth++] = ch->prev;
+		ps->p++;
+	} else if (c == ')') {
+		if (ch->depth <= 0)
+			ps->bad = 1;
+		else
+			ch->prev = ch->stack[--ch->depth];
+		ps->p++;
+	} else if (isdigit((unsigned char)c) || c == '%') {
+		ring_digit(ps, pi, ch);
+	} else if (is_bond_char(c)) {
+		ch->bond = bond_expr(ps);
+	} else if (c == '*' || c == 'a' || c == 'A' || (c && strchr("cnospb", c)) ||
+		   (isupper((unsigned char)c) && c != 'H')) {
+		chain_atom(ps, pi, ch, atom_prim(ps, 0, 0));
+	} else {
+		ps->bad = 1; /* '.', '/', '\\', ... */
+	}
+}
+
+static int parse_pattern(parser *ps, const char *start, const char *end)
+{
+	const char *save_p = ps->p, *save_end = ps->end;
+	int pi = new_pat(ps);
+	chain ch;
+	ch.prev = ch.bond = -1;
+	ch.depth = 0;
+	for (int i = 0; i < SX_MAX_RING; i++)
+		ch.ring_atom[i] = -1;
+	ps->p = start;
+	ps->end = end;
+	while (!ps->bad && ps->p < ps->end)
+		chain_step(ps, pi, &ch);
+	for (int i = 0; i < SX_MAX_RING; i++)
+		ps->bad |= ch.ring_atom[i] >= 0;
+	ps->bad |= ps->s->pats[pi].n_atoms == 0 || ch.depth != 0;
+	ps->p = save_p;
+	ps->end = save_end;
+	return pi;
+}
+
+void smarts_screen_free(smarts_screen *s)
+{
+	if (!s)
+		return;
+	for (int i = 0; i < s->n_pats; i++) {
+		free(s->pats[i].atoms);
+		free(s->pats[i].closures);
+	}
+	free(s->pats);
+	free(s->nodes);
+	free(s);
+}
+
+static const int kind_elements[] = {1, 5, 6, 7, 8, 9, 14, 15, 16, 17, 34, 35, 53};
+enum { N_KIND_ELEMENTS = sizeof kind_elements / sizeof kind_elements[0] };
+
+uint32_t sx_kind(int element, int aromatic)
+{
+	for (int i = 0; i < N_KIND_ELEMENTS; i++)
+		if (kind_elements[i] == element)
+			return (uint32_t)1 << (2 * i + (aromatic ? 1 : 0));
+	return (uint32_t)1 << 31;
+}
+
+/* Value of an atom expression on an atom known only by element and aromaticity. */
+static int kind_value(const smarts_screen *s, int k, int element, int aromatic)
+{
+	const sx_node *n = &s->nodes[k];
+	int a, b;
+	switch (n->op) {
+	case SX_AND:
+		a = kind_value(s, n->a, element, aromatic);
+		b = kind_value(s, n->b, element, aromatic);
+		return a < b ? a : b;
+	case SX_OR:
+		a = kind_value(s, n->a, element, aromatic);
+		b = kind_value(s, n->b, element, aromatic);
+		return a > b ? a : b;
+	case SX_NOT: return SX_T - kind_value(s, n->a, element, aromatic);
+	default: break;
+	}
+	switch (n->prim) {
+	case SXP_TRUE: return SX_T;
+	case SXP_ELEM: return element == n->value ? SX_T : SX_F;
+	case SXP_AROM_ELEM: return element == n->value && aromatic ? SX_T : SX_F;
+	case SXP_ALIPH_ELEM: return element == n->value && !aromatic ? SX_T : SX_F;
+	case SXP_AROMATIC: return aromatic ? SX_T : SX_F;
+	case SXP_ALIPHATIC: return aromatic ? SX_F : SX_T;
+	default: return SX_U;
+	}
+}
+
+static void atom_kinds(smarts_screen *s)
+{
+	for (int p = 0; p < s->n_pats; p++)
+		for (int i = 0; i < s->pats[p].n_atoms; i++) {
+			sx_patom *pa = &s->pats[p].atoms[i];
+			pa->kinds = (uint32_t)1 << 31;
+			for (int e = 0; e < N_KIND_ELEMENTS; e++)
+				for (int ar = 0; ar < 2; ar++)
+					if (kind_value(s, pa->expr, kind_elements[e], ar) != SX_F)
+						pa->kinds |= sx_kind(kind_elements[e], ar);
+		}
+}
+
+smarts_screen *smarts_screen_new(const char *smarts)
+{
+	smarts_screen *s = calloc(1, sizeof *s);
+	if (!s || !smarts)
+		return s ? (free(s), NULL) : NULL;
+	parser ps = {s, smarts, smarts + strlen(smarts), 0};
+	parse_pattern(&ps, ps.p, ps.end);
+	if (!ps.bad)
+		atom_kinds(s);
+	int atoms = 0;
+	for (int p = 0; p < s->n_pats; p++)
+		atoms += s->pats[p].n_atoms;
+	if (ps.bad || s->n_pats > SX_MAX_PATS || atoms > SX_MAX_ATOMS) {
+		smarts_screen_free(s);
+		return NULL;
+	}
+	return s;
+}
