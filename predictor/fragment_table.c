@@ -348,8 +348,10 @@ static int add_globals(pred_model *m)
 	 * the train split by tests/tools/fit_unc_widening.py, rows in params.tsv. */
 	m->p_unc_size = model_param_add(m, "global.unc_size", 0.0, 0);
 	m->p_unc_sites = model_param_add(m, "global.unc_sites", 0.0, 0);
+	m->p_unc_floor = model_param_add(m, "global.unc_floor", 0.0, 0);
 	return m->p_falloff < 0 || m->p_interaction < 0 || m->p_interaction_decay < 0 ||
-		       m->p_unc_scale < 0 || m->p_unc_size < 0 || m->p_unc_sites < 0
+		       m->p_unc_scale < 0 || m->p_unc_size < 0 || m->p_unc_sites < 0 ||
+		       m->p_unc_floor < 0
 		       ? PRED_ENOMEM
 		       : 0;
 }

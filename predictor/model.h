@@ -80,6 +80,7 @@ struct pred_model {
 	int p_unc_scale;    /* calibration factor of every site uncertainty */
 	int p_unc_size;     /* widening per 10 heavy atoms beyond 8 (see site_unc_factor) */
 	int p_unc_sites;    /* widening per site beyond the first */
+	int p_unc_floor;    /* no site uncertainty below this (repeatability of the data) */
 };
 
 /* Index of the parameter with this id, or -1. */

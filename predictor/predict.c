@@ -133,7 +133,9 @@ static double site_unc_factor(const eng_mol *e, size_t n_sites, const pred_model
 
 /* Uncertainty: the class's cross-validated error (or table value before fitting), widened
  * for estimated substituents, for corrections, for large extrapolated shifts and by the
- * molecule's factor (the fit derives the class error from residuals divided by it). */
+ * molecule's factor (the fit derives the class error from residuals divided by it); never
+ * below the floor, the repeatability of independent measurements of one value (a class
+ * fitted on a few rows can show a class error far under it). */
 static double site_uncertainty(const term_list *tl, const pred_model *m, const frag_site *row,
 			       double factor)
 {
@@ -143,7 +145,8 @@ static double site_uncertainty(const term_list *tl, const pred_model *m, const f
 	for (size_t i = 1; i < tl->n; i++)
 		shift += fabs(tl->t[i].value);
 	double var = base * base + tl->extra_var + (0.08 * shift) * (0.08 * shift);
-	return m->params[m->p_unc_scale].value * factor * sqrt(var);
+	double u = m->params[m->p_unc_scale].value * factor * sqrt(var);
+	return fmax(u, m->params[m->p_unc_floor].value);
 }
 
 static int copy_site(pred_result *r, size_t i, const term_list *tl, const eng_mol *e,

@@ -11,7 +11,10 @@
  * most basic base site (descending pKa); ties go by array order; -1 when there is none. */
 long pred_site_rank(const pred_site *sites, size_t n, pred_kind kind, int index);
 /* The steps a measurement in water reports: the row kind's sites with pKa 0..14 and the
- * other kind's with pKa 1..13 ranked together first, then the row kind's other sites. */
-long pred_site_rank_steps(const pred_site *sites, size_t n, pred_kind kind, int index);
+ * other kind's with pKa 1..13 ranked together first, then the row kind's other sites.
+ * n_steps is the number of rows of this kind the molecule has (0: unknown); when the row
+ * kind has at least that many sites in 0..14, the other kind's sites are left out. */
+long pred_site_rank_steps(const pred_site *sites, size_t n, pred_kind kind, int index,
+			  int n_steps);
 
 #endif

@@ -43,6 +43,7 @@ typedef struct srv_ref {
 	const char *tier;       /* tier column or "" */
 	pred_kind kind;
 	int pka_index;          /* 1-based; 1 when the column is absent */
+	int n_steps;            /* highest pka_index of the file's rows of this molecule and kind */
 	double pka;
 	size_t line;
 } srv_ref;

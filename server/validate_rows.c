@@ -89,6 +89,35 @@ static int parse_row(srv_ref *r, const srv_csv *c, size_t i, const ref_cols *k,
 	return 0;
 }
 
+/* Order of rows by molecule and kind, for counting the steps of each. */
+static int by_molecule(const void *a, const void *b)
+{
+	const srv_ref *x = *(const srv_ref *const *)a, *y = *(const srv_ref *const *)b;
+	int c = strcmp(x->smiles, y->smiles);
+	return c ? c : (int)x->kind - (int)y->kind;
+}
+
+/* Sets n_steps of every row: the highest pka_index among the rows of its molecule and kind
+ * (a compilation's numbering of the steps it lists). */
+static int count_steps(srv_ref *rows, size_t n)
+{
+	srv_ref **ord = n ? malloc(n * sizeof *ord) : NULL;
+	if (n && !ord)
+		return PRED_ENOMEM;
+	for (size_t i = 0; i < n; i++)
+		ord[i] = &rows[i];
+	qsort(ord, n, sizeof *ord, by_molecule);
+	for (size_t i = 0, j; i < n; i = j) {
+		int top = 0;
+		for (j = i; j < n && !by_molecule(&ord[i], &ord[j]); j++)
+			top = ord[j]->pka_index > top ? ord[j]->pka_index : top;
+		for (size_t k = i; k < j; k++)
+			ord[k]->n_steps = top;
+	}
+	free(ord);
+	return 0;
+}
+
 int srv_ref_read(srv_ref **out, size_t *n, const srv_csv *c, pred_error *err)
 {
 	ref_cols k;
@@ -111,6 +140,14 @@ int srv_ref_read(srv_ref **out, size_t *n, const srv_csv *c, pred_error *err)
 			free(rows);
 			return rc;
 		}
+	}
+	if (count_steps(rows, nr)) {
+		free(rows);
+		if (err) {
+			err->code = PRED_ENOMEM;
+			snprintf(err->msg, sizeof err->msg, "out of memory");
+		}
+		return PRED_ENOMEM;
 	}
 	*out = rows;
 	*n = nr;

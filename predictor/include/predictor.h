@@ -274,8 +274,11 @@ long pred_result_match(const pred_result *r, pred_kind kind, int index);
  *  together first (a base book's second
  *  step of an amino acid is its COOH, its first step of a 3-hydroxypyridine the OH), then
  *  the sites of the row's kind outside that window (an amide measured by an acidity
- *  function). Returns -1 when there are too few. Thread-safe. */
-long pred_result_match_steps(const pred_result *r, pred_kind kind, int index);
+ *  function). n_steps is the number of the molecule's rows of this kind (0: unknown): when
+ *  the row's kind has at least that many sites in 0..14, only those are ranked (a book that
+ *  lists one step of a benzimidazole measured its ring N, not its NH). Returns -1 when
+ *  there are too few. Thread-safe. */
+long pred_result_match_steps(const pred_result *r, pred_kind kind, int index, int n_steps);
 
 /** One experimental value used for fitting; strings are borrowed from the caller. */
 typedef struct pred_fit_row {
@@ -285,6 +288,7 @@ typedef struct pred_fit_row {
 	double pka;
 	double weight;  /* relative weight, > 0 (e.g. lower for less reliable grades) */
 	int match_steps; /* nonzero: the site is found with pred_result_match_steps */
+	int n_steps;     /* the molecule's rows of this kind, for match_steps (0: unknown) */
 } pred_fit_row;
 
 /** Options of pred_fit; pred_fit_options_init fills the defaults. */

@@ -100,14 +100,14 @@ static void test_fit__steps_rank_both_kinds_in_water_window(void)
 			    {.kind = PRED_BASE, .pka = -9.0}};
 	pred_site hyp[2] = {{.kind = PRED_ACID, .pka = 8.6}, {.kind = PRED_BASE, .pka = 4.8}};
 	pred_site ace[2] = {{.kind = PRED_ACID, .pka = 4.8}, {.kind = PRED_BASE, .pka = -6.0}};
-	CHECK_INT_EQ(pred_site_rank_steps(gly, 3, PRED_BASE, 1), 0);
-	CHECK_INT_EQ(pred_site_rank_steps(gly, 3, PRED_BASE, 2), 1);
+	CHECK_INT_EQ(pred_site_rank_steps(gly, 3, PRED_BASE, 1, 2), 0);
+	CHECK_INT_EQ(pred_site_rank_steps(gly, 3, PRED_BASE, 2, 2), 1);
 	CHECK_INT_EQ(pred_site_rank(gly, 3, PRED_BASE, 2), 2);
-	CHECK_INT_EQ(pred_site_rank_steps(gly, 3, PRED_ACID, 2), 0);
-	CHECK_INT_EQ(pred_site_rank_steps(hyp, 2, PRED_BASE, 1), 0);
-	CHECK_INT_EQ(pred_site_rank_steps(hyp, 2, PRED_BASE, 2), 1);
-	CHECK_INT_EQ(pred_site_rank_steps(ace, 2, PRED_ACID, 1), 0);
-	CHECK_INT_EQ(pred_site_rank_steps(ace, 2, PRED_ACID, 2), -1);
+	CHECK_INT_EQ(pred_site_rank_steps(gly, 3, PRED_ACID, 2, 2), 0);
+	CHECK_INT_EQ(pred_site_rank_steps(hyp, 2, PRED_BASE, 1, 2), 0);
+	CHECK_INT_EQ(pred_site_rank_steps(hyp, 2, PRED_BASE, 2, 2), 1);
+	CHECK_INT_EQ(pred_site_rank_steps(ace, 2, PRED_ACID, 1, 1), 0);
+	CHECK_INT_EQ(pred_site_rank_steps(ace, 2, PRED_ACID, 2, 1), -1);
 }
 
 /* A naphtholsulfonic acid's first measured step is the OH: the sulfonic acid is fully ionised
@@ -117,12 +117,24 @@ static void test_fit__steps_put_unmeasurable_sites_last(void)
 {
 	pred_site nso[2] = {{.kind = PRED_ACID, .pka = -1.5}, {.kind = PRED_ACID, .pka = 9.3}};
 	pred_site amd[2] = {{.kind = PRED_ACID, .pka = 15.1}, {.kind = PRED_BASE, .pka = -0.5}};
-	CHECK_INT_EQ(pred_site_rank_steps(nso, 2, PRED_ACID, 1), 1);
-	CHECK_INT_EQ(pred_site_rank_steps(nso, 2, PRED_ACID, 2), 0);
+	CHECK_INT_EQ(pred_site_rank_steps(nso, 2, PRED_ACID, 1, 2), 1);
+	CHECK_INT_EQ(pred_site_rank_steps(nso, 2, PRED_ACID, 2, 2), 0);
 	CHECK_INT_EQ(pred_site_rank(nso, 2, PRED_ACID, 1), 0);
-	CHECK_INT_EQ(pred_site_rank_steps(amd, 2, PRED_BASE, 1), 1);
-	CHECK_INT_EQ(pred_site_rank_steps(amd, 2, PRED_BASE, 2), -1);
-	CHECK_INT_EQ(pred_site_rank_steps(amd, 2, PRED_ACID, 1), 0);
+	CHECK_INT_EQ(pred_site_rank_steps(amd, 2, PRED_BASE, 1, 1), 1);
+	CHECK_INT_EQ(pred_site_rank_steps(amd, 2, PRED_BASE, 2, 1), -1);
+	CHECK_INT_EQ(pred_site_rank_steps(amd, 2, PRED_ACID, 1, 1), 0);
+}
+
+/* Perrin lists one step of 2-methylbenzimidazole, the ring N cation (6.18, data/iupac-pka.csv
+ * perrin rows); the NH deprotonates near 12 and is not that step. With two rows of a
+ * molecule that has one base site in the window, the other kind's site is still a step. */
+static void test_fit__steps_keep_to_the_row_kind_when_it_has_enough_sites(void)
+{
+	pred_site bim[2] = {{.kind = PRED_ACID, .pka = 11.8}, {.kind = PRED_BASE, .pka = 6.2}};
+	CHECK_INT_EQ(pred_site_rank_steps(bim, 2, PRED_BASE, 1, 1), 1);
+	CHECK_INT_EQ(pred_site_rank_steps(bim, 2, PRED_BASE, 1, 2), 0);
+	CHECK_INT_EQ(pred_site_rank_steps(bim, 2, PRED_BASE, 1, 0), 0);
+	CHECK_INT_EQ(pred_site_rank_steps(bim, 2, PRED_BASE, 2, 1), -1);
 }
 
 static void check_against_closed_form(double rho_prior, double rho_sd)
@@ -327,7 +339,7 @@ static void test_fit__recovers_a_shifted_parent(void)
 		pred_predict(&r, w, fit_smiles[i], PRED_FMT_SMILES, NULL, NULL);
 		k = r ? pred_result_match(r, PRED_ACID, 1) : -1;
 		ys[i] = k >= 0 ? pred_result_site(r, (size_t)k)->pka : 0;
-		rows[i] = (pred_fit_row){fit_smiles[i], PRED_ACID, 1, ys[i], 1.0, 0};
+		rows[i] = (pred_fit_row){fit_smiles[i], PRED_ACID, 1, ys[i], 1.0, 0, 0};
 		pred_result_free(r);
 	}
 	pred_worker_free(w);
@@ -357,6 +369,7 @@ int main(void)
 	RUN(test_fit__ties_rank_in_site_order);
 	RUN(test_fit__steps_rank_both_kinds_in_water_window);
 	RUN(test_fit__steps_put_unmeasurable_sites_last);
+	RUN(test_fit__steps_keep_to_the_row_kind_when_it_has_enough_sites);
 	RUN(test_fit__solver_equals_closed_form_ridge);
 	RUN(test_fit__recovers_hammett_benzoic_series);
 	RUN(test_fit__huber_weights_resist_an_outlier);

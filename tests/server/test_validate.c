@@ -109,6 +109,28 @@ static void test_refs__reads_optional_columns(void)
 	srv_csv_free(c);
 }
 
+/* Glycine has two base rows in Perrin (9.78, 2.35) and two acid rows in Serjeant & Dempsey;
+ * methylamine one base row (data/iupac-pka.csv). */
+static void test_refs__counts_the_steps_of_each_molecule_and_kind(void)
+{
+	pred_error e = {0, ""};
+	srv_csv *c = parse("smiles,pka,pka_index,kind\n"
+			   "NCC(=O)O,9.78,1,base\nCN,10.66,1,base\nNCC(=O)O,2.35,2,base\n"
+			   "NCC(=O)O,2.35,1,acid\n", &e);
+	srv_ref *r = NULL;
+	size_t n = 0;
+	CHECK_INT_EQ(srv_ref_read(&r, &n, c, &e), 0);
+	CHECK_INT_EQ(n, 4);
+	if (n == 4) {
+		CHECK_INT_EQ(r[0].n_steps, 2);
+		CHECK_INT_EQ(r[1].n_steps, 1);
+		CHECK_INT_EQ(r[2].n_steps, 2);
+		CHECK_INT_EQ(r[3].n_steps, 1);
+	}
+	free(r);
+	srv_csv_free(c);
+}
+
 static void test_refs__auto_match_follows_the_site_class_column(void)
 {
 	pred_error e = {0, ""};
@@ -192,6 +214,7 @@ int main(void)
 	RUN(test_csv__unterminated_quote_is_an_error);
 	RUN(test_refs__bad_number_names_line_and_column);
 	RUN(test_refs__reads_optional_columns);
+	RUN(test_refs__counts_the_steps_of_each_molecule_and_kind);
 	RUN(test_refs__auto_match_follows_the_site_class_column);
 	RUN(test_stats__figures_match_hand_computation);
 	RUN(test_stats__classes_keep_first_appearance_order);
