@@ -33,7 +33,7 @@ static int own_comment(const char *line)
 {
 	static const char *const mine[] = {"# params.tsv: fitted parameters, written by",
 					   "# params_version:", "# data_version:", "# fitted on",
-					   "# fit:", "# weighted train"};
+					   "# fit:", "# weighted train", "# rmse_cv:"};
 	for (size_t i = 0; i < sizeof mine / sizeof mine[0]; i++)
 		if (!strncmp(line, mine[i], strlen(mine[i])))
 			return 1;
