@@ -127,6 +127,14 @@ static const norm_case tautomer_cases[] = {
 	{"Oc1ccncc1", "O=c1cc[nH]cc1", "hydroxy-azine to azinone", "4-pyridone"},
 	{"Oc1ccnc(O)n1", "O=c1cc[nH]c(=O)[nH]1", "input tautomer changed", "uracil"},
 	{"Oc1ccc2ccccc2n1", "O=c1ccc2ccccc2[nH]1", "lactim to lactam", "2-quinolone"},
+	/* the same lactams from the other Kekule form (C2=C3 drawn, the C=N away from C-OH):
+	 * the H goes round the ring to the N beside C-OH */
+	{"CCc1cccnc1O", "CCc1ccc[nH]c1=O", "lactim to lactam", "3-ethyl-2-pyridone as C2=C3"},
+	{"Oc1ncccc1CC", "CCc1ccc[nH]c1=O", "lactim to lactam", "3-ethyl-2-pyridone as C2=N1"},
+	{"Cc1nc2ccccc2nc1O", "O=c1[nH]c2ccccc2nc1C", "lactim to lactam",
+	 "3-methylquinoxalin-2(1H)-one"},
+	{"Oc1nccc2c1cccc2", "O=c1[nH]ccc2c1cccc2", "lactim to lactam", "isoquinolin-1(2H)-one"},
+	{"Oc1cccnc1", "Oc1cccnc1", NULL, "3-hydroxypyridine stays (no lactam without a charge)"},
 	{"Oc1ccnc2ccccc12", "O=c1cc[nH]c2ccccc12", "input tautomer changed", "4-quinolone"},
 	{"Nc1nc(O)c2nc[nH]c2n1", "Nc1nc2[nH]cnc2c(=O)[nH]1", "lactim to lactam", "guanine"},
 	{"CCC1(c2ccccc2)C(O)=NC(O)=NC1=O", "CCC1(c2ccccc2)C(=O)NC(=O)NC1=O", "lactim to lactam",
