@@ -10,7 +10,7 @@
 /* The shifts, in the order they are tried for each OH / SH. */
 typedef enum { SHIFT_NONE = 0, SHIFT_IMINOL, SHIFT_AZINE, SHIFT_ENOL } shift_kind;
 
-enum { PATH_MAX_ATOMS = 7 };
+enum { PATH_MAX_ATOMS = 11 };
 
 typedef struct shift {
 	shift_kind kind;
@@ -150,26 +150,25 @@ static int find_azine(const graph *g, int o, int c1, shift *s)
 }
 
 /* Extends the alternating path p (len atoms so far; bond k has order 1 for even k, 2 for
- * odd k) through neutral C or N up to PATH_MAX_ATOMS atoms ending at a neutral N, with
- * every atom but the donor in one ring. */
-static int extend_ring_path(const graph *g, int *p, int len, shift *s)
+ * odd k) through neutral aromatic C or N until it has want atoms and ends at the neutral
+ * ring N bonded to C-OH (p[1]). */
+static int extend_ring_path(const graph *g, int *p, int len, int want, shift *s)
 {
-	int want = (len - 1) % 2 == 0 ? 1 : 2;
-	for (int k = 0, y; (y = nbr(g, p[len - 1], want, k)) >= 0; k++) {
+	int ord = (len - 1) % 2 == 0 ? 1 : 2;
+	for (int k = 0, y; (y = nbr(g, p[len - 1], ord, k)) >= 0; k++) {
 		int seen = 0;
 		for (int i = 0; i < len; i++)
 			seen |= p[i] == y;
-		if (seen || (!neutral(g, y, 6) && !neutral(g, y, 7)))
+		if (seen || !g->a[y].aromatic || (!neutral(g, y, 6) && !neutral(g, y, 7)))
 			continue;
 		p[len] = y;
-		if (len + 1 == PATH_MAX_ATOMS) {
-			if (neutral(g, y, 7) && in_one_ring(g, p + 1, PATH_MAX_ATOMS - 1)) {
-				s->kind = SHIFT_IMINOL;
-				memcpy(s->path, p, sizeof s->path);
-				s->len = PATH_MAX_ATOMS;
+		if (len + 1 < want) {
+			if (extend_ring_path(g, p, len + 1, want, s))
 				return 1;
-			}
-		} else if (extend_ring_path(g, p, len + 1, s)) {
+		} else if (neutral(g, y, 7) && order(g, p[1], y) == 1) {
+			s->kind = SHIFT_IMINOL;
+			memcpy(s->path, p, (size_t)want * sizeof *p);
+			s->len = want;
 			return 1;
 		}
 	}
@@ -177,15 +176,20 @@ static int extend_ring_path(const graph *g, int *p, int len, shift *s)
 }
 
 /* A lactim whose ring N is beside C-OH but whose Kekule form puts the C=N elsewhere
- * (2-hydroxypyridines drawn with C2=C3, quinoxalin-2-ols): the alternating path runs
- * around the ring, O-C2=C3-C4=C5-C6=N1, and a 1,7 shift gives the same lactam as the
- * 1,3 shift of the other Kekule form. */
+ * (2-hydroxypyridines drawn with C2=C3, quinoxalin-2-ols, isoquinolin-3-ols drawn with
+ * C3=C4): an alternating path from the O round the ring, or through a fused ring, reaches
+ * that N (O-C2=C3-C4=C5-C6=N1), and shifting the H along it gives the same lactam as the
+ * 1,3 shift of the other Kekule form. The shortest such path is taken. */
 static int find_lactim_around(const graph *g, int o, int c1, shift *s)
 {
 	if (!g->a[c1].aromatic)
 		return 0;
-	int p[PATH_MAX_ATOMS] = {o, c1};
-	return extend_ring_path(g, p, 2, s);
+	for (int want = 7; want <= PATH_MAX_ATOMS; want += 2) {
+		int p[PATH_MAX_ATOMS] = {o, c1};
+		if (extend_ring_path(g, p, 2, want, s))
+			return 1;
+	}
+	return 0;
 }
 
 /* Whether a neighbour of c1 or c2 (other than o, c1, c2) carries a non-aromatic double or
