@@ -68,6 +68,7 @@ typedef struct eng_mol {
 	int shared_rows; /* two sites come from one row: they may be equivalent */
 	int *corr_start; /* CSR: first atoms matched by correction k in corr_atom[..] */
 	int *corr_atom;
+	int *pair_param; /* n_sites x n_sites: parameter of a monoanion hydrogen-bond pair, -1 */
 } eng_mol;
 
 /* Builds graph, claims and sites from a normalised molecule. */
@@ -100,6 +101,9 @@ double terms_sum(const term_list *tl);
 
 /* Hammett ring, Taft walk and corrections of site s. */
 void eng_site_effects(term_list *tl, const eng_mol *e, const pred_worker *w, const eng_site *s);
+
+/* Fills e->pair_param from the hbond_pair rows of corrections.tsv (pair_hbond.c). */
+int eng_pair_hbonds(eng_mol *e, const pred_worker *w);
 
 /* Stepwise statistical and interaction terms (see DEVELOPERS.md): a titration from the fully
  * protonated form, each step ionising the site of lowest effective pKa. tls[i] holds the

@@ -142,7 +142,9 @@ int ion_work_init(ion_work *w, pred_result *r, const pred_model *m, const ion_in
 		w->q_on[i] = r->sites[i].kind == PRED_ACID ? -1 : 1;
 		for (size_t j = 0; j < w->n; j++)
 			w->W[i * w->n + j] =
-			    i == j ? 0 : ionization_pair_shift(m, site_bonds(in, i, j));
+			    i == j ? 0
+				   : ionization_pair_shift(m, site_bonds(in, i, j)) +
+					 (in && in->pair_extra ? in->pair_extra[i * w->n + j] : 0);
 	}
 	w->fixed = fixed_charge(in);
 	choose_cluster(w, ph);

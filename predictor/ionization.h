@@ -26,6 +26,9 @@ typedef struct ion_input {
 	/* symmetry class of every atom when some sites may be equivalent (else NULL):
 	 * microstates whose ionised sites have the same classes are one species */
 	const int *symclass;
+	/* n_sites x n_sites pKa shifts added to the charge interaction of two ionised acids
+	 * (monoanion hydrogen bonds, pair_hbond.c), or NULL */
+	const double *pair_extra;
 } ion_input;
 
 /* Fills r->macro, r->ph, r->charge, r->species, r->has_pi/pi, r->approximate and, when

@@ -265,6 +265,7 @@ void eng_free(eng_mol *e)
 	free(e->corr_start);
 	free(e->symclass);
 	free(e->corr_atom);
+	free(e->pair_param);
 	free(e->adj);
 	free(e->adj_bond);
 	free(e->ring_sizes);

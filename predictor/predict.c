@@ -245,6 +245,8 @@ static int build_sites(pred_result *r, eng_mol *e, pred_worker *w, pred_error *e
 		rc = res_note(r, "oxygen bases below pKa 0 not listed: the molecule has a "
 				 "stronger base");
 	n = e->n_sites;
+	if (!rc)
+		rc = eng_pair_hbonds(e, w);
 	for (size_t i = 0; i < n && !rc; i++)
 		micro[i] = terms_sum(&tls[i]);
 	if (!rc)
@@ -281,6 +283,18 @@ static int out_of_time(double start, const pred_options *opt, pred_error *err)
 		    opt->max_seconds);
 }
 
+/* The microstate model's share of the monoanion hydrogen bonds: the pair term that
+ * eng_stepwise gives the second site (-2 v, pair_hbond.c) as an extra pair shift. */
+static double *pair_extra(const eng_mol *e, const pred_model *m)
+{
+	size_t n = e->n_sites;
+	double *x = calloc(n * n + 1, sizeof *x);
+	for (size_t k = 0; x && e->pair_param && k < n * n; k++)
+		if (e->pair_param[k] >= 0)
+			x[k] = -2.0 * m->params[e->pair_param[k]].value;
+	return x;
+}
+
 static int finish(pred_result *r, eng_mol *e, pred_worker *w, const pred_options *opt,
 		  pred_error *err)
 {
@@ -290,15 +304,21 @@ static int finish(pred_result *r, eng_mol *e, pred_worker *w, const pred_options
 	free(can);
 	if (!r->smiles)
 		return fail(err, PRED_EINTERNAL, "canonical smiles: %s", msg);
-	int *site_atoms = calloc(e->n_sites + 1, sizeof *site_atoms);
-	if (!site_atoms)
+	size_t n = e->n_sites;
+	int *site_atoms = calloc(n + 1, sizeof *site_atoms);
+	double *extra = pair_extra(e, w->m);
+	if (!site_atoms || !extra) {
+		free(site_atoms);
+		free(extra);
 		return PRED_ENOMEM;
-	for (size_t i = 0; i < e->n_sites; i++)
+	}
+	for (size_t i = 0; i < n; i++)
 		site_atoms[i] = e->sites[i].atom;
 	ion_input in = {e->mol, w->ctx, site_atoms, e->dist, e->nat,
-			e->shared_rows ? e->symclass : NULL};
+			e->shared_rows ? e->symclass : NULL, extra};
 	int rc = ionization_fill(r, w->m, &in, opt, err);
 	free(site_atoms);
+	free(extra);
 	if (!rc && r->n_sites == 0)
 		rc = res_note(r, "no ionizable site found");
 	return rc;

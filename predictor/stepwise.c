@@ -45,6 +45,22 @@ static double interaction(const step_state *st, const eng_mol *e, const pred_mod
 	return sum;
 }
 
+/* Feature of the monoanion hydrogen-bond term of site i (-2 per ionised partner of its
+ * pair row, see pair_hbond.c); *param is that row's parameter or -1. */
+static double pair_feature(const step_state *st, const eng_mol *e, size_t i, int *param)
+{
+	double f = 0;
+	*param = -1;
+	for (size_t j = 0; e->pair_param && j < e->n_sites; j++) {
+		int p = e->pair_param[i * e->n_sites + j];
+		if (p < 0 || st->charge[j] >= 0 || (*param >= 0 && p != *param))
+			continue;
+		*param = p;
+		f -= 2.0;
+	}
+	return f;
+}
+
 static double statistical(const step_state *st, size_t i)
 {
 	int n = st->eq_n[st->leader[i]], k = st->eq_done[st->leader[i]] + 1;
@@ -80,21 +96,29 @@ static double zwitterion_penalty(const step_state *st, const eng_mol *e, const p
 static void step_once(term_list *tls, step_state *st, const eng_mol *e, const pred_model *m)
 {
 	size_t best = 0;
-	double best_rank = HUGE_VAL, best_stat = 0, best_int = 0;
+	double best_rank = HUGE_VAL, best_stat = 0, best_int = 0, best_pf = 0;
+	int best_pp = -1;
 	for (size_t i = 0; i < e->n_sites; i++) {
 		if (st->done[i])
 			continue;
+		int pp;
 		double stat = statistical(st, i), inter = interaction(st, e, m, i);
-		double eff = st->micro[i] + stat + inter;
+		double pf = pair_feature(st, e, i, &pp);
+		double eff = st->micro[i] + stat + inter + (pp >= 0 ? m->params[pp].value * pf : 0);
 		double rank = eff + zwitterion_penalty(st, e, m, i);
 		if (rank < best_rank) {
 			best_rank = rank;
 			best = i;
 			best_stat = stat;
 			best_int = inter;
+			best_pf = pf;
+			best_pp = pp;
 		}
 	}
 	term_list *tl = &tls[best];
+	if (best_pp >= 0)
+		terms_add(tl, m, "hbond", best_pp, best_pf,
+			  "proton held by the hydrogen-bonded anion of the pair");
 	if (best_stat != 0)
 		terms_add(tl, m, "statistical", -1, best_stat, "%d equivalent sites",
 			  st->eq_n[st->leader[best]]);

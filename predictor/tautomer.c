@@ -10,10 +10,12 @@
 /* The shifts, in the order they are tried for each OH / SH. */
 typedef enum { SHIFT_NONE = 0, SHIFT_IMINOL, SHIFT_AZINE, SHIFT_ENOL } shift_kind;
 
+enum { PATH_MAX_ATOMS = 11 };
+
 typedef struct shift {
 	shift_kind kind;
-	int path[5]; /* donor O/S, then the atoms to the acceptor; bonds alternate 1,2,1,2 */
-	int len;     /* atoms in path */
+	int path[PATH_MAX_ATOMS]; /* donor O/S, then the atoms to the acceptor; bonds 1,2,1,2.. */
+	int len;                  /* atoms in path */
 } shift;
 
 typedef struct graph {
@@ -147,6 +149,49 @@ static int find_azine(const graph *g, int o, int c1, shift *s)
 	return 0;
 }
 
+/* Extends the alternating path p (len atoms so far; bond k has order 1 for even k, 2 for
+ * odd k) through neutral aromatic C or N until it has want atoms and ends at the neutral
+ * ring N bonded to C-OH (p[1]). */
+static int extend_ring_path(const graph *g, int *p, int len, int want, shift *s)
+{
+	int ord = (len - 1) % 2 == 0 ? 1 : 2;
+	for (int k = 0, y; (y = nbr(g, p[len - 1], ord, k)) >= 0; k++) {
+		int seen = 0;
+		for (int i = 0; i < len; i++)
+			seen |= p[i] == y;
+		if (seen || !g->a[y].aromatic || (!neutral(g, y, 6) && !neutral(g, y, 7)))
+			continue;
+		p[len] = y;
+		if (len + 1 < want) {
+			if (extend_ring_path(g, p, len + 1, want, s))
+				return 1;
+		} else if (neutral(g, y, 7) && order(g, p[1], y) == 1) {
+			s->kind = SHIFT_IMINOL;
+			memcpy(s->path, p, (size_t)want * sizeof *p);
+			s->len = want;
+			return 1;
+		}
+	}
+	return 0;
+}
+
+/* A lactim whose ring N is beside C-OH but whose Kekule form puts the C=N elsewhere
+ * (2-hydroxypyridines drawn with C2=C3, quinoxalin-2-ols, isoquinolin-3-ols drawn with
+ * C3=C4): an alternating path from the O round the ring, or through a fused ring, reaches
+ * that N (O-C2=C3-C4=C5-C6=N1), and shifting the H along it gives the same lactam as the
+ * 1,3 shift of the other Kekule form. The shortest such path is taken. */
+static int find_lactim_around(const graph *g, int o, int c1, shift *s)
+{
+	if (!g->a[c1].aromatic)
+		return 0;
+	for (int want = 7; want <= PATH_MAX_ATOMS; want += 2) {
+		int p[PATH_MAX_ATOMS] = {o, c1};
+		if (extend_ring_path(g, p, 2, want, s))
+			return 1;
+	}
+	return 0;
+}
+
 /* Whether a neighbour of c1 or c2 (other than o, c1, c2) carries a non-aromatic double or
  * triple bond: a carbonyl, imine, nitrile, nitro, sulfonyl or C=C conjugated with the enol,
  * which keeps 1,3-dicarbonyl enols, hydroxyquinones and reductones (ascorbic acid) as
@@ -191,7 +236,7 @@ static int find_shift(const graph *g, shift *s)
 		if (c1 < 0)
 			continue;
 		if (find_iminol(g, (int)o, c1, s) || find_azine(g, (int)o, c1, s) ||
-		    find_enol(g, (int)o, c1, s))
+		    find_lactim_around(g, (int)o, c1, s) || find_enol(g, (int)o, c1, s))
 			return 1;
 	}
 	return 0;
@@ -200,7 +245,7 @@ static int find_shift(const graph *g, shift *s)
 /* Flips the bond orders along the path and moves one H from its first to its last atom. */
 static int apply(obw_mol *m, const graph *g, const shift *s)
 {
-	int o = s->path[0], end = s->path[s->len - 1], flip[4];
+	int o = s->path[0], end = s->path[s->len - 1], flip[PATH_MAX_ATOMS - 1];
 	int h_o = g->a[o].hcount, h_end = g->a[end].hcount;
 	for (int k = 0; k + 1 < s->len; k++)
 		flip[k] = 3 - order(g, s->path[k], s->path[k + 1]);

@@ -39,7 +39,7 @@ static hand make(const char *kinds, const double *pka, const int *bonds)
 		h.dist = res_alloc(h.r, n * n * sizeof *h.dist);
 		memcpy(h.dist, bonds, n * n * sizeof *h.dist);
 	}
-	h.in = (ion_input){NULL, NULL, h.atom, h.dist, n, NULL};
+	h.in = (ion_input){NULL, NULL, h.atom, h.dist, n, NULL, NULL};
 	return h;
 }
 

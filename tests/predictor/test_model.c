@@ -101,6 +101,37 @@ static void test_model__equivalent_sites_get_statistical_terms(void)
 	pred_result_free(r);
 }
 
+/* Both steps of a diacid, lower first; -99 when there are not two acid sites. */
+static void two_steps(const pred_result *r, double *lo, double *hi)
+{
+	double a = site_pka(r, "carboxylic_acid", 0), b = site_pka(r, "carboxylic_acid", 1);
+	*lo = a < b ? a : b;
+	*hi = a < b ? b : a;
+}
+
+static void test_model__hbond_pair_lowers_the_first_step_and_raises_the_second(void)
+{
+	/* dimethylmalonic acid 3.03 / 5.44 and dipropylmalonic acid 2.01 / 7.18 (Serjeant &
+	 * Dempsey 1979 via IUPAC dataset): the hydrogen-bonded monoanion of the bulkier acid
+	 * (fixture row diacid_malonic_gem_dialkyl, v = -1.4) moves the steps apart */
+	pred_result *a = predict("OC(=O)C(C(=O)O)(C)C"), *b = predict("CCCC(C(=O)O)(C(=O)O)CCC");
+	double lo_a, hi_a, lo_b, hi_b;
+	two_steps(a, &lo_a, &hi_a);
+	two_steps(b, &lo_b, &hi_b);
+	CHECK_NEAR(lo_b, lo_a - 1.4, 0.01);
+	CHECK_NEAR(hi_b, hi_a + 1.4, 0.01);
+	CHECK(hi_a - lo_a < 3.5);
+	CHECK(hi_b - lo_b > 4.0);
+	/* the microstate model carries the same pair term: macroscopic = stepwise values */
+	CHECK_INT_EQ(pred_result_macro_count(b), 2);
+	if (pred_result_macro_count(b) == 2) {
+		CHECK_NEAR(pred_result_macro_pka(b, 0), lo_b, 0.05);
+		CHECK_NEAR(pred_result_macro_pka(b, 1), hi_b, 0.05);
+	}
+	pred_result_free(a);
+	pred_result_free(b);
+}
+
 static void test_model__every_site_sums_its_terms(void)
 {
 	pred_result *r = predict("NCCc1ccc(O)c(Cl)c1");
@@ -192,6 +223,7 @@ int main(void)
 	RUN(test_model__hammett_uses_position_and_sigma_minus);
 	RUN(test_model__ring_nitrogen_counts_as_aza);
 	RUN(test_model__equivalent_sites_get_statistical_terms);
+	RUN(test_model__hbond_pair_lowers_the_first_step_and_raises_the_second);
 	RUN(test_model__every_site_sums_its_terms);
 	RUN(test_model__salt_and_free_acid_give_the_same_sites);
 	RUN(test_model__no_site_is_a_note_not_an_error);
