@@ -187,8 +187,8 @@ static int copy_site(pred_result *r, size_t i, const term_list *tl, const eng_mo
 	return 0;
 }
 
-/* Oxygen bases below pKa 0 (carbonyl, ether, hydroxyl oxygen) are listed only when the
- * molecule has no stronger base: next to a real base their protonation would be a second
+/* Oxygen and sulfur bases below pKa 0 (carbonyl, ether, hydroxyl oxygen, thione sulfur)
+ * are listed only when the molecule has no stronger base: next to a real base their protonation would be a second
  * step far below pH 0 that no user asks for. Returns the number of sites dropped. */
 static size_t drop_minor_oxygen_bases(eng_mol *e, term_list *tls, const pred_model *m)
 {
@@ -200,8 +200,8 @@ static size_t drop_minor_oxygen_bases(eng_mol *e, term_list *tls, const pred_mod
 	size_t kept = 0, dropped = 0;
 	for (size_t i = 0; i < e->n_sites; i++) {
 		const eng_site *s = &e->sites[i];
-		if (m->sites[s->row].kind == PRED_BASE && e->atoms[s->atom].element == 8 &&
-		    terms_sum(&tls[i]) < 0) {
+		int chalcogen = e->atoms[s->atom].element == 8 || e->atoms[s->atom].element == 16;
+		if (m->sites[s->row].kind == PRED_BASE && chalcogen && terms_sum(&tls[i]) < 0) {
 			free(s->match);
 			dropped++;
 			continue;
@@ -242,7 +242,7 @@ static int build_sites(pred_result *r, eng_mol *e, pred_worker *w, pred_error *e
 	for (size_t i = 0; i < n && !rc; i++)
 		eng_site_effects(&tls[i], e, w, &e->sites[i]);
 	if (!rc && drop_minor_oxygen_bases(e, tls, w->m))
-		rc = res_note(r, "oxygen bases below pKa 0 not listed: the molecule has a "
+		rc = res_note(r, "oxygen and sulfur bases below pKa 0 not listed: the molecule has a "
 				 "stronger base");
 	n = e->n_sites;
 	if (!rc)
