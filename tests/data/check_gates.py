@@ -34,10 +34,11 @@ MIN_CLASS_ROWS = 10
 # unnoticed while the targets are worked on. Remove a floor once its gate is met.
 # Measured on 2026-12-01 with the fitted params.tsv (after the acid- and base-site work and
 # the refit of both): core pyridines 0.611 (0.583 and 0.621 on the two branches alone; the
-# floor was 0.66 before), broad tier A rmse 1.793.
+# floor was 0.66 before), broad tier A rmse 1.793; after the azinone and thione base sites
+# and their refit: core pyridines 0.613, broad tier A rmse 1.744.
 FLOORS = {
     "core pyridines rmse": 0.62,
-    "broad tier A overall rmse": 1.82,
+    "broad tier A overall rmse": 1.77,
 }
 
 
