@@ -190,7 +190,7 @@ static int copy_site(pred_result *r, size_t i, const term_list *tl, const eng_mo
 /* Oxygen and sulfur bases below pKa 0 (carbonyl, ether, hydroxyl oxygen, thione sulfur)
  * are listed only when the molecule has no stronger base: next to a real base their protonation would be a second
  * step far below pH 0 that no user asks for. Returns the number of sites dropped. */
-static size_t drop_minor_oxygen_bases(eng_mol *e, term_list *tls, const pred_model *m)
+static size_t drop_minor_chalcogen_bases(eng_mol *e, term_list *tls, const pred_model *m)
 {
 	int strong = 0;
 	for (size_t i = 0; i < e->n_sites; i++)
@@ -241,7 +241,7 @@ static int build_sites(pred_result *r, eng_mol *e, pred_worker *w, pred_error *e
 		rc = obw_mol_symmetry(e->mol, sym, e->nat, NULL, 0);
 	for (size_t i = 0; i < n && !rc; i++)
 		eng_site_effects(&tls[i], e, w, &e->sites[i]);
-	if (!rc && drop_minor_oxygen_bases(e, tls, w->m))
+	if (!rc && drop_minor_chalcogen_bases(e, tls, w->m))
 		rc = res_note(r, "oxygen and sulfur bases below pKa 0 not listed: the molecule has a "
 				 "stronger base");
 	n = e->n_sites;
