@@ -376,7 +376,8 @@ static void test_handbook__uncertainty_widens_with_size(void)
 }
 
 /* A fused azole NH: its own rings are part of the site, not substituents, so the two drawn
- * tautomers of 8-methylpurine (7H, 9H) give one value, and ring chlorines lower it: the NH
+ * tautomers of 8-methylpurine (7H, 9H) give one value, ring chlorines lower it and amino
+ * groups raise it (fragments/corrections.tsv, fused_azole_nh_amino): the NH
  * steps of 2,6,8-trichloropurine 3.96 and purine 8.96 (Perrin 1965 via IUPAC dataset, rows of
  * data/iupac-pka.csv; purine NH 8.93 from memory). */
 static void test_handbook__fused_azole_nh_counts_ring_substituents_once(void)
@@ -389,6 +390,8 @@ static void test_handbook__fused_azole_nh_counts_ring_substituents_once(void)
 	CHECK_NEAR(h7, h9, 0.01);
 	CHECK_NEAR(purine, 8.96, 1.0);
 	CHECK(cl3 < purine - 2.0);
+	/* an amino group donates: 2-(dimethylamino)purine NH 10.24 (same source) */
+	CHECK(site_pka("CN(C)c1ncc2[nH]cnc2n1", "imidazole_nh", PRED_ACID) > purine + 0.5);
 }
 
 int main(void)
