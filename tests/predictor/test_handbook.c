@@ -394,6 +394,17 @@ static void test_handbook__fused_azole_nh_counts_ring_substituents_once(void)
 	CHECK(site_pka("CN(C)c1ncc2[nH]cnc2n1", "imidazole_nh", PRED_ACID) > purine + 0.5);
 }
 
+/* The N+ of a nitro group on N or O is no base: a nitramine or a nitrate ester is not
+ * protonated in water (common practice); read as hydrazine and hydroxylamine N they put a
+ * cation beside the C-H acid of 2,2-dinitroethylnitramines and made it 2 units too strong. */
+static void test_handbook__nitro_on_n_or_o_is_no_base(void)
+{
+	CHECK(isnan(site_pka("CN(C)[N+](=O)[O-]", "hydrazine", PRED_BASE)));
+	CHECK(isnan(site_pka("CCO[N+](=O)[O-]", "hydroxylamine", PRED_BASE)));
+	CHECK(!isnan(site_pka("CNN", "hydrazine", PRED_BASE)));
+	CHECK(!isnan(site_pka("CON", "hydroxylamine", PRED_BASE)));
+}
+
 int main(void)
 {
 	const char *src = getenv("PKAD_SOURCE_DIR");
@@ -416,6 +427,7 @@ int main(void)
 	RUN(test_handbook__oxygen_bases_are_negative);
 	RUN(test_handbook__uncertainty_widens_with_size);
 	RUN(test_handbook__fused_azole_nh_counts_ring_substituents_once);
+	RUN(test_handbook__nitro_on_n_or_o_is_no_base);
 	pred_worker_free(worker);
 	pred_model_free(model);
 	return harness_done();
