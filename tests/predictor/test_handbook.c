@@ -408,6 +408,36 @@ static void test_handbook__uncertainty_widens_with_size(void)
 	CHECK(u_large > 1.5 * u_small);
 }
 
+/* A fused azole NH: its own rings are part of the site, not substituents, so the two drawn
+ * tautomers of 8-methylpurine (7H, 9H) give one value, ring chlorines lower it and amino
+ * groups raise it (fragments/corrections.tsv, fused_azole_nh_amino): the NH
+ * steps of 2,6,8-trichloropurine 3.96 and purine 8.96 (Perrin 1965 via IUPAC dataset, rows of
+ * data/iupac-pka.csv; purine NH 8.93 from memory). */
+static void test_handbook__fused_azole_nh_counts_ring_substituents_once(void)
+{
+	double h7 = site_pka("Cc1nc2cncnc2[nH]1", "imidazole_nh", PRED_ACID);
+	double h9 = site_pka("Cc1[nH]c2cncnc2n1", "imidazole_nh", PRED_ACID);
+	double purine = site_pka("c1ncc2[nH]cnc2n1", "imidazole_nh", PRED_ACID);
+	double cl3 = site_pka("Clc1nc(Cl)c2c(n1)nc([nH]2)Cl", "imidazole_nh", PRED_ACID);
+	CHECK(!isnan(h7) && !isnan(h9) && !isnan(purine) && !isnan(cl3));
+	CHECK_NEAR(h7, h9, 0.01);
+	CHECK_NEAR(purine, 8.96, 1.0);
+	CHECK(cl3 < purine - 2.0);
+	/* an amino group donates: 2-(dimethylamino)purine NH 10.24 (same source) */
+	CHECK(site_pka("CN(C)c1ncc2[nH]cnc2n1", "imidazole_nh", PRED_ACID) > purine + 0.5);
+}
+
+/* The N+ of a nitro group on N or O is no base: a nitramine or a nitrate ester is not
+ * protonated in water (common practice); read as hydrazine and hydroxylamine N they put a
+ * cation beside the C-H acid of 2,2-dinitroethylnitramines and made it 2 units too strong. */
+static void test_handbook__nitro_on_n_or_o_is_no_base(void)
+{
+	CHECK(isnan(site_pka("CN(C)[N+](=O)[O-]", "hydrazine", PRED_BASE)));
+	CHECK(isnan(site_pka("CCO[N+](=O)[O-]", "hydroxylamine", PRED_BASE)));
+	CHECK(!isnan(site_pka("CNN", "hydrazine", PRED_BASE)));
+	CHECK(!isnan(site_pka("CON", "hydroxylamine", PRED_BASE)));
+}
+
 int main(void)
 {
 	const char *src = getenv("PKAD_SOURCE_DIR");
@@ -430,6 +460,8 @@ int main(void)
 	RUN(test_handbook__oxygen_bases_are_negative);
 	RUN(test_handbook__azinones_protonate_on_the_chalcogen);
 	RUN(test_handbook__uncertainty_widens_with_size);
+	RUN(test_handbook__fused_azole_nh_counts_ring_substituents_once);
+	RUN(test_handbook__nitro_on_n_or_o_is_no_base);
 	pred_worker_free(worker);
 	pred_model_free(model);
 	return harness_done();
