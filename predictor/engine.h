@@ -76,7 +76,7 @@ typedef struct eng_mol {
 void eng_bfs(const eng_mol *e, int from, int *dist, int *queue);
 
 /* Fills e->qdist from e->dist: an azinium's charge is shared with its ortho and para ring
- * atoms, so its row counts the bonds from those plus one where that is shorter. */
+ * carbons, so its row counts the bonds from those plus one to a base site where shorter. */
 int eng_charge_distances(eng_mol *e, const pred_model *m);
 /* Bonds between the charges of sites i and j (the shorter of the two rows' counts). */
 int eng_charge_bonds(const int *qdist, size_t nat, size_t i, int atom_i, size_t j, int atom_j);
