@@ -63,6 +63,7 @@ typedef struct eng_mol {
 	eng_site *sites;
 	size_t n_sites;
 	int *dist;      /* n_sites x nat: bonds from each site's ionizable atom */
+	int *qdist;     /* n_sites x nat: bonds from the site's charge (charge_dist.c) */
 	smarts_req elements; /* what the molecule holds, to skip hopeless patterns */
 	int *symclass;   /* symmetry class per atom (identity unless shared_rows) */
 	int shared_rows; /* two sites come from one row: they may be equivalent */
@@ -70,6 +71,15 @@ typedef struct eng_mol {
 	int *corr_atom;
 	int *pair_param; /* n_sites x n_sites: parameter of a monoanion hydrogen-bond pair, -1 */
 } eng_mol;
+
+/* Breadth-first bond counts from atom `from` into dist (-1: not connected); queue holds nat. */
+void eng_bfs(const eng_mol *e, int from, int *dist, int *queue);
+
+/* Fills e->qdist from e->dist: an azinium's charge is shared with its ortho and para ring
+ * carbons, so its row counts the bonds from those plus one to a base site where shorter. */
+int eng_charge_distances(eng_mol *e, const pred_model *m);
+/* Bonds between the charges of sites i and j (the shorter of the two rows' counts). */
+int eng_charge_bonds(const int *qdist, size_t nat, size_t i, int atom_i, size_t j, int atom_j);
 
 /* Builds graph, claims and sites from a normalised molecule. */
 int eng_perceive(eng_mol *e, pred_worker *w, obw_mol *mol, pred_error *err);

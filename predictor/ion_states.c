@@ -22,12 +22,15 @@ static int site_atom(const ion_input *in, size_t i)
 	return in && in->site_mol_atom ? in->site_mol_atom[i] : -1;
 }
 
+/* The shorter of the two sites' rows: a row counts from its site's charge, which for an
+ * azinium is spread over the ring (charge_dist.c), so the two counts may differ. */
 static int site_bonds(const ion_input *in, size_t i, size_t j)
 {
-	int b = site_atom(in, j);
-	if (!in || !in->dist || b < 0 || (size_t)b >= in->nat)
+	int a = site_atom(in, i), b = site_atom(in, j);
+	if (!in || !in->dist || a < 0 || b < 0 || (size_t)a >= in->nat || (size_t)b >= in->nat)
 		return -1;
-	return in->dist[i * in->nat + (size_t)b];
+	int dij = in->dist[i * in->nat + (size_t)b], dji = in->dist[j * in->nat + (size_t)a];
+	return dij < dji ? dij : dji;
 }
 
 /* The cluster is the ION_EXACT_MAX sites whose pKa lies nearest the requested pH (they

@@ -11,7 +11,8 @@
 
 /* Input of the microstate model. site_mol_atom[i] is the molecule atom index (obw_mol
  * order) of r->sites[i]; dist holds one row of nat distances (bonds; -1 when not connected)
- * per site: dist[i * nat + a] is the distance from site i's atom to atom a. The microscopic
+ * per site: dist[i * nat + a] is the distance from site i's charge to atom a (its atom, or
+ * for an azinium its ring, see charge_dist.c; a pair takes the shorter count). The microscopic
  * pKa of site i is r->micro[i] (the site's pKa without the stepwise statistical and
  * interaction terms, which the microstate model accounts for; NULL: the site values).
  * mol may be NULL (tests on hand-built sites): no SMILES is written and each species'

@@ -194,7 +194,7 @@ static int match_corrections(eng_mol *e, const pred_worker *w)
 	return 0;
 }
 
-static void bfs(const eng_mol *e, int from, int *dist, int *queue)
+void eng_bfs(const eng_mol *e, int from, int *dist, int *queue)
 {
 	for (size_t a = 0; a < e->nat; a++)
 		dist[a] = -1;
@@ -212,7 +212,7 @@ static void bfs(const eng_mol *e, int from, int *dist, int *queue)
 	}
 }
 
-static int site_distances(eng_mol *e)
+static int site_distances(eng_mol *e, const pred_model *m)
 {
 	e->dist = malloc((e->n_sites * e->nat + 1) * sizeof *e->dist);
 	int *queue = malloc((e->nat + 1) * sizeof *queue);
@@ -221,9 +221,9 @@ static int site_distances(eng_mol *e)
 		return PRED_ENOMEM;
 	}
 	for (size_t i = 0; i < e->n_sites; i++)
-		bfs(e, e->sites[i].atom, e->dist + i * e->nat, queue);
+		eng_bfs(e, e->sites[i].atom, e->dist + i * e->nat, queue);
 	free(queue);
-	return 0;
+	return eng_charge_distances(e, m);
 }
 
 int eng_perceive(eng_mol *e, pred_worker *w, obw_mol *mol, pred_error *err)
@@ -245,7 +245,7 @@ int eng_perceive(eng_mol *e, pred_worker *w, obw_mol *mol, pred_error *err)
 	if (!rc && e->n_sites)
 		rc = claim_groups(e, w);
 	if (!rc)
-		rc = site_distances(e);
+		rc = site_distances(e, w->m);
 	if (!rc && e->n_sites)
 		rc = match_corrections(e, w);
 	if (rc && err) {
@@ -262,6 +262,7 @@ void eng_free(eng_mol *e)
 		free(e->sites[i].match);
 	free(e->sites);
 	free(e->dist);
+	free(e->qdist);
 	free(e->corr_start);
 	free(e->symclass);
 	free(e->corr_atom);

@@ -208,6 +208,7 @@ static size_t drop_minor_chalcogen_bases(eng_mol *e, term_list *tls, const pred_
 		}
 		e->sites[kept] = e->sites[i];
 		memmove(e->dist + kept * e->nat, e->dist + i * e->nat, e->nat * sizeof *e->dist);
+		memmove(e->qdist + kept * e->nat, e->qdist + i * e->nat, e->nat * sizeof *e->qdist);
 		tls[kept++] = tls[i];
 	}
 	e->n_sites = kept;
@@ -314,7 +315,7 @@ static int finish(pred_result *r, eng_mol *e, pred_worker *w, const pred_options
 	}
 	for (size_t i = 0; i < n; i++)
 		site_atoms[i] = e->sites[i].atom;
-	ion_input in = {e->mol, w->ctx, site_atoms, e->dist, e->nat,
+	ion_input in = {e->mol, w->ctx, site_atoms, e->qdist, e->nat,
 			e->shared_rows ? e->symclass : NULL, extra};
 	int rc = ionization_fill(r, w->m, &in, opt, err);
 	free(site_atoms);

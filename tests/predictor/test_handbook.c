@@ -459,18 +459,39 @@ static void test_handbook__acyl_nitro_cyano_guanidines(void)
 	CHECK(nitro < 2 && cyano < 2);
 }
 
-/* The imidazole N of a purine or imidazopyridine holds both rings in its pattern, so the walk
- * reaches a substituent on C8: 8-(methylsulfonyl)imidazo[4,5-c]pyridine's imidazole N 0.42
- * against 2.76 for the 8-methyl one (Perrin 1965 via IUPAC dataset, rows of
- * data/iupac-pka.csv). The ring N beside the 2-oxo carbon of a quinazolin-2-one takes no
+/* The imidazole N of a purine holds both rings in its pattern, so the walk reaches a
+ * substituent on C8: the first protonation of 8-(methylsulfonyl)purine is 0.42 against 2.76
+ * for 8-methylpurine (Perrin 1965 and its 1972 supplement via IUPAC dataset, entries
+ * perrin_supp7323 and perrin2575 of data/iupac-pka.csv). With the sulfone the model moves
+ * the first proton to the pyrimidine ring (the imidazole N becomes a deep second step), so
+ * the check is on each molecule's most basic site. The ring N beside the 2-oxo carbon of a quinazolin-2-one takes no
  * hydration term: 1-methylquinazolin-2(1H)-one 2.15 (entry perrin2272), near the unfused
  * 1-alkylpyrimidin-2-ones 2.6-2.7 (Perrin 1965 via IUPAC dataset). */
+/* pKa of the most basic site of a molecule, NAN when it has none. */
+static double most_basic(const char *smiles)
+{
+	pred_result *r = NULL;
+	pred_error err = {0};
+	double v = NAN;
+	if (pred_predict(&r, worker, smiles, PRED_FMT_SMILES, NULL, &err))
+		return v;
+	for (size_t i = 0; i < pred_result_site_count(r); i++) {
+		const pred_site *s = pred_result_site(r, i);
+		if (s->kind == PRED_BASE && (isnan(v) || s->pka > v))
+			v = s->pka;
+	}
+	pred_result_free(r);
+	return v;
+}
+
 static void test_handbook__fused_pyrimidine_ring_n(void)
 {
-	double so2me = site_pka("CS(=O)(=O)c1nc2c([nH]1)cncn2", "imidazole", PRED_BASE);
-	double me = site_pka("Cc1nc2c([nH]1)cncn2", "imidazole", PRED_BASE);
+	double so2me = most_basic("CS(=O)(=O)c1nc2c([nH]1)cncn2");
+	double me = most_basic("Cc1nc2c([nH]1)cncn2");
 	CHECK(!isnan(so2me) && !isnan(me));
 	CHECK(so2me < me - 0.8);
+	CHECK_NEAR(so2me, 0.42, 1.5);
+	CHECK_NEAR(me, 2.76, 1.0);
 	CHECK_NEAR(site_pka("Cn1cc2ccccc2nc1=O", "pyrimidine", PRED_BASE), 2.15, 0.8);
 }
 
