@@ -229,14 +229,47 @@ static int find_enol(const graph *g, int o, int c1, shift *s)
 	return 0;
 }
 
+/* Whether ring N n (bonded to c1) is also bonded to a carbon that carries an exocyclic
+ * N by a single bond (an amino or acylamino group). */
+static int beside_amino_carbon(const graph *g, int n, int c1)
+{
+	for (int i = g->start[n]; i < g->start[n + 1]; i++) {
+		int x = other(g, g->adj[i], n);
+		if (x == c1 || g->a[x].element != 6)
+			continue;
+		for (int j = 0, y; (y = nbr(g, x, 1, j)) >= 0; j++)
+			if (y != n && neutral(g, y, 7) && !g->a[y].in_ring)
+				return 1;
+	}
+	return 0;
+}
+
+/* A lactim between two ring N (2-hydroxypyrimidines) becomes the lactam whose N-H is away
+ * from a ring carbon bearing an amino group, whichever N the Kekule form bonds to C-OH by
+ * the double bond: cytosine is the 1H (amino-oxo) tautomer, and the amidine N beside the
+ * amino carbon stays free (common practice). */
+static void prefer_away_from_amino(const graph *g, int o, int c1, shift *s)
+{
+	shift alt;
+	if (!g->a[c1].aromatic || !beside_amino_carbon(g, s->path[s->len - 1], c1) ||
+	    !find_lactim_around(g, o, c1, &alt))
+		return;
+	if (!beside_amino_carbon(g, alt.path[alt.len - 1], c1))
+		*s = alt;
+}
+
 static int find_shift(const graph *g, shift *s)
 {
 	for (size_t o = 0; o < g->na; o++) {
 		int c1 = donor_carbon(g, (int)o);
 		if (c1 < 0)
 			continue;
-		if (find_iminol(g, (int)o, c1, s) || find_azine(g, (int)o, c1, s) ||
-		    find_lactim_around(g, (int)o, c1, s) || find_enol(g, (int)o, c1, s))
+		if (find_iminol(g, (int)o, c1, s)) {
+			prefer_away_from_amino(g, (int)o, c1, s);
+			return 1;
+		}
+		if (find_azine(g, (int)o, c1, s) || find_lactim_around(g, (int)o, c1, s) ||
+		    find_enol(g, (int)o, c1, s))
 			return 1;
 	}
 	return 0;

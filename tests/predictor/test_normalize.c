@@ -144,6 +144,13 @@ static const norm_case tautomer_cases[] = {
 	{"Oc1cccnc1", "Oc1cccnc1", NULL, "3-hydroxypyridine stays (no lactam without a charge)"},
 	{"Oc1ccnc2ccccc12", "O=c1cc[nH]c2ccccc12", "input tautomer changed", "4-quinolone"},
 	{"Nc1nc(O)c2nc[nH]c2n1", "Nc1nc2[nH]cnc2c(=O)[nH]1", "lactim to lactam", "guanine"},
+	/* between two ring N the H goes to the one away from the amino carbon, whichever the
+	 * Kekule form bonds to C-OH by the double bond: cytosine is the 1H amino-oxo tautomer
+	 * (common practice), and its thione and 5-amino relatives follow it */
+	{"Nc1ccnc(O)n1", "Nc1cc[nH]c(=O)n1", "lactim to lactam", "cytosine, C2=N1 drawn"},
+	{"Oc1nccc(N)n1", "Nc1cc[nH]c(=O)n1", "lactim to lactam", "cytosine, C2=N3 drawn"},
+	{"Sc1ncc(c(n1)N)N", "Nc1nc(=S)[nH]cc1N", "thiolactim to thiolactam",
+	 "4,5-diaminopyrimidine-2(1H)-thione"},
 	{"CCC1(c2ccccc2)C(O)=NC(O)=NC1=O", "CCC1(c2ccccc2)C(=O)NC(=O)NC1=O", "lactim to lactam",
 	 "phenobarbital"},
 	{"CC(O)=N", "CC(N)=O", "input tautomer changed: iminol to amide", "acetamide"},
