@@ -18,8 +18,10 @@
 # global.unc_floor is the repeatability of the data: the 68% quantile of the spread between
 # independent determinations of one value (iupac-pka.csv train rows with n_values > 1); no
 # site is stated more certain than that.
-# Usage: fit_unc_widening.py PKAD_BIN DATA_DIR FRAGMENTS_DIR
-#   (prints the grid's best pair, the calibration scale and the params.tsv lines)
+# Usage: fit_unc_widening.py PKAD_BIN DATA_DIR FRAGMENTS_DIR [--write slopes|scale]
+#   (prints the grid's best pair, the calibration scale and the params.tsv lines; --write
+#   slopes puts the unc_size, unc_sites and unc_floor lines into FRAGMENTS_DIR/params.tsv,
+#   --write scale the unc_scale line, each replacing the row of the same id)
 import csv, json, math, re, subprocess, sys
 
 FILES = ("handbook-acids.csv", "handbook-bases.csv", "handbook-additions.csv", "iupac-pka.csv")
@@ -95,10 +97,27 @@ def calibration_scale(used, size, sites, scale0, floor):
     return (lo + hi) / 2
 
 
+def write_rows(frag_dir, lines):
+    """Replaces (or appends) the params.tsv rows whose ids the given lines start with."""
+    path = f"{frag_dir}/params.tsv"
+    new = {line.split("\t", 1)[0]: line for line in lines}
+    with open(path) as f:
+        old = f.read().splitlines()
+    out = [new.pop(l.split("\t", 1)[0], l) for l in old]
+    out += list(new.values())
+    with open(path, "w") as f:
+        f.write("\n".join(out) + "\n")
+
+
 def main():
-    if len(sys.argv) != 4:
-        sys.exit("usage: fit_unc_widening.py PKAD_BIN DATA_DIR FRAGMENTS_DIR")
-    pkad, data_dir, frag_dir = sys.argv[1:]
+    args = sys.argv[1:]
+    write = None
+    if len(args) == 5 and args[3] == "--write" and args[4] in ("slopes", "scale"):
+        write = args[4]
+        args = args[:3]
+    if len(args) != 3:
+        sys.exit("usage: fit_unc_widening.py PKAD_BIN DATA_DIR FRAGMENTS_DIR [--write slopes|scale]")
+    pkad, data_dir, frag_dir = args
     rows = validate_rows(pkad, data_dir)
     feats = features(pkad, sorted({r["smiles"] for r in rows}))
     size0, sites0, scale0 = current_slopes(frag_dir)
@@ -122,18 +141,28 @@ def main():
     print(f"train rows: {len(used)}; no widening: nll {base[0]:.4f}, within 1 u {base[1]:.3f}")
     print(f"best: size {best[1]:.2f}, sites {best[2]:.2f}: nll {best[0]:.4f}, "
           f"within 1 u {best[3]:.3f}")
-    print(f"global.unc_floor\t{floor:.4f}\t0.0000\t0.0000\t{n_rep}\t0.000\t"
-          "chosen by tests/tools/fit_unc_widening.py: 68% quantile of the spread of repeated "
-          "determinations (iupac-pka.csv train rows)")
+    rows = {
+        "global.unc_floor": f"global.unc_floor\t{floor:.4f}\t0.0000\t0.0000\t{n_rep}\t0.000\t"
+        "chosen by tests/tools/fit_unc_widening.py: 68% quantile of the spread of repeated "
+        "determinations (iupac-pka.csv train rows)",
+        "global.unc_scale": f"global.unc_scale\t{scale:.4f}\t1.0000\t0.0000\t{len(used)}\t0.000\t"
+        "chosen by tests/tools/fit_unc_widening.py on the train split (68% within 1 u)",
+        "global.unc_size": f"global.unc_size\t{best[1]:.4f}\t0.0000\t0.0000\t{len(used)}\t0.000\t"
+        "chosen by tests/tools/fit_unc_widening.py on the train split",
+        "global.unc_sites": f"global.unc_sites\t{best[2]:.4f}\t0.0000\t0.0000\t{len(used)}\t"
+        "0.000\tchosen by tests/tools/fit_unc_widening.py on the train split",
+    }
     print(f"current model: 68% of train residuals within {scale / scale0:.3f} uncertainties "
           f"(floor {floor:.2f})")
-    print(f"global.unc_scale\t{scale:.4f}\t1.0000\t0.0000\t{len(used)}\t0.000\t"
-          "chosen by tests/tools/fit_unc_widening.py on the train split (68% within 1 u)")
-    print(f"global.unc_size\t{best[1]:.4f}\t0.0000\t0.0000\t{len(used)}\t0.000\t"
-          "chosen by tests/tools/fit_unc_widening.py on the train split")
-    print(f"global.unc_sites\t{best[2]:.4f}\t0.0000\t0.0000\t{len(used)}\t0.000\t"
-          "chosen by tests/tools/fit_unc_widening.py on the train split")
-
+    for line in rows.values():
+        print(line)
+    if write == "slopes":
+        write_rows(frag_dir, [rows[k] for k in ("global.unc_size", "global.unc_sites",
+                                                 "global.unc_floor")])
+    elif write == "scale":
+        write_rows(frag_dir, [rows["global.unc_scale"]])
+    if write:
+        print(f"wrote the {write} rows into {frag_dir}/params.tsv")
 
 if __name__ == "__main__":
     main()
