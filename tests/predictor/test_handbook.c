@@ -396,15 +396,16 @@ static void test_handbook__azinones_protonate_on_the_chalcogen(void)
 }
 
 /* The uncertainty widens with the size of the molecule (DEVELOPERS.md, uncertainty): the
- * train residuals of large molecules are larger. Acetic and pentadecanoic acid get nearly
- * the same pKa (4.76 and about 4.8, common practice), but the long chain's value is the
- * less certain one. */
+ * train residuals of large molecules are larger. Ethanol and hexadecan-1-ol get nearly the
+ * same pKa (primary alcohols, about 16, common practice), but the long chain's value is the
+ * less certain one. Alcohols have a class error far above the uncertainty floor, so the
+ * comparison sees the widening itself. */
 static void test_handbook__uncertainty_widens_with_size(void)
 {
 	double u_small = NAN, u_large = NAN;
-	double small = site_value("CC(=O)O", "carboxylic_acid", PRED_ACID, &u_small);
-	double large = site_value("CCCCCCCCCCCCCCC(=O)O", "carboxylic_acid", PRED_ACID, &u_large);
-	CHECK_NEAR(large, small, 0.3);
+	double small = site_value("CCO", "alcohol", PRED_ACID, &u_small);
+	double large = site_value("CCCCCCCCCCCCCCCCO", "alcohol", PRED_ACID, &u_large);
+	CHECK_NEAR(large, small, 0.5);
 	CHECK(u_large > 1.5 * u_small);
 }
 
