@@ -156,15 +156,15 @@ static void hammett_term(term_list *tl, const pred_model *m, const frag_site *ro
 {
 	double sigma = g->m;
 	const char *name = "sigma_m";
+	int rho = pos == 4 ? row->p_rho_para : row->p_rho;
 	if (pos != 3) {
 		static const char *const names[] = {"sigma_p", "sigma_p-", "sigma_p+"};
 		const double v[] = {g->p, g->p_minus, g->p_plus};
 		sigma = v[row->sigma_para];
 		name = names[row->sigma_para];
 	}
-	terms_add(tl, m, g->generic ? "generic_substituent" : "hammett", row->p_rho, -sigma,
-		  "%d-%s, %s %.2f, rho %.2f", pos, g->label, name, sigma,
-		  m->params[row->p_rho].value);
+	terms_add(tl, m, g->generic ? "generic_substituent" : "hammett", rho, -sigma,
+		  "%d-%s, %s %.2f, rho %.2f", pos, g->label, name, sigma, m->params[rho].value);
 	if (g->generic) {
 		tl->n_generic++;
 		tl->extra_var += 0.16;

@@ -119,7 +119,7 @@ static int site_param(pred_model *m, const frag_site *s, const char *suffix, dou
 static int parse_site_row(pred_model *m, frag_site *s, const tsv_table *t, const tsv_row *r,
 			  const int *c, pred_error *err)
 {
-	double parent, rho, rho_star, centre;
+	double parent, rho, rho_star, centre, rho_para = 0;
 	int rc;
 	if ((rc = copy_id(s->id, sizeof s->id, t, r, c[0], err)) ||
 	    (rc = copy_id(s->group, sizeof s->group, t, r, c[2], err)) ||
@@ -127,8 +127,11 @@ static int parse_site_row(pred_model *m, frag_site *s, const tsv_table *t, const
 	    (rc = tsv_number(&parent, t, r, c[5], 0, 0, err)) ||
 	    (rc = tsv_number(&rho, t, r, c[6], 1, 0, err)) ||
 	    (rc = tsv_number(&rho_star, t, r, c[8], 1, 0, err)) ||
-	    (rc = tsv_number(&s->unc, t, r, c[9], 0, 0, err)))
+	    (rc = tsv_number(&s->unc, t, r, c[9], 0, 0, err)) ||
+	    (c[11] >= 0 && (rc = tsv_number(&rho_para, t, r, c[11], 1, 0, err))))
 		return rc;
+	if (rho_para != 0 && rho == 0)
+		return tsv_fail(err, PRED_EDATA, t, r->line, "rho_para without rho");
 	const char *kind = r->fields[c[1]], *sig = r->fields[c[7]];
 	if (strcmp(kind, "acid") && strcmp(kind, "base"))
 		return tsv_fail(err, PRED_EDATA, t, r->line, "kind '%s' is not acid or base", kind);
@@ -153,7 +156,12 @@ static int parse_site_row(pred_model *m, frag_site *s, const tsv_table *t, const
 	/* Ortho substituents: sigma_p plus a series-specific proximity term (attenuation.md
 	 * section 3: ortho constants do not transfer between series), fitted per class. */
 	s->p_ortho = rho != 0 ? site_param(m, s, "ortho", 0.0, 0.5) : -1;
-	if (s->p_parent < 0 || s->p_rho < 0 || s->p_rho_star < 0 || (rho != 0 && s->p_ortho < 0))
+	/* Para substituents: an own slope where the row gives one (blank: the rho above). */
+	s->p_rho_para = rho_para != 0 ? site_param(m, s, "rho_para", rho_para,
+						   0.2 * (rho_para < 0 ? -rho_para : rho_para))
+				      : s->p_rho;
+	if (s->p_parent < 0 || s->p_rho < 0 || s->p_rho_star < 0 || (rho != 0 && s->p_ortho < 0) ||
+	    s->p_rho_para < 0)
 		return tsv_fail(err, PRED_ENOMEM, t, r->line, "out of memory");
 	return 0;
 }
@@ -163,11 +171,17 @@ static int parse_sites(pred_model *m, const tsv_table *t, pred_error *err)
 	static const char *const names[] = {"id", "kind", "group", "smarts", "centre", "parent",
 					    "rho", "sigma_para", "rho_star", "unc", "source",
 					    NULL};
-	int c[11];
+	int c[12];
 	if (columns(c, t, names, err))
 		return PRED_EDATA;
-	if (t->n_cols != 11)
-		return tsv_fail(err, PRED_EDATA, t, 0, "expected 11 columns, got %zu", t->n_cols);
+	/* rho_para is optional: a table without the column gives every site one slope. */
+	c[11] = -1;
+	for (size_t j = 0; j < t->n_cols; j++)
+		if (!strcmp(t->header[j], "rho_para"))
+			c[11] = (int)j;
+	if (t->n_cols != (c[11] >= 0 ? 12u : 11u))
+		return tsv_fail(err, PRED_EDATA, t, 0, "expected %d columns, got %zu",
+				c[11] >= 0 ? 12 : 11, t->n_cols);
 	m->sites = calloc(t->n_rows ? t->n_rows : 1, sizeof *m->sites);
 	if (!m->sites)
 		return PRED_ENOMEM;

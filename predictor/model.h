@@ -27,6 +27,7 @@ typedef struct frag_site {
 	char *smarts;
 	int centre;
 	int p_parent, p_rho, p_rho_star, p_ortho; /* parameter indices */
+	int p_rho_para; /* slope of para substituents: its own parameter, or p_rho */
 	sigma_scale sigma_para;
 	double unc;
 	char *source;

@@ -6,6 +6,7 @@
 #include <string.h>
 
 #include "harness.h"
+#include "model.h"
 #include "predictor.h"
 
 static pred_model *model;
@@ -257,6 +258,49 @@ static void test_model__bad_input_gets_a_code(void)
 		     PRED_EUNSUPPORTED);
 }
 
+/* Hammett term of the first pyridine site over -sigma: the slope the term used. */
+static double pyridine_slope(pred_worker *w, const char *smiles, double sigma)
+{
+	pred_error err = {0};
+	pred_result *r = NULL;
+	double v = 0;
+	if (pred_predict(&r, w, smiles, PRED_FMT_SMILES, NULL, &err) == 0)
+		v = -site_term(r, "pyridine", "hammett") / sigma;
+	pred_result_free(r);
+	return v;
+}
+
+static void test_model__para_substituents_take_rho_para_where_the_row_has_one(void)
+{
+	/* the fixture's sites.tsv has no rho_para column: 3- and 4-chloropyridine share the
+	 * one slope (Cl sigma_m 0.37, sigma_p 0.23, substituent-constants.csv, HLT1991) */
+	CHECK_NEAR(pyridine_slope(worker, "Clc1cccnc1", 0.37), 5.90, 0.01);
+	CHECK_NEAR(pyridine_slope(worker, "Clc1ccncc1", 0.23), 5.90, 0.01);
+	/* the repository's tables give pyridine its own para slope, pyridine.rho_para */
+	const char *src = getenv("PKAD_SOURCE_DIR");
+	char dir[1024];
+	snprintf(dir, sizeof dir, "%s/fragments", src ? src : ".");
+	pred_model *m = NULL;
+	pred_worker *w = NULL;
+	pred_error err = {0};
+	if (pred_model_load(&m, dir, &err) || pred_worker_new(&w, m, &err)) {
+		fprintf(stderr, "load %s: %s\n", dir, err.msg);
+		CHECK(0);
+		pred_model_free(m);
+		return;
+	}
+	int meta = model_param_find(m, "pyridine.rho"), para = model_param_find(m, "pyridine.rho_para");
+	CHECK(meta >= 0 && para >= 0 && meta != para);
+	if (meta >= 0 && para >= 0) {
+		CHECK_NEAR(pyridine_slope(w, "Clc1cccnc1", 0.37), m->params[meta].value, 0.01);
+		CHECK_NEAR(pyridine_slope(w, "Clc1ccncc1", 0.23), m->params[para].value, 0.01);
+		/* the train fit set the two slopes apart */
+		CHECK(m->params[para].value != m->params[meta].value);
+	}
+	pred_worker_free(w);
+	pred_model_free(m);
+}
+
 int main(void)
 {
 	const char *src = getenv("PKAD_SOURCE_DIR");
@@ -272,6 +316,7 @@ int main(void)
 	RUN(test_model__taft_walk_attenuates_per_bond);
 	RUN(test_model__hammett_uses_position_and_sigma_minus);
 	RUN(test_model__ring_nitrogen_counts_as_aza);
+	RUN(test_model__para_substituents_take_rho_para_where_the_row_has_one);
 	RUN(test_model__equivalent_sites_get_statistical_terms);
 	RUN(test_model__azinium_charge_is_shared_with_ortho_and_para_carbons);
 	RUN(test_model__hbond_pair_lowers_the_first_step_and_raises_the_second);
