@@ -112,13 +112,14 @@ int eng_charge_bonds(const int *qdist, size_t nat, size_t i, int atom_i, size_t 
 	return dij < dji ? dij : dji; /* both -1 when not connected, 0 for one atom */
 }
 
-/* Routes between two sites: the shortest one carries W(d) as before; up to ROUTE_MAX - 1
- * further routes through other ring atoms (the second and third N-C-C-N of piperazine and
- * DABCO) each add route_weight * W(their length). Kirkwood-Westheimer field effects pass
- * through the molecule's low-dielectric cavity, which two or three parallel saturated
- * bridges widen; counting each bridge in full would treat them as separate charges. Routes
- * through aromatic atoms are not counted: ring-borne anions and cations are already in the
- * ionic sigma and aza terms of the Hammett ring. Beyond ROUTE_MAX_BONDS the term is small. */
+/* Routes between two charged ring atoms: the shortest carries W(d) as before; up to
+ * ROUTE_MAX - 1 further routes through saturated ring atoms (the second and third N-C-C-N of
+ * piperazine and DABCO) each add route_weight * W(their length), the classical sum over the
+ * paths of a field effect with a share below one chosen on the train split (params.tsv).
+ * Not counted: routes through aromatic atoms (a ring's share of a charge is already in the
+ * ionic sigma and aza terms of the Hammett ring) or other sp2 atoms, and charges outside
+ * the ring (both moved train rows the wrong way, DEVELOPERS.md). Beyond ROUTE_MAX_BONDS
+ * bonds the term is small. */
 #define ROUTE_MAX 3
 #define ROUTE_MAX_BONDS 10
 
@@ -170,7 +171,7 @@ static void mark_shared(const eng_mol *e, route_work *rw, int a, int b, int *pat
 		path[k++] = x;
 	for (int q = 0; q < k && q < len; q++) {
 		int v = path[q];
-		rw->shared[v] = !e->ring_sizes[v];
+		rw->shared[v] = !e->atoms[v].in_ring;
 		if (rw->shared[v])
 			continue;
 		rw->blocked[v] = 1;
@@ -196,10 +197,12 @@ static int block_route(route_work *rw, int a, int b)
 static double extra_routes(const eng_mol *e, const pred_model *m, route_work *rw, int *path,
 			   int a, int b)
 {
+	if (!e->atoms[a].in_ring || !e->atoms[b].in_ring)
+		return 0;
 	memset(rw->blocked, 0, e->nat);
 	memset(rw->shared, 0, e->nat);
 	int len = route_bfs(e, rw, a, b);
-	if (len < 2 || len > ROUTE_MAX_BONDS || !e->atoms[a].in_ring || !e->atoms[b].in_ring)
+	if (len < 2 || len > ROUTE_MAX_BONDS)
 		return 0;
 	mark_shared(e, rw, a, b, path, len);
 	route_bfs(e, rw, a, b); /* mark_shared reused par[] */
