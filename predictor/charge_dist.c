@@ -1,8 +1,11 @@
 /* SPDX-License-Identifier: MIT */
-/* charge_dist.c: bonds from the charge of each site, the distance the interaction uses. */
+/* charge_dist.c: bonds from the charge of each site and the routes between two charges, the
+ * geometry the charge interaction uses. */
 #include <stdlib.h>
+#include <string.h>
 
 #include "engine.h"
+#include "ionization.h"
 
 /* A base site on an aromatic N of a six-membered ring with two ring neighbours: its cation
  * is an azinium, whose positive charge is shared by N1 and the ring atoms ortho and para to
@@ -107,4 +110,144 @@ int eng_charge_bonds(const int *qdist, size_t nat, size_t i, int atom_i, size_t 
 {
 	int dij = qdist[i * nat + (size_t)atom_j], dji = qdist[j * nat + (size_t)atom_i];
 	return dij < dji ? dij : dji; /* both -1 when not connected, 0 for one atom */
+}
+
+/* Routes between two charged ring atoms: the shortest carries W(d) as before; up to
+ * ROUTE_MAX - 1 further routes through saturated ring atoms (the second and third N-C-C-N of
+ * piperazine and DABCO) each add route_weight * W(their length), the classical sum over the
+ * paths of a field effect with a share below one chosen on the train split (params.tsv).
+ * Not counted: routes through aromatic atoms (a ring's share of a charge is already in the
+ * ionic sigma and aza terms of the Hammett ring) or other sp2 atoms, and charges outside
+ * the ring (both moved train rows the wrong way, DEVELOPERS.md). Beyond ROUTE_MAX_BONDS
+ * bonds the term is small. */
+#define ROUTE_MAX 3
+#define ROUTE_MAX_BONDS 10
+
+/* An sp3 atom: a further route counts only through saturated bridges. */
+static int is_saturated(const eng_mol *e, int x)
+{
+	return !e->atoms[x].aromatic && e->atoms[x].hyb == 3;
+}
+
+typedef struct route_work {
+	unsigned char *blocked;
+	unsigned char *shared; /* on every route from a to b (cut atoms between them) */
+	int *par;
+	int *queue;
+} route_work;
+
+/* Breadth-first from a over unblocked atoms; the bond count to b (-1 when unreachable), with
+ * par[] the parent of each reached atom. */
+static int route_bfs(const eng_mol *e, route_work *rw, int a, int b)
+{
+	for (size_t x = 0; x < e->nat; x++)
+		rw->par[x] = -2;
+	int head = 0, tail = 0;
+	rw->par[a] = -1;
+	rw->queue[tail++] = a;
+	while (head < tail && rw->par[b] == -2) {
+		int x = rw->queue[head++], n;
+		const int *nb = eng_nbrs(e, x, &n);
+		for (int j = 0; j < n; j++)
+			if (rw->par[nb[j]] == -2 && !rw->blocked[nb[j]]) {
+				rw->par[nb[j]] = x;
+				rw->queue[tail++] = nb[j];
+			}
+	}
+	if (rw->par[b] == -2)
+		return -1;
+	int len = 0;
+	for (int x = b; x != a; x = rw->par[x])
+		len++;
+	return len;
+}
+
+/* Marks the interior atoms of the route just found that every route must pass (an atom in
+ * no ring always is one; a ring atom when blocking it alone cuts a from b). */
+static void mark_shared(const eng_mol *e, route_work *rw, int a, int b, int *path, int len)
+{
+	int k = 0;
+	for (int x = rw->par[b]; x != a; x = rw->par[x])
+		path[k++] = x;
+	for (int q = 0; q < k && q < len; q++) {
+		int v = path[q];
+		rw->shared[v] = !e->atoms[v].in_ring;
+		if (rw->shared[v])
+			continue;
+		rw->blocked[v] = 1;
+		rw->shared[v] = route_bfs(e, rw, a, b) < 0;
+		rw->blocked[v] = 0;
+	}
+}
+
+/* Blocks the interior atoms of the route in par[] that other routes may avoid; returns
+ * how many it blocked (0: the route adds nothing new). */
+static int block_route(route_work *rw, int a, int b)
+{
+	int k = 0;
+	for (int x = rw->par[b]; x != a; x = rw->par[x])
+		if (!rw->shared[x] && !rw->blocked[x]) {
+			rw->blocked[x] = 1;
+			k++;
+		}
+	return k;
+}
+
+/* Extra interaction of sites i and j from their routes beyond the shortest, pKa units. */
+static double extra_routes(const eng_mol *e, const pred_model *m, route_work *rw, int *path,
+			   int a, int b)
+{
+	if (!e->atoms[a].in_ring || !e->atoms[b].in_ring)
+		return 0;
+	memset(rw->blocked, 0, e->nat);
+	memset(rw->shared, 0, e->nat);
+	int len = route_bfs(e, rw, a, b);
+	if (len < 2 || len > ROUTE_MAX_BONDS)
+		return 0;
+	mark_shared(e, rw, a, b, path, len);
+	route_bfs(e, rw, a, b); /* mark_shared reused par[] */
+	if (!block_route(rw, a, b))
+		return 0;
+	for (size_t x = 0; x < e->nat; x++)
+		rw->blocked[x] |= !is_saturated(e, (int)x) && !rw->shared[x] && (int)x != a &&
+				  (int)x != b;
+	double sum = 0;
+	for (int r = 1; r < ROUTE_MAX; r++) {
+		int d = route_bfs(e, rw, a, b);
+		if (d < 0 || !block_route(rw, a, b))
+			break;
+		sum += ionization_pair_shift(m, d);
+	}
+	return sum * ionization_route_weight(m);
+}
+
+int eng_charge_routes(eng_mol *e, const pred_model *m)
+{
+	size_t n = e->n_sites;
+	free(e->qroute);
+	e->qroute = calloc(n * n + 1, sizeof *e->qroute);
+	route_work rw = {malloc(e->nat + 1), malloc(e->nat + 1),
+			 malloc((e->nat + 1) * sizeof(int)), malloc((e->nat + 1) * sizeof(int))};
+	int *path = malloc((e->nat + 1) * sizeof *path);
+	int rc = e->qroute && rw.blocked && rw.shared && rw.par && rw.queue && path ? 0
+										    : PRED_ENOMEM;
+	for (size_t i = 0; !rc && i < n; i++)
+		for (size_t j = i + 1; j < n; j++) {
+			double x = extra_routes(e, m, &rw, path, e->sites[i].atom, e->sites[j].atom);
+			e->qroute[i * n + j] = e->qroute[j * n + i] = x;
+		}
+	free(rw.blocked);
+	free(rw.shared);
+	free(rw.par);
+	free(rw.queue);
+	free(path);
+	return rc;
+}
+
+double eng_pair_shift(const eng_mol *e, const pred_model *m, size_t i, size_t j)
+{
+	int d = eng_charge_bonds(e->qdist, e->nat, i, e->sites[i].atom, j, e->sites[j].atom);
+	if (d <= 0)
+		return 0;
+	return ionization_pair_shift(m, d) + (e->qroute ? e->qroute[i * e->n_sites + j] : 0);
 }

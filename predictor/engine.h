@@ -64,6 +64,7 @@ typedef struct eng_mol {
 	size_t n_sites;
 	int *dist;      /* n_sites x nat: bonds from each site's ionizable atom */
 	int *qdist;     /* n_sites x nat: bonds from the site's charge (charge_dist.c) */
+	double *qroute; /* n_sites x n_sites: interaction carried by further routes, pKa units */
 	smarts_req elements; /* what the molecule holds, to skip hopeless patterns */
 	int *symclass;   /* symmetry class per atom (identity unless shared_rows) */
 	int shared_rows; /* two sites come from one row: they may be equivalent */
@@ -80,6 +81,12 @@ void eng_bfs(const eng_mol *e, int from, int *dist, int *queue);
 int eng_charge_distances(eng_mol *e, const pred_model *m);
 /* Bonds between the charges of sites i and j (the shorter of the two rows' counts). */
 int eng_charge_bonds(const int *qdist, size_t nat, size_t i, int atom_i, size_t j, int atom_j);
+/* Fills e->qroute for the sites as they stand (call again after dropping sites): the
+ * interaction that routes between two sites other than the shortest carry (charge_dist.c). */
+int eng_charge_routes(eng_mol *e, const pred_model *m);
+/* Interaction of the charges of sites i and j: W of their charge distance plus the further
+ * routes of e->qroute; 0 for one atom or separate fragments. */
+double eng_pair_shift(const eng_mol *e, const pred_model *m, size_t i, size_t j);
 
 /* Builds graph, claims and sites from a normalised molecule. */
 int eng_perceive(eng_mol *e, pred_worker *w, obw_mol *mol, pred_error *err);

@@ -37,6 +37,11 @@ double ionization_pair_shift(const pred_model *m, int bonds)
 	return a * exp(-decay * (bonds - 1));
 }
 
+double ionization_route_weight(const pred_model *m)
+{
+	return param_value(m, m ? m->p_interaction_route : -1, "global.interaction_route", 0.0);
+}
+
 static int set_err(pred_error *err, int code, const char *msg)
 {
 	if (err) {

@@ -27,8 +27,9 @@ typedef struct ion_input {
 	/* symmetry class of every atom when some sites may be equivalent (else NULL):
 	 * microstates whose ionised sites have the same classes are one species */
 	const int *symclass;
-	/* n_sites x n_sites pKa shifts added to the charge interaction of two ionised acids
-	 * (monoanion hydrogen bonds, pair_hbond.c), or NULL */
+	/* n_sites x n_sites pKa shifts added to the charge interaction of two sites (monoanion
+	 * hydrogen bonds of two acids, pair_hbond.c; routes beyond the shortest, charge_dist.c),
+	 * or NULL */
 	const double *pair_extra;
 } ion_input;
 
@@ -40,5 +41,7 @@ int ionization_fill(pred_result *r, const pred_model *m, const ion_input *in,
 /* Charge-interaction energy in pKa units between two unit charges `bonds` bonds apart
  * (the shift of the second site's pKa when the first is already ionised). */
 double ionization_pair_shift(const pred_model *m, int bonds);
+/* Share of W(d) that each further route between two charges adds (charge_dist.c). */
+double ionization_route_weight(const pred_model *m);
 
 #endif

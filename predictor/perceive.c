@@ -263,6 +263,7 @@ void eng_free(eng_mol *e)
 	free(e->sites);
 	free(e->dist);
 	free(e->qdist);
+	free(e->qroute);
 	free(e->corr_start);
 	free(e->symclass);
 	free(e->corr_atom);

@@ -248,6 +248,8 @@ static int build_sites(pred_result *r, eng_mol *e, pred_worker *w, pred_error *e
 	n = e->n_sites;
 	if (!rc)
 		rc = eng_pair_hbonds(e, w);
+	if (!rc)
+		rc = eng_charge_routes(e, w->m);
 	for (size_t i = 0; i < n && !rc; i++)
 		micro[i] = terms_sum(&tls[i]);
 	if (!rc)
@@ -284,15 +286,18 @@ static int out_of_time(double start, const pred_options *opt, pred_error *err)
 		    opt->max_seconds);
 }
 
-/* The microstate model's share of the monoanion hydrogen bonds: the pair term that
- * eng_stepwise gives the second site (-2 v, pair_hbond.c) as an extra pair shift. */
+/* The microstate model's share of the monoanion hydrogen bonds (the pair term that
+ * eng_stepwise gives the second site, -2 v, pair_hbond.c) and of the interaction through
+ * further routes (charge_dist.c), as extra pair shifts. */
 static double *pair_extra(const eng_mol *e, const pred_model *m)
 {
 	size_t n = e->n_sites;
 	double *x = calloc(n * n + 1, sizeof *x);
-	for (size_t k = 0; x && e->pair_param && k < n * n; k++)
-		if (e->pair_param[k] >= 0)
+	for (size_t k = 0; x && k < n * n; k++) {
+		if (e->pair_param && e->pair_param[k] >= 0)
 			x[k] = -2.0 * m->params[e->pair_param[k]].value;
+		x[k] += e->qroute ? e->qroute[k] : 0;
+	}
 	return x;
 }
 

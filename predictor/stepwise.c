@@ -35,13 +35,11 @@ static double interaction(const step_state *st, const eng_mol *e, const pred_mod
 {
 	double sum = 0;
 	for (size_t j = 0; j < e->n_sites; j++) {
-		int d = eng_charge_bonds(e->qdist, e->nat, i, e->sites[i].atom, j,
-					 e->sites[j].atom);
-		if (j == i || d <= 0 || !st->charge[j])
+		if (j == i || !st->charge[j])
 			continue;
 		/* losing a proton lowers the site's charge by one: like charges nearby make that
 		 * easier (positive) or harder (negative). */
-		sum -= st->charge[j] * ionization_pair_shift(m, d);
+		sum -= st->charge[j] * eng_pair_shift(e, m, i, j);
 	}
 	return sum;
 }

@@ -496,6 +496,50 @@ static void test_handbook__fused_pyrimidine_ring_n(void)
 	CHECK_NEAR(site_pka("Cn1cc2ccccc2nc1=O", "pyrimidine", PRED_BASE), 2.15, 0.8);
 }
 
+/* Interaction term of the site that ionises with another's charge present (the lower step
+ * of a diamine), 0 when none; and the lowest site pKa (NAN: no site). */
+static void diamine_steps(const char *smiles, double *inter, double *low)
+{
+	pred_result *r = NULL;
+	pred_error err = {0};
+	*inter = 0;
+	*low = NAN;
+	if (pred_predict(&r, worker, smiles, PRED_FMT_SMILES, NULL, &err))
+		return;
+	for (size_t i = 0; i < pred_result_site_count(r); i++) {
+		const pred_site *s = pred_result_site(r, i);
+		if (isnan(*low) || s->pka < *low)
+			*low = s->pka;
+		for (size_t k = 0; k < s->n_terms; k++)
+			if (!strcmp(s->terms[k].term, "interaction"))
+				*inter = s->terms[k].value;
+	}
+	pred_result_free(r);
+}
+
+/* DABCO's two N are joined by three N-C-C-N bridges, 1,4-diazepane's by two (3 and 4
+ * bonds): each further saturated route adds to the W of the shortest, so the second
+ * protonation lies below what ethane-1,2-diamine's 3 bonds alone give. Second steps: DABCO
+ * 2.97 (Perrin 1972 supplement, entry perrin_supp6922), 1,4-diazepane 6.685 (Perrin 1965,
+ * entry perrin1391), train rows of iupac-pka.csv via the IUPAC Digitized pKa Dataset. */
+static void test_handbook__parallel_saturated_routes_add_to_the_interaction(void)
+{
+	double w3, w5, w, low;
+	diamine_steps("NCCN", &w3, &low);
+	diamine_steps("NCCCCN", &w5, &low);
+	CHECK(w3 < w5 - 0.5); /* like charges: a negative term, larger when nearer */
+	diamine_steps("C1CN2CCN1CC2", &w, &low);
+	CHECK(w < w3 - 1.0);
+	CHECK_NEAR(low, 2.97, 0.8);
+	diamine_steps("C1CNCCNC1", &w, &low);
+	CHECK_NEAR(low, 6.685, 0.5);
+	/* the far side of a benzene ring is no further route: the ring's share of a charge is
+	 * the Hammett term's (ionic sigma, aza terms), so p-phenylenediamine keeps the W of its
+	 * 5 bonds, that of butane-1,4-diamine (common practice) */
+	diamine_steps("Nc1ccc(N)cc1", &w, &low);
+	CHECK_NEAR(w, w5, 0.01);
+}
+
 int main(void)
 {
 	const char *src = getenv("PKAD_SOURCE_DIR");
@@ -522,6 +566,7 @@ int main(void)
 	RUN(test_handbook__nitro_on_n_or_o_is_no_base);
 	RUN(test_handbook__acyl_nitro_cyano_guanidines);
 	RUN(test_handbook__fused_pyrimidine_ring_n);
+	RUN(test_handbook__parallel_saturated_routes_add_to_the_interaction);
 	pred_worker_free(worker);
 	pred_model_free(model);
 	return harness_done();
