@@ -496,6 +496,23 @@ static void test_handbook__fused_pyrimidine_ring_n(void)
 	CHECK_NEAR(site_pka("Cn1cc2ccccc2nc1=O", "pyrimidine", PRED_BASE), 2.15, 0.8);
 }
 
+/* Two alkylamino donors at C4 and C6 of a pyrimidine saturate (corrections.tsv,
+ * pyrimidine_alkylamino_saturation): 4,6-bisdimethylaminopyrimidine 6.34 (entry perrin1634 of
+ * data/iupac-pka.csv, Perrin 1965), predicted 8.7 from the additive sigma_p terms alone, 7.4
+ * with the fitted correction (tolerance as the fused-ring checks above); a pair
+ * with one donor at C2 keeps its value: 4-dimethylamino-2-methylaminopyrimidine 8.10 (entry
+ * perrin1723). */
+static void test_handbook__pyrimidine_alkylamino_donors_saturate(void)
+{
+	double bis46 = most_basic("CN(C)c1cc(N(C)C)ncn1");
+	double bis24 = most_basic("CNc1nccc(N(C)C)n1");
+	CHECK(!isnan(bis46) && !isnan(bis24));
+	/* measured 1.76 apart; the additive terms alone put the 4,6-pair 1.0 above the 2,4-pair */
+	CHECK(bis46 < bis24);
+	CHECK_NEAR(bis46, 6.34, 1.5);
+	CHECK_NEAR(bis24, 8.10, 1.0);
+}
+
 /* Interaction term of the site that ionises with another's charge present (the lower step
  * of a diamine), 0 when none; and the lowest site pKa (NAN: no site). */
 static void diamine_steps(const char *smiles, double *inter, double *low)
@@ -566,6 +583,7 @@ int main(void)
 	RUN(test_handbook__nitro_on_n_or_o_is_no_base);
 	RUN(test_handbook__acyl_nitro_cyano_guanidines);
 	RUN(test_handbook__fused_pyrimidine_ring_n);
+	RUN(test_handbook__pyrimidine_alkylamino_donors_saturate);
 	RUN(test_handbook__parallel_saturated_routes_add_to_the_interaction);
 	pred_worker_free(worker);
 	pred_model_free(model);
