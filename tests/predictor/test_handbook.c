@@ -511,6 +511,9 @@ static void test_handbook__pyrimidine_alkylamino_donors_saturate(void)
 	CHECK(bis46 < bis24);
 	CHECK_NEAR(bis46, 6.34, 1.5);
 	CHECK_NEAR(bis24, 8.10, 1.0);
+	/* the para donor alone, on the pyrimidine's own para slope (sites.tsv rho_para):
+	 * 4-dimethylaminopyrimidine 6.37 (entry perrin_supp6265, Perrin 1972) */
+	CHECK_NEAR(most_basic("CN(C)c1ccncn1"), 6.37, 0.5);
 }
 
 /* Interaction term of the site that ionises with another's charge present (the lower step
