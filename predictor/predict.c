@@ -188,8 +188,9 @@ static int copy_site(pred_result *r, size_t i, const term_list *tl, const eng_mo
 }
 
 /* Oxygen and sulfur bases below pKa 0 (carbonyl, ether, hydroxyl oxygen, thione sulfur)
- * are listed only when the molecule has no stronger base: next to a real base their protonation would be a second
- * step far below pH 0 that no user asks for. Returns the number of sites dropped. */
+ * are listed only when the molecule has no stronger base: next to a real base their
+ * protonation would be a second step far below pH 0 that no user asks for. Returns the
+ * number of sites dropped. */
 static size_t drop_minor_chalcogen_bases(eng_mol *e, term_list *tls, const pred_model *m)
 {
 	int strong = 0;

@@ -159,45 +159,39 @@ static void check_against_closed_form(double rho_prior, double rho_sd)
 	pred_model_free(m);
 }
 
-static void test_fit__solver_equals_closed_form_ridge(void)
+/* Solves the toy benzoic series (no outlier, residual sd 0.5) with the given rho prior. */
+static int solve_toy(double theta[2], double rho_prior, double rho_sd)
 {
-	check_against_closed_form(1.0, 100.0);
-	check_against_closed_form(2.0, 0.05); /* a tight prior pulls rho towards 2 */
-	{
-		pred_model *m = toy_model(2.0, 0.05);
-		pred_fit_options opt;
-		fit_data d;
-		fit_cols cols;
-		double theta[2];
-		pred_fit_options_init(&opt);
-		opt.resid_sd = 0.5;
-		toy_data(&d, 0);
-		fit_cols_build(&cols, m, &d, -1);
-		fit_solve(theta, m, &d, &cols, NULL, &opt, NULL);
-		CHECK(theta[1] > 1.8); /* the data alone say 1.0 */
-		fit_cols_clear(&cols);
-		fit_data_clear(&d);
-		pred_model_free(m);
-	}
-}
-
-static void test_fit__recovers_hammett_benzoic_series(void)
-{
-	pred_model *m = toy_model(0.5, 100.0);
+	pred_model *m = toy_model(rho_prior, rho_sd);
 	pred_fit_options opt;
 	fit_data d;
 	fit_cols cols;
-	double theta[2];
 	pred_fit_options_init(&opt);
 	opt.resid_sd = 0.5;
 	toy_data(&d, 0);
 	fit_cols_build(&cols, m, &d, -1);
-	CHECK_INT_EQ(fit_solve(theta, m, &d, &cols, NULL, &opt, NULL), 0);
-	CHECK_NEAR(theta[0], 4.20, 0.10); /* benzoic acid 4.20 (Hammett 1937) */
-	CHECK_NEAR(theta[1], 1.00, 0.10); /* rho = 1 by definition (Hammett 1937) */
+	int rc = fit_solve(theta, m, &d, &cols, NULL, &opt, NULL);
 	fit_cols_clear(&cols);
 	fit_data_clear(&d);
 	pred_model_free(m);
+	return rc;
+}
+
+static void test_fit__solver_equals_closed_form_ridge(void)
+{
+	double theta[2];
+	check_against_closed_form(1.0, 100.0);
+	check_against_closed_form(2.0, 0.05); /* a tight prior pulls rho towards 2 */
+	solve_toy(theta, 2.0, 0.05);
+	CHECK(theta[1] > 1.8); /* the data alone say 1.0 */
+}
+
+static void test_fit__recovers_hammett_benzoic_series(void)
+{
+	double theta[2];
+	CHECK_INT_EQ(solve_toy(theta, 0.5, 100.0), 0);
+	CHECK_NEAR(theta[0], 4.20, 0.10); /* benzoic acid 4.20 (Hammett 1937) */
+	CHECK_NEAR(theta[1], 1.00, 0.10); /* rho = 1 by definition (Hammett 1937) */
 }
 
 static void test_fit__huber_weights_resist_an_outlier(void)

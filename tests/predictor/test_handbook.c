@@ -460,14 +460,6 @@ static void test_handbook__acyl_nitro_cyano_guanidines(void)
 	CHECK(nitro < 2 && cyano < 2);
 }
 
-/* The imidazole N of a purine holds both rings in its pattern, so the walk reaches a
- * substituent on C8: the first protonation of 8-(methylsulfonyl)purine is 0.42 against 2.76
- * for 8-methylpurine (Perrin 1965 and its 1972 supplement via IUPAC dataset, entries
- * perrin_supp7323 and perrin2575 of data/iupac-pka.csv). With the sulfone the model moves
- * the first proton to the pyrimidine ring (the imidazole N becomes a deep second step), so
- * the check is on each molecule's most basic site. The ring N beside the 2-oxo carbon of a quinazolin-2-one takes no
- * hydration term: 1-methylquinazolin-2(1H)-one 2.15 (entry perrin2272), near the unfused
- * 1-alkylpyrimidin-2-ones 2.6-2.7 (Perrin 1965 via IUPAC dataset). */
 /* pKa of the most basic site of a molecule, NAN when it has none. */
 static double most_basic(const char *smiles)
 {
@@ -485,6 +477,15 @@ static double most_basic(const char *smiles)
 	return v;
 }
 
+/* The imidazole N of a purine holds both rings in its pattern, so the walk reaches a
+ * substituent on C8: the first protonation of 8-(methylsulfonyl)purine is 0.42 against 2.76
+ * for 8-methylpurine (Perrin 1965 and its 1972 supplement via IUPAC dataset, entries
+ * perrin_supp7323 and perrin2575 of data/iupac-pka.csv). With the sulfone the model moves
+ * the first proton to the pyrimidine ring (the imidazole N becomes a deep second step), so
+ * the check is on each molecule's most basic site. The ring N beside the 2-oxo carbon of a
+ * quinazolin-2-one takes no hydration term: 1-methylquinazolin-2(1H)-one 2.15 (entry
+ * perrin2272), near the unfused 1-alkylpyrimidin-2-ones 2.6-2.7 (Perrin 1965 via IUPAC
+ * dataset). */
 static void test_handbook__fused_pyrimidine_ring_n(void)
 {
 	double so2me = most_basic("CS(=O)(=O)c1nc2c([nH]1)cncn2");
