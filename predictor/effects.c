@@ -288,12 +288,18 @@ static void correction_effects(term_list *tl, const eng_mol *e, const pred_worke
 		const frag_corr *c = &m->corrs[k];
 		if (!w->corr_ok[k * m->n_sites + (size_t)s->row])
 			continue;
+		/* a pattern of one (recursive) atom matches a site once; a chain pattern matches
+		 * once per distinct group, so two ortho chloro groups give two matches */
+		int hits = 0;
 		for (int i = e->corr_start[k]; i < e->corr_start[k + 1]; i++)
-			if (e->corr_atom[i] == s->atom) {
-				terms_add(tl, m, c->term, c->p_value, 1.0, "%s", c->id);
-				tl->extra_var += c->unc * c->unc;
-				break;
-			}
+			hits += e->corr_atom[i] == s->atom;
+		if (hits == 0)
+			continue;
+		if (hits == 1)
+			terms_add(tl, m, c->term, c->p_value, 1.0, "%s", c->id);
+		else
+			terms_add(tl, m, c->term, c->p_value, hits, "%s x %d", c->id, hits);
+		tl->extra_var += hits * c->unc * c->unc;
 	}
 }
 

@@ -517,6 +517,19 @@ static void test_handbook__pyrimidine_alkylamino_donors_saturate(void)
 	CHECK_NEAR(most_basic("CN(C)c1ccncn1"), 6.37, 0.5);
 }
 
+/* A chain-pattern correction adds once per distinct match: both alkoxy groups flanking the
+ * ring N of 2,3-dihydro-6-methoxy-4-methylfuro[2,3-b]pyridine take pyridine_ortho_alkoxy,
+ * measured 1.85 (entry perrin_supp6756 of data/iupac-pka.csv, Perrin 1972 supplement); with
+ * one ortho term it was predicted 4.3. 2-amino-6-methoxypyridine 4.64 (entry
+ * perrin_supp5044) takes one ortho amino and one ortho alkoxy term, as before. */
+static void test_handbook__two_ortho_groups_each_take_the_ortho_term(void)
+{
+	CHECK_NEAR(most_basic("COc1cc(C)c2c(n1)OCC2"), 1.85, 1.0);
+	CHECK_NEAR(most_basic("COc1cccc(n1)N"), 4.64, 0.5);
+	/* 2,4,6-trimethylpyridine 7.43 (handbook-bases.csv) */
+	CHECK_NEAR(most_basic("Cc1cc(C)nc(C)c1"), 7.43, 0.5);
+}
+
 /* Interaction term of the site that ionises with another's charge present (the lower step
  * of a diamine), 0 when none; and the lowest site pKa (NAN: no site). */
 static void diamine_steps(const char *smiles, double *inter, double *low)
@@ -589,6 +602,7 @@ int main(void)
 	RUN(test_handbook__fused_pyrimidine_ring_n);
 	RUN(test_handbook__pyrimidine_alkylamino_donors_saturate);
 	RUN(test_handbook__parallel_saturated_routes_add_to_the_interaction);
+	RUN(test_handbook__two_ortho_groups_each_take_the_ortho_term);
 	pred_worker_free(worker);
 	pred_model_free(model);
 	return harness_done();
