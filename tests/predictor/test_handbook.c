@@ -530,6 +530,23 @@ static void test_handbook__two_ortho_groups_each_take_the_ortho_term(void)
 	CHECK_NEAR(most_basic("Cc1cc(C)nc(C)c1"), 7.43, 0.5);
 }
 
+/* An amino group on a benzo-fused azine conjugates with the ring N as far as the cation's
+ * quinoid form allows (corrections.tsv fused_ring_amino_*, amino_o_quinoid): isoquinoline 6-
+ * (para-quinoid, like quinoline 7-) 7.16, 7- (no quinoid form) 6.19, 1- (benzo ring kept)
+ * 7.59, 3- (ortho-quinoid) 5.03 (handbook-bases.csv; 7- and 1- train rows, 6- and 3- test
+ * rows, checked for their order only); without the rows every benzo amino group sat at the
+ * isoquinoline parent and 3-aminoisoquinoline at 7.4 beside the 1-isomer. */
+static void test_handbook__fused_amino_follows_the_quinoid_form(void)
+{
+	double six = most_basic("Nc1ccc2c(c1)ccnc2"), seven = most_basic("Nc1ccc2c(c1)cncc2");
+	double one = most_basic("Nc1nccc2c1cccc2"), three = most_basic("Nc1ncc2c(c1)cccc2");
+	CHECK(!isnan(six) && !isnan(seven) && !isnan(one) && !isnan(three));
+	CHECK(six > seven + 0.5);
+	CHECK(three < one - 1.5);
+	CHECK_NEAR(seven, 6.19, 0.5);
+	CHECK_NEAR(one, 7.59, 0.5);
+}
+
 /* Interaction term of the site that ionises with another's charge present (the lower step
  * of a diamine), 0 when none; and the lowest site pKa (NAN: no site). */
 static void diamine_steps(const char *smiles, double *inter, double *low)
@@ -603,6 +620,7 @@ int main(void)
 	RUN(test_handbook__pyrimidine_alkylamino_donors_saturate);
 	RUN(test_handbook__parallel_saturated_routes_add_to_the_interaction);
 	RUN(test_handbook__two_ortho_groups_each_take_the_ortho_term);
+	RUN(test_handbook__fused_amino_follows_the_quinoid_form);
 	pred_worker_free(worker);
 	pred_model_free(model);
 	return harness_done();
