@@ -547,6 +547,22 @@ static void test_handbook__fused_amino_follows_the_quinoid_form(void)
 	CHECK_NEAR(one, 7.59, 0.5);
 }
 
+/* An amino group on the ring donates less when its N-substituents withdraw (effects.c,
+ * global.amine_n_sigma): 2-(prop-2-ynylamino)pyrimidine 2.85 and 2-benzylaminopyrimidine 3.55
+ * against 2-ethylaminopyrimidine 3.89 (entries perrin_supp6413, perrin_supp5979, perrin1728 of
+ * data/iupac-pka.csv, Perrin 1965 and 1972 supplement); without the term all three sat at
+ * 3.65. The alkyl group adds nothing (the walk passes plain carbon). */
+static void test_handbook__amino_n_substituents_tune_the_donor(void)
+{
+	double propargyl = most_basic("C#CCNc1ncccn1"), benzyl = most_basic("c1ccccc1CNc1ncccn1");
+	double ethyl = most_basic("CCNc1ncccn1");
+	CHECK(!isnan(propargyl) && !isnan(benzyl) && !isnan(ethyl));
+	CHECK(propargyl < benzyl - 0.3);
+	CHECK(benzyl < ethyl - 0.1);
+	CHECK_NEAR(propargyl, 2.85, 0.5);
+	CHECK_NEAR(ethyl, 3.89, 0.5);
+}
+
 /* Interaction term of the site that ionises with another's charge present (the lower step
  * of a diamine), 0 when none; and the lowest site pKa (NAN: no site). */
 static void diamine_steps(const char *smiles, double *inter, double *low)
@@ -621,6 +637,7 @@ int main(void)
 	RUN(test_handbook__parallel_saturated_routes_add_to_the_interaction);
 	RUN(test_handbook__two_ortho_groups_each_take_the_ortho_term);
 	RUN(test_handbook__fused_amino_follows_the_quinoid_form);
+	RUN(test_handbook__amino_n_substituents_tune_the_donor);
 	pred_worker_free(worker);
 	pred_model_free(model);
 	return harness_done();
