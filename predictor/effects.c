@@ -255,8 +255,9 @@ static void add_star(void *ctx, const sigmas *sg, int d, double att)
 		acc->generic_var += 0.16 * att;
 }
 
-/* An amine N on ring atom a (not bonded to an acyl carbon, a heteroatom or a pi bond to
- * one): its donation follows what its own substituents withdraw. */
+/* An amine N on ring atom a (bonded to carbons only, none of them a non-aromatic carbon
+ * with a pi bond to a heteroatom, as in an amide; an aromatic neighbour's Kekule bonds do
+ * not count): its donation follows what its own substituents withdraw. */
 static int is_amine_n(const eng_mol *e, int x, int a)
 {
 	const obw_atom *n_atom = &e->atoms[x];
@@ -265,7 +266,8 @@ static int is_amine_n(const eng_mol *e, int x, int a)
 	int n;
 	const int *nb = eng_nbrs(e, x, &n);
 	for (int j = 0; j < n; j++)
-		if (nb[j] != a && (e->atoms[nb[j]].element != 6 || e->hetero_pi[nb[j]]))
+		if (nb[j] != a && (e->atoms[nb[j]].element != 6 ||
+				   (!e->atoms[nb[j]].aromatic && e->hetero_pi[nb[j]])))
 			return 0;
 	return 1;
 }
@@ -301,7 +303,6 @@ static void ring_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 	for (int j = 0; j < 6; j++) {
 		int a = R->atoms[R->offsets[k] + j], d = abs(j - i0);
 		int pos = (d < 6 - d ? d : 6 - d) + 1;
-		seen[a] = 1;
 		if (a == ipso)
 			continue;
 		if (e->atoms[a].element != 6 && !in_match(s, a) && aza >= 0) {
