@@ -198,9 +198,11 @@ static int plain_carbon(const eng_mol *e, int x)
 typedef void (*walk_visit)(void *ctx, const sigmas *sg, int d, double att);
 
 /* Breadth-first walk from atom `from`: plain carbons, transparent groups and the site's own
- * atoms are passed through; any other group is visited once and ends its branch. */
+ * atoms are passed through; any other group is visited once and ends its branch. With
+ * `alkyl` set, a transparent group is visited too (its sigma*) and passed through. */
 static void walk_from(const eng_mol *e, const pred_model *m, const eng_site *s, int from,
-		      unsigned char *seen, int *queue, int *depth, walk_visit visit, void *ctx)
+		      int alkyl, unsigned char *seen, int *queue, int *depth, walk_visit visit,
+		      void *ctx)
 {
 	double f = m->params[m->p_falloff].value;
 	int head = 0, tail = 0, n;
@@ -228,6 +230,11 @@ static void walk_from(const eng_mol *e, const pred_model *m, const eng_site *s, 
 			visit(ctx, &sg, d, pow(f, d - 1));
 			mark_group(seen, e, x);
 			continue;
+		}
+		if (alkyl && g >= 0 && e->group_root[x] == x && !in_match(s, x)) {
+			sigmas sg;
+			group_sigmas(&sg, e, m, x);
+			visit(ctx, &sg, d, pow(f, d - 1));
 		}
 		if (d >= WALK_DEPTH)
 			continue;
@@ -273,15 +280,16 @@ static int is_amine_n(const eng_mol *e, int x, int a)
 }
 
 /* The N-substituents of an amino group x at ring position pos: beyond the methyls and H of
- * the tabulated NH2, NHCH3 and NMe2 rows, each withdrawing group raises the group's sigma by
- * global.amine_n_sigma x its sigma* (attenuated per bond from the N, as in the walk). */
+ * the tabulated NH2, NHCH3 and NMe2 rows, each group raises the amino group's sigma by
+ * global.amine_n_sigma x its sigma* (attenuated per bond from the N, as in the walk; the
+ * alkyl rows count here with their own sigma*, ethyl -0.10, t-butyl -0.30). */
 static void amine_n_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 			    const eng_site *s, int x, int pos, unsigned char *seen, int *queue,
 			    int *depth)
 {
 	star_sum acc = {0, 0};
-	walk_from(e, m, s, x, seen, queue, depth, add_star, &acc);
-	if (acc.star == 0 || m->p_amine_n < 0)
+	walk_from(e, m, s, x, 1, seen, queue, depth, add_star, &acc);
+	if (fabs(acc.star) < 1e-9 || m->p_amine_n < 0)
 		return;
 	const frag_site *row = &m->sites[s->row];
 	double rho = m->params[pos == 4 ? row->p_rho_para : row->p_rho].value;
@@ -353,7 +361,7 @@ static void walk_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 	if (m->params[row->p_rho_star].value == 0)
 		return;
 	taft_ctx c = {tl, m, row};
-	walk_from(e, m, s, s->centre, seen, queue, depth, add_taft, &c);
+	walk_from(e, m, s, s->centre, 0, seen, queue, depth, add_taft, &c);
 }
 
 static void correction_effects(term_list *tl, const eng_mol *e, const pred_worker *w,

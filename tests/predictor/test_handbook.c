@@ -551,7 +551,7 @@ static void test_handbook__fused_amino_follows_the_quinoid_form(void)
  * global.amine_n_sigma): 2-(prop-2-ynylamino)pyrimidine 2.85 and 2-benzylaminopyrimidine 3.55
  * against 2-ethylaminopyrimidine 3.89 (entries perrin_supp6413, perrin_supp5979, perrin1728 of
  * data/iupac-pka.csv, Perrin 1965 and 1972 supplement); without the term all three sat at
- * 3.65. The alkyl group adds nothing (the walk passes plain carbon). */
+ * 3.65. An alkyl row of substituents.tsv adds its own sigma* (ethyl -0.10, Taft 1956). */
 static void test_handbook__amino_n_substituents_tune_the_donor(void)
 {
 	double propargyl = most_basic("C#CCNc1ncccn1"), benzyl = most_basic("c1ccccc1CNc1ncccn1");
