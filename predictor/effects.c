@@ -183,39 +183,6 @@ static void mark_group(unsigned char *seen, const eng_mol *e, int x)
 			seen[a] = 1;
 }
 
-/* Substituents of the Hammett ring k (ipso at ring index i0). Marks what it counted. */
-static void ring_effects(term_list *tl, const eng_mol *e, const pred_model *m,
-			 const eng_site *s, size_t k, int ipso, unsigned char *seen)
-{
-	const frag_site *row = &m->sites[s->row];
-	const obw_rings *R = &e->rings;
-	int i0 = ring_index_of(R, k, ipso), aza = m->subst_aza;
-	for (int j = 0; j < 6; j++) {
-		int a = R->atoms[R->offsets[k] + j], d = abs(j - i0);
-		int pos = (d < 6 - d ? d : 6 - d) + 1;
-		seen[a] = 1;
-		if (a == ipso)
-			continue;
-		if (e->atoms[a].element != 6 && !in_match(s, a) && aza >= 0) {
-			sigmas g = {m->substs[aza].sigma_m, m->substs[aza].sigma_p,
-				     m->substs[aza].sigma_p_minus, m->substs[aza].sigma_p_plus, 0,
-				     "aza", 0};
-			hammett_term(tl, m, row, pos, &g);
-		}
-		int n;
-		const int *nb = eng_nbrs(e, a, &n);
-		for (int q = 0; q < n; q++) {
-			int x = nb[q];
-			if (ring_index_of(R, k, x) >= 0 || in_match(s, x) || fused_with(e, k, a, x))
-				continue;
-			sigmas g;
-			group_sigmas(&g, e, m, x);
-			hammett_term(tl, m, row, pos, &g);
-			mark_group(seen, e, x);
-		}
-	}
-}
-
 /* Atoms the walk passes through without a term: plain carbon, and aromatic ring atoms no
  * group claims (a ring nitrogen of a heteroaromatic parent is part of that parent; remote
  * heteroaryl rings count through the aryl rows of substituents.tsv). */
@@ -227,17 +194,20 @@ static int plain_carbon(const eng_mol *e, int x)
 	return a->element == 6 && a->charge == 0 && !e->hetero_pi[x];
 }
 
-/* Taft walk: breadth-first from the centre; each group adds -rho* sigma* f^(d-1). */
-static void walk_effects(term_list *tl, const eng_mol *e, const pred_model *m,
-			 const eng_site *s, unsigned char *seen, int *queue, int *depth)
+/* What the walk does with a group it meets d bonds out (attenuation att = f^(d-1)). */
+typedef void (*walk_visit)(void *ctx, const sigmas *sg, int d, double att);
+
+/* Breadth-first walk from atom `from`: plain carbons, transparent groups and the site's own
+ * atoms are passed through; any other group is visited once and ends its branch. With
+ * `alkyl` set, a transparent group is visited too (its sigma*) and passed through. */
+static void walk_from(const eng_mol *e, const pred_model *m, const eng_site *s, int from,
+		      int alkyl, unsigned char *seen, int *queue, int *depth, walk_visit visit,
+		      void *ctx)
 {
-	const frag_site *row = &m->sites[s->row];
-	if (m->params[row->p_rho_star].value == 0)
-		return;
 	double f = m->params[m->p_falloff].value;
 	int head = 0, tail = 0, n;
-	seen[s->centre] = 1;
-	const int *nb = eng_nbrs(e, s->centre, &n);
+	seen[from] = 1;
+	const int *nb = eng_nbrs(e, from, &n);
 	for (int j = 0; j < n; j++)
 		if (!seen[nb[j]]) {
 			seen[nb[j]] = 1;
@@ -257,16 +227,14 @@ static void walk_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 		if (!transparent) {
 			sigmas sg;
 			group_sigmas(&sg, e, m, x);
-			double att = pow(f, d - 1);
-			terms_add(tl, m, sg.generic ? "generic_substituent" : "taft", row->p_rho_star,
-				  -sg.star * att, "%s at %d bond%s, sigma* %.2f x %.2f", sg.label, d,
-				  d > 1 ? "s" : "", sg.star, att);
-			if (sg.generic) {
-				tl->n_generic++;
-				tl->extra_var += 0.16 * att;
-			}
+			visit(ctx, &sg, d, pow(f, d - 1));
 			mark_group(seen, e, x);
 			continue;
+		}
+		if (alkyl && g >= 0 && e->group_root[x] == x && !in_match(s, x)) {
+			sigmas sg;
+			group_sigmas(&sg, e, m, x);
+			visit(ctx, &sg, d, pow(f, d - 1));
 		}
 		if (d >= WALK_DEPTH)
 			continue;
@@ -280,6 +248,122 @@ static void walk_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 	}
 }
 
+/* Sum of the attenuated sigma* the walk meets (the N-substituents of an amino group). */
+typedef struct star_sum {
+	double star, generic_var;
+} star_sum;
+
+static void add_star(void *ctx, const sigmas *sg, int d, double att)
+{
+	star_sum *acc = ctx;
+	(void)d;
+	acc->star += sg->star * att;
+	if (sg->generic)
+		acc->generic_var += 0.16 * att;
+}
+
+/* An amine N on ring atom a (bonded to carbons only, none of them a non-aromatic carbon
+ * with a pi bond to a heteroatom, as in an amide; an aromatic neighbour's Kekule bonds do
+ * not count): its donation follows what its own substituents withdraw. */
+static int is_amine_n(const eng_mol *e, int x, int a)
+{
+	const obw_atom *n_atom = &e->atoms[x];
+	if (n_atom->element != 7 || n_atom->charge != 0 || n_atom->aromatic || e->hetero_pi[x])
+		return 0;
+	int n;
+	const int *nb = eng_nbrs(e, x, &n);
+	for (int j = 0; j < n; j++)
+		if (nb[j] != a && (e->atoms[nb[j]].element != 6 ||
+				   (!e->atoms[nb[j]].aromatic && e->hetero_pi[nb[j]])))
+			return 0;
+	return 1;
+}
+
+/* The N-substituents of an amino group x at ring position pos: beyond the methyls and H of
+ * the tabulated NH2, NHCH3 and NMe2 rows, each group raises the amino group's sigma by
+ * global.amine_n_sigma x its sigma* (attenuated per bond from the N, as in the walk; the
+ * alkyl rows count here with their own sigma*, ethyl -0.10, t-butyl -0.30). */
+static void amine_n_effects(term_list *tl, const eng_mol *e, const pred_model *m,
+			    const eng_site *s, int x, int pos, unsigned char *seen, int *queue,
+			    int *depth)
+{
+	star_sum acc = {0, 0};
+	walk_from(e, m, s, x, 1, seen, queue, depth, add_star, &acc);
+	if (fabs(acc.star) < 1e-9 || m->p_amine_n < 0)
+		return;
+	const frag_site *row = &m->sites[s->row];
+	double rho = m->params[pos == 4 ? row->p_rho_para : row->p_rho].value;
+	terms_add(tl, m, "hammett", m->p_amine_n, -rho * acc.star,
+		  "%d-amino N-substituents, sigma* %.2f, rho %.2f", pos, acc.star, rho);
+	tl->extra_var += acc.generic_var;
+}
+
+/* Substituents of the Hammett ring k (ipso at ring index i0). Marks what it counted. */
+static void ring_effects(term_list *tl, const eng_mol *e, const pred_model *m,
+			 const eng_site *s, size_t k, int ipso, unsigned char *seen, int *queue,
+			 int *depth)
+{
+	const frag_site *row = &m->sites[s->row];
+	const obw_rings *R = &e->rings;
+	int i0 = ring_index_of(R, k, ipso), aza = m->subst_aza;
+	for (int j = 0; j < 6; j++)
+		seen[R->atoms[R->offsets[k] + j]] = 1;
+	for (int j = 0; j < 6; j++) {
+		int a = R->atoms[R->offsets[k] + j], d = abs(j - i0);
+		int pos = (d < 6 - d ? d : 6 - d) + 1;
+		if (a == ipso)
+			continue;
+		if (e->atoms[a].element != 6 && !in_match(s, a) && aza >= 0) {
+			sigmas g = {m->substs[aza].sigma_m, m->substs[aza].sigma_p,
+				     m->substs[aza].sigma_p_minus, m->substs[aza].sigma_p_plus, 0,
+				     "aza", 0};
+			hammett_term(tl, m, row, pos, &g);
+		}
+		int n;
+		const int *nb = eng_nbrs(e, a, &n);
+		for (int q = 0; q < n; q++) {
+			int x = nb[q];
+			if (ring_index_of(R, k, x) >= 0 || in_match(s, x) || fused_with(e, k, a, x))
+				continue;
+			sigmas g;
+			group_sigmas(&g, e, m, x);
+			hammett_term(tl, m, row, pos, &g);
+			mark_group(seen, e, x);
+			if (is_amine_n(e, x, a))
+				amine_n_effects(tl, e, m, s, x, pos, seen, queue, depth);
+		}
+	}
+}
+
+/* One Taft term per group the walk from the centre meets: -rho* sigma* f^(d-1). */
+typedef struct taft_ctx {
+	term_list *tl;
+	const pred_model *m;
+	const frag_site *row;
+} taft_ctx;
+
+static void add_taft(void *ctx, const sigmas *sg, int d, double att)
+{
+	taft_ctx *c = ctx;
+	terms_add(c->tl, c->m, sg->generic ? "generic_substituent" : "taft", c->row->p_rho_star,
+		  -sg->star * att, "%s at %d bond%s, sigma* %.2f x %.2f", sg->label, d,
+		  d > 1 ? "s" : "", sg->star, att);
+	if (sg->generic) {
+		c->tl->n_generic++;
+		c->tl->extra_var += 0.16 * att;
+	}
+}
+
+static void walk_effects(term_list *tl, const eng_mol *e, const pred_model *m,
+			 const eng_site *s, unsigned char *seen, int *queue, int *depth)
+{
+	const frag_site *row = &m->sites[s->row];
+	if (m->params[row->p_rho_star].value == 0)
+		return;
+	taft_ctx c = {tl, m, row};
+	walk_from(e, m, s, s->centre, 0, seen, queue, depth, add_taft, &c);
+}
+
 static void correction_effects(term_list *tl, const eng_mol *e, const pred_worker *w,
 			       const eng_site *s)
 {
@@ -288,12 +372,18 @@ static void correction_effects(term_list *tl, const eng_mol *e, const pred_worke
 		const frag_corr *c = &m->corrs[k];
 		if (!w->corr_ok[k * m->n_sites + (size_t)s->row])
 			continue;
+		/* a pattern of one (recursive) atom matches a site once; a chain pattern matches
+		 * once per distinct group, so two ortho chloro groups give two matches */
+		int hits = 0;
 		for (int i = e->corr_start[k]; i < e->corr_start[k + 1]; i++)
-			if (e->corr_atom[i] == s->atom) {
-				terms_add(tl, m, c->term, c->p_value, 1.0, "%s", c->id);
-				tl->extra_var += c->unc * c->unc;
-				break;
-			}
+			hits += e->corr_atom[i] == s->atom;
+		if (hits == 0)
+			continue;
+		if (hits == 1)
+			terms_add(tl, m, c->term, c->p_value, 1.0, "%s", c->id);
+		else
+			terms_add(tl, m, c->term, c->p_value, hits, "%s x %d", c->id, hits);
+		tl->extra_var += hits * c->unc * c->unc;
 	}
 }
 
@@ -308,7 +398,7 @@ void eng_site_effects(term_list *tl, const eng_mol *e, const pred_worker *w, con
 	if (seen && queue && depth) {
 		int ipso = -1, k = m->params[row->p_rho].value != 0 ? hammett_ring(e, s, &ipso) : -1;
 		if (k >= 0)
-			ring_effects(tl, e, m, s, (size_t)k, ipso, seen);
+			ring_effects(tl, e, m, s, (size_t)k, ipso, seen, queue, depth);
 		walk_effects(tl, e, m, s, seen, queue, depth);
 		correction_effects(tl, e, w, s);
 	}

@@ -365,10 +365,14 @@ static int add_globals(pred_model *m)
 	m->p_unc_size = model_param_add(m, "global.unc_size", 0.0, 0);
 	m->p_unc_sites = model_param_add(m, "global.unc_sites", 0.0, 0);
 	m->p_unc_floor = model_param_add(m, "global.unc_floor", 0.0, 0);
+	/* Rise of an amino group's sigma per unit sigma* of its N-substituents (effects.c):
+	 * HLT1991 Table I (from memory) NHC6H5 sigma_p -0.56 / sigma_m -0.02 against NHCH3
+	 * -0.70 / -0.21, over sigma*(C6H5) 0.60: 0.23 / 0.32 (own arithmetic); fitted. */
+	m->p_amine_n = model_param_add(m, "global.amine_n_sigma", 0.25, 0.1);
 	return m->p_falloff < 0 || m->p_interaction < 0 || m->p_interaction_decay < 0 ||
 		       m->p_interaction_route < 0 ||
 		       m->p_unc_scale < 0 || m->p_unc_size < 0 || m->p_unc_sites < 0 ||
-		       m->p_unc_floor < 0
+		       m->p_unc_floor < 0 || m->p_amine_n < 0
 		       ? PRED_ENOMEM
 		       : 0;
 }

@@ -83,6 +83,7 @@ struct pred_model {
 	int p_unc_size;     /* widening per 10 heavy atoms beyond 8 (see site_unc_factor) */
 	int p_unc_sites;    /* widening per site beyond the first */
 	int p_unc_floor;    /* no site uncertainty below this (repeatability of the data) */
+	int p_amine_n;      /* sigma rise of a ring amino group per sigma* of its N-substituents */
 };
 
 /* Index of the parameter with this id, or -1. */

@@ -517,6 +517,58 @@ static void test_handbook__pyrimidine_alkylamino_donors_saturate(void)
 	CHECK_NEAR(most_basic("CN(C)c1ccncn1"), 6.37, 0.5);
 }
 
+/* A chain-pattern correction adds once per distinct match: both alkoxy groups flanking the
+ * ring N of 2,3-dihydro-6-methoxy-4-methylfuro[2,3-b]pyridine take pyridine_ortho_alkoxy,
+ * measured 1.85 (entry perrin_supp6756 of data/iupac-pka.csv, Perrin 1972 supplement); with
+ * one ortho term it was predicted 4.3. 2-amino-6-methoxypyridine 4.64 (entry
+ * perrin_supp5044) takes one ortho amino and one ortho alkoxy term, as before. */
+static void test_handbook__two_ortho_groups_each_take_the_ortho_term(void)
+{
+	CHECK_NEAR(most_basic("COc1cc(C)c2c(n1)OCC2"), 1.85, 1.0);
+	CHECK_NEAR(most_basic("COc1cccc(n1)N"), 4.64, 0.5);
+	/* 2,4,6-trimethylpyridine 7.43 (handbook-bases.csv) */
+	CHECK_NEAR(most_basic("Cc1cc(C)nc(C)c1"), 7.43, 0.5);
+}
+
+/* An amino group on a benzo-fused azine conjugates with the ring N as far as the cation's
+ * quinoid form allows (corrections.tsv fused_ring_amino_*, amino_o_quinoid): isoquinoline 6-
+ * (para-quinoid, like quinoline 7-) 7.16, 7- (no quinoid form) 6.19, 1- (benzo ring kept)
+ * 7.59, 3- (ortho-quinoid) 5.03 (handbook-bases.csv; 7- and 1- train rows, 6- and 3- test
+ * rows, checked for their order only); without the rows every benzo amino group sat at the
+ * isoquinoline parent and 3-aminoisoquinoline at 7.4 beside the 1-isomer. */
+static void test_handbook__fused_amino_follows_the_quinoid_form(void)
+{
+	double six = most_basic("Nc1ccc2c(c1)ccnc2"), seven = most_basic("Nc1ccc2c(c1)cncc2");
+	double one = most_basic("Nc1nccc2c1cccc2"), three = most_basic("Nc1ncc2c(c1)cccc2");
+	CHECK(!isnan(six) && !isnan(seven) && !isnan(one) && !isnan(three));
+	CHECK(six > seven + 0.5);
+	CHECK(three < one - 1.5);
+	CHECK_NEAR(seven, 6.19, 0.5);
+	CHECK_NEAR(one, 7.59, 0.5);
+}
+
+/* An amino group on the ring donates less when its N-substituents withdraw (effects.c,
+ * global.amine_n_sigma): 2-(prop-2-ynylamino)pyrimidine 2.85 and 2-benzylaminopyrimidine 3.55
+ * against 2-ethylaminopyrimidine 3.89 (entries perrin_supp6413, perrin_supp5979, perrin1728 of
+ * data/iupac-pka.csv, Perrin 1965 and 1972 supplement); without the term all three sat at
+ * 3.65. An alkyl row of substituents.tsv adds its own sigma* (ethyl -0.10, Taft 1956). */
+static void test_handbook__amino_n_substituents_tune_the_donor(void)
+{
+	double propargyl = most_basic("C#CCNc1ncccn1"), benzyl = most_basic("c1ccccc1CNc1ncccn1");
+	double ethyl = most_basic("CCNc1ncccn1");
+	CHECK(!isnan(propargyl) && !isnan(benzyl) && !isnan(ethyl));
+	CHECK(propargyl < benzyl - 0.3);
+	CHECK(benzyl < ethyl - 0.1);
+	CHECK_NEAR(propargyl, 2.85, 0.5);
+	CHECK_NEAR(ethyl, 3.89, 0.5);
+	/* an aza-aryl on the amino N counts whichever Kekule form the input draws (common
+	 * practice: one molecule, one answer) */
+	double kek1 = most_basic("C1=CN=C(C=C1)Nc1ccncc1");
+	double kek2 = most_basic("C1=CC=NC(=C1)Nc1ccncc1");
+	CHECK(!isnan(kek1) && !isnan(kek2));
+	CHECK_NEAR(kek1, kek2, 0.01);
+}
+
 /* Interaction term of the site that ionises with another's charge present (the lower step
  * of a diamine), 0 when none; and the lowest site pKa (NAN: no site). */
 static void diamine_steps(const char *smiles, double *inter, double *low)
@@ -589,6 +641,9 @@ int main(void)
 	RUN(test_handbook__fused_pyrimidine_ring_n);
 	RUN(test_handbook__pyrimidine_alkylamino_donors_saturate);
 	RUN(test_handbook__parallel_saturated_routes_add_to_the_interaction);
+	RUN(test_handbook__two_ortho_groups_each_take_the_ortho_term);
+	RUN(test_handbook__fused_amino_follows_the_quinoid_form);
+	RUN(test_handbook__amino_n_substituents_tune_the_donor);
 	pred_worker_free(worker);
 	pred_model_free(model);
 	return harness_done();
