@@ -288,12 +288,23 @@ static void correction_effects(term_list *tl, const eng_mol *e, const pred_worke
 		const frag_corr *c = &m->corrs[k];
 		if (!w->corr_ok[k * m->n_sites + (size_t)s->row])
 			continue;
-		for (int i = e->corr_start[k]; i < e->corr_start[k + 1]; i++)
-			if (e->corr_atom[i] == s->atom) {
-				terms_add(tl, m, c->term, c->p_value, 1.0, "%s", c->id);
-				tl->extra_var += c->unc * c->unc;
+		int hits = 0;
+		for (int i = e->corr_start[k]; i < e->corr_start[k + 1]; i++) {
+			if (e->corr_atom[i] != s->atom)
+				continue;
+			hits++;
+			if (!c->per_match)
 				break;
-			}
+		}
+		if (!hits)
+			continue;
+		/* a per-match row (one carboxymethyl arm of an ammonium, say) scales with the
+		 * count, and so does the design column the fit regresses on */
+		if (hits > 1)
+			terms_add(tl, m, c->term, c->p_value, hits, "%s x %d", c->id, hits);
+		else
+			terms_add(tl, m, c->term, c->p_value, 1.0, "%s", c->id);
+		tl->extra_var += hits * c->unc * c->unc;
 	}
 }
 

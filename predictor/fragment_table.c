@@ -265,6 +265,11 @@ static int parse_corr_row(pred_model *m, frag_corr *k, const tsv_table *t, const
 	    (rc = dup_field(&k->source, t, r, c[6], err)) ||
 	    (rc = check_smarts(t, r, k->smarts, err)))
 		return rc;
+	const char *count = c[7] >= 0 ? r->fields[c[7]] : "site";
+	if (strcmp(count, "site") && strcmp(count, "match"))
+		return tsv_fail(err, PRED_EDATA, t, r->line, "count '%s' is not site or match",
+				count);
+	k->per_match = !strcmp(count, "match");
 	char id[128];
 	snprintf(id, sizeof id, "corr.%s", k->id);
 	k->p_value = model_param_add(m, id, value, 0.5);
@@ -275,11 +280,17 @@ static int parse_corrs(pred_model *m, const tsv_table *t, pred_error *err)
 {
 	static const char *const names[] = {"id", "term", "sites", "smarts", "value", "unc",
 					    "source", NULL};
-	int c[7];
+	int c[8];
 	if (columns(c, t, names, err))
 		return PRED_EDATA;
-	if (t->n_cols != 7)
-		return tsv_fail(err, PRED_EDATA, t, 0, "expected 7 columns, got %zu", t->n_cols);
+	/* count is optional: a table without the column adds every row once per site. */
+	c[7] = -1;
+	for (size_t j = 0; j < t->n_cols; j++)
+		if (!strcmp(t->header[j], "count"))
+			c[7] = (int)j;
+	if (t->n_cols != (c[7] >= 0 ? 8u : 7u))
+		return tsv_fail(err, PRED_EDATA, t, 0, "expected %d columns, got %zu",
+				c[7] >= 0 ? 8 : 7, t->n_cols);
 	m->corrs = calloc(t->n_rows ? t->n_rows : 1, sizeof *m->corrs);
 	if (!m->corrs)
 		return PRED_ENOMEM;

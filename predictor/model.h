@@ -48,6 +48,7 @@ typedef struct frag_corr {
 	char *smarts;
 	int p_value;
 	double unc;
+	int per_match; /* 1: the term counts every match at the site (count "match") */
 	char *source;
 } frag_corr;
 
