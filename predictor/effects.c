@@ -227,6 +227,50 @@ static int plain_carbon(const eng_mol *e, int x)
 	return a->element == 6 && a->charge == 0 && !e->hetero_pi[x];
 }
 
+/* Substituents on an aryl group the walk met at depth d (rooted at ring atom x): meta and para
+ * ones reach the site through the ring as t x sigma on top of the aryl's sigma*, with t the
+ * aryl transmission (params.tsv global.aryl_transmission). Ortho ones are left out (their
+ * proximity to the CH2 is not the ring's). Marks what it counted. */
+static void aryl_ring_effects(term_list *tl, const eng_mol *e, const pred_model *m,
+			      const eng_site *s, int x, int d, unsigned char *seen)
+{
+	const frag_site *row = &m->sites[s->row];
+	double t = m->params[m->p_aryl_transmission].value;
+	double att = pow(m->params[m->p_falloff].value, d - 1);
+	const obw_rings *R = &e->rings;
+	for (size_t k = 0; t != 0 && k < R->n_rings; k++) {
+		int i0 = ring_index_of(R, k, x);
+		if (i0 < 0 || !ring_is_aromatic6(e, k))
+			continue;
+		for (int j = 0; j < 6; j++) {
+			int a = R->atoms[R->offsets[k] + j], dj = abs(j - i0);
+			int pos = (dj < 6 - dj ? dj : 6 - dj) + 1, n;
+			if (pos < 3)
+				continue;
+			const int *nb = eng_nbrs(e, a, &n);
+			for (int q = 0; q < n; q++) {
+				int y = nb[q];
+				if (seen[y] || ring_index_of(R, k, y) >= 0 || in_match(s, y) ||
+				    fused_with(e, k, a, y))
+					continue;
+				sigmas g;
+				group_sigmas(&g, e, m, y);
+				double sigma = pos == 3 ? g.m : g.p;
+				terms_add(tl, m, g.generic ? "generic_substituent" : "taft",
+					  row->p_rho_star, -t * sigma * att,
+					  "%d-%s on an aryl at %d bonds, sigma %.2f x %.2f x %.2f", pos,
+					  g.label, d, sigma, t, att);
+				if (g.generic) {
+					tl->n_generic++;
+					tl->extra_var += 0.16 * att * t;
+				}
+				mark_group(seen, e, y);
+			}
+		}
+		return; /* one ring: the one the walk entered */
+	}
+}
+
 /* Taft walk: breadth-first from the centre; each group adds -rho* sigma* f^(d-1). */
 static void walk_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 			 const eng_site *s, unsigned char *seen, int *queue, int *depth)
@@ -266,6 +310,8 @@ static void walk_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 				tl->extra_var += 0.16 * att;
 			}
 			mark_group(seen, e, x);
+			if (e->atoms[x].aromatic && !sg.generic)
+				aryl_ring_effects(tl, e, m, s, x, d, seen);
 			continue;
 		}
 		if (d >= WALK_DEPTH)

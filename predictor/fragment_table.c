@@ -368,6 +368,8 @@ static int add_globals(pred_model *m)
 	m->p_interaction_decay = model_param_add(m, "global.interaction_decay", 0.53, 0.1);
 	/* 0: only the shortest route between two charges; the value is a params.tsv row */
 	m->p_interaction_route = model_param_add(m, "global.interaction_route", 0.0, 0);
+	/* 0: ring substituents of an aryl met by the Taft walk count nothing; params.tsv row */
+	m->p_aryl_transmission = model_param_add(m, "global.aryl_transmission", 0.0, 0);
 	/* One factor on every site uncertainty, chosen on the train split so that the share of
 	 * residuals within one uncertainty is near 68% (not fitted by least squares). */
 	m->p_unc_scale = model_param_add(m, "global.unc_scale", 1.0, 0);
@@ -377,7 +379,7 @@ static int add_globals(pred_model *m)
 	m->p_unc_sites = model_param_add(m, "global.unc_sites", 0.0, 0);
 	m->p_unc_floor = model_param_add(m, "global.unc_floor", 0.0, 0);
 	return m->p_falloff < 0 || m->p_interaction < 0 || m->p_interaction_decay < 0 ||
-		       m->p_interaction_route < 0 ||
+		       m->p_interaction_route < 0 || m->p_aryl_transmission < 0 ||
 		       m->p_unc_scale < 0 || m->p_unc_size < 0 || m->p_unc_sites < 0 ||
 		       m->p_unc_floor < 0
 		       ? PRED_ENOMEM

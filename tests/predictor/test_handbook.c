@@ -650,6 +650,24 @@ static void test_handbook__dabco_counts_its_three_rings(void)
 	CHECK_NEAR(most_basic("C1CN2CCN1CC2"), 8.82, 0.6);
 }
 
+/* Substituents on an aryl group that the Taft walk meets (effects.c aryl_ring_effects): a
+ * meta or para group adds t x sigma to the aryl's sigma* (params.tsv global.aryl_transmission).
+ * Benzylamine 9.38, 3-chloro- 9.01, 3-nitrobenzylamine 8.65 (Perrin 1965 and 1972 via IUPAC
+ * dataset, train rows of data/iupac-pka.csv); without the term all three take one value. */
+static void test_handbook__ring_substituents_of_a_benzylamine(void)
+{
+	double h = site_pka("NCc1ccccc1", "primary_amine", PRED_BASE);
+	double cl = site_pka("NCc1cccc(c1)Cl", "primary_amine", PRED_BASE);
+	double no2 = site_pka("NCc1cccc(c1)[N+](=O)[O-]", "primary_amine", PRED_BASE);
+	CHECK(h - cl > 0.2);
+	/* sigma_m NO2 0.71, Cl 0.37 (substituent-constants.csv, HLT1991): the shifts keep that
+	 * ratio */
+	CHECK_NEAR((h - no2) / (h - cl), 0.71 / 0.37, 0.01);
+	CHECK_NEAR(h, 9.38, 0.4);
+	CHECK_NEAR(cl, 9.01, 0.4);
+	CHECK_NEAR(no2, 8.65, 0.4);
+}
+
 /* Interaction term of the site that ionises with another's charge present (the lower step
  * of a diamine), 0 when none; and the lowest site pKa (NAN: no site). */
 static void diamine_steps(const char *smiles, double *inter, double *low)
@@ -726,6 +744,7 @@ int main(void)
 	RUN(test_handbook__phosphonomethyl_arms_of_an_ammonium);
 	RUN(test_handbook__propargylic_amines);
 	RUN(test_handbook__dabco_counts_its_three_rings);
+	RUN(test_handbook__ring_substituents_of_a_benzylamine);
 	pred_worker_free(worker);
 	pred_model_free(model);
 	return harness_done();
