@@ -668,36 +668,6 @@ static void test_handbook__ring_substituents_of_a_benzylamine(void)
 	CHECK_NEAR(no2, 8.65, 0.4);
 }
 
-/* Carboxyl arms of an ammonium, once per arm by amine class (corrections.tsv
- * amine_alpha_carboxyl_*): measured ammonium steps N-methyliminodiacetic acid 9.57 and
- * nitrilotriacetic acid 9.73 (Serjeant & Dempsey 1979 via IUPAC dataset, train rows of
- * data/iupac-pka.csv), N,N-dimethylglycine 9.83 (Perrin 1965 via IUPAC dataset); without the
- * per-arm term 8.6, 8.0 and 9.3. The last macroscopic value is the ammonium step. */
-static void test_handbook__carboxyl_arms_of_a_tertiary_ammonium(void)
-{
-	const char *t = "tertiary_amine", *id = "amine_alpha_carboxyl_tertiary";
-	double one = corr_value("CN(C)CC(=O)O", t, id);
-	CHECK(one > 0);
-	CHECK_NEAR(corr_value("CN(CC(=O)O)CC(=O)O", t, id), 2 * one, 1e-9);
-	CHECK_NEAR(last_macro("CN(CC(=O)O)CC(=O)O"), 9.57, 0.6);
-	CHECK_NEAR(last_macro("OC(=O)CN(CC(=O)O)CC(=O)O"), 9.73, 0.8);
-	CHECK_NEAR(last_macro("CN(C)CC(=O)O"), 9.83, 0.5);
-}
-
-/* Cyano groups two or three bonds from an ammonium (corrections.tsv amine_cyanomethyl,
- * amine_cyanoethyl, once per arm): (diethylamino)acetonitrile 4.55 and
- * N,N-bis(2-cyanoethyl)ethylamine 4.55 (handbook-bases.csv, Perrin 1965), 5.3 and 6.1 from
- * the walk alone. */
-static void test_handbook__cyano_arms_of_an_ammonium(void)
-{
-	double one = corr_value("CCN(CCC#N)CC", "tertiary_amine", "amine_cyanoethyl");
-	CHECK(one < 0);
-	CHECK_NEAR(corr_value("N#CCCN(CCC#N)CC", "tertiary_amine", "amine_cyanoethyl"), 2 * one,
-		   1e-9);
-	CHECK_NEAR(site_pka("N#CCCN(CCC#N)CC", "tertiary_amine", PRED_BASE), 4.55, 0.6);
-	CHECK_NEAR(site_pka("CCN(CC#N)CC", "tertiary_amine", PRED_BASE), 4.55, 0.6);
-}
-
 /* Interaction term of the site that ionises with another's charge present (the lower step
  * of a diamine), 0 when none; and the lowest site pKa (NAN: no site). */
 static void diamine_steps(const char *smiles, double *inter, double *low)
@@ -775,8 +745,6 @@ int main(void)
 	RUN(test_handbook__propargylic_amines);
 	RUN(test_handbook__dabco_counts_its_three_rings);
 	RUN(test_handbook__ring_substituents_of_a_benzylamine);
-	RUN(test_handbook__carboxyl_arms_of_a_tertiary_ammonium);
-	RUN(test_handbook__cyano_arms_of_an_ammonium);
 	pred_worker_free(worker);
 	pred_model_free(model);
 	return harness_done();
