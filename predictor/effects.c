@@ -194,11 +194,56 @@ static int plain_carbon(const eng_mol *e, int x)
 	return a->element == 6 && a->charge == 0 && !e->hetero_pi[x];
 }
 
+/* Substituents on an aryl group the walk met at depth d (rooted at ring atom x): meta and para
+ * ones reach the site through the ring as t x sigma on top of the aryl's sigma*, with t the
+ * aryl transmission (params.tsv global.aryl_transmission). Ortho ones are left out (their
+ * proximity to the CH2 is not the ring's). Marks what it counted. */
+static void aryl_ring_effects(term_list *tl, const eng_mol *e, const pred_model *m,
+			      const eng_site *s, int x, int d, unsigned char *seen)
+{
+	const frag_site *row = &m->sites[s->row];
+	double t = m->params[m->p_aryl_transmission].value;
+	double att = pow(m->params[m->p_falloff].value, d - 1);
+	const obw_rings *R = &e->rings;
+	for (size_t k = 0; t != 0 && k < R->n_rings; k++) {
+		int i0 = ring_index_of(R, k, x);
+		if (i0 < 0 || !ring_is_aromatic6(e, k))
+			continue;
+		for (int j = 0; j < 6; j++) {
+			int a = R->atoms[R->offsets[k] + j], dj = abs(j - i0);
+			int pos = (dj < 6 - dj ? dj : 6 - dj) + 1, n;
+			if (pos < 3)
+				continue;
+			const int *nb = eng_nbrs(e, a, &n);
+			for (int q = 0; q < n; q++) {
+				int y = nb[q];
+				if (seen[y] || ring_index_of(R, k, y) >= 0 || in_match(s, y) ||
+				    fused_with(e, k, a, y))
+					continue;
+				sigmas g;
+				group_sigmas(&g, e, m, y);
+				double sigma = pos == 3 ? g.m : g.p;
+				terms_add(tl, m, g.generic ? "generic_substituent" : "taft",
+					  row->p_rho_star, -t * sigma * att,
+					  "%d-%s on an aryl at %d bonds, sigma %.2f x %.2f x %.2f", pos,
+					  g.label, d, sigma, t, att);
+				if (g.generic) {
+					tl->n_generic++;
+					tl->extra_var += 0.16 * att * t;
+				}
+				mark_group(seen, e, y);
+			}
+		}
+		return; /* one ring: the one the walk entered */
+	}
+}
+
 /* What the walk does with a group it meets d bonds out (attenuation att = f^(d-1)). */
-typedef void (*walk_visit)(void *ctx, const sigmas *sg, int d, double att);
+typedef void (*walk_visit)(void *ctx, const sigmas *sg, int x, int d, double att,
+			   unsigned char *seen);
 
 /* Breadth-first walk from atom `from`: plain carbons, transparent groups and the site's own
- * atoms are passed through; any other group is visited once and ends its branch. With
+ * atoms are passed through; any other group is marked seen, then visited once, and ends its branch. With
  * `alkyl` set, a transparent group is visited too (its sigma*) and passed through. */
 static void walk_from(const eng_mol *e, const pred_model *m, const eng_site *s, int from,
 		      int alkyl, unsigned char *seen, int *queue, int *depth, walk_visit visit,
@@ -227,14 +272,14 @@ static void walk_from(const eng_mol *e, const pred_model *m, const eng_site *s, 
 		if (!transparent) {
 			sigmas sg;
 			group_sigmas(&sg, e, m, x);
-			visit(ctx, &sg, d, pow(f, d - 1));
 			mark_group(seen, e, x);
+			visit(ctx, &sg, x, d, pow(f, d - 1), seen);
 			continue;
 		}
 		if (alkyl && g >= 0 && e->group_root[x] == x && !in_match(s, x)) {
 			sigmas sg;
 			group_sigmas(&sg, e, m, x);
-			visit(ctx, &sg, d, pow(f, d - 1));
+			visit(ctx, &sg, x, d, pow(f, d - 1), seen);
 		}
 		if (d >= WALK_DEPTH)
 			continue;
@@ -253,10 +298,12 @@ typedef struct star_sum {
 	double star, generic_var;
 } star_sum;
 
-static void add_star(void *ctx, const sigmas *sg, int d, double att)
+static void add_star(void *ctx, const sigmas *sg, int x, int d, double att, unsigned char *seen)
 {
 	star_sum *acc = ctx;
+	(void)x;
 	(void)d;
+	(void)seen;
 	acc->star += sg->star * att;
 	if (sg->generic)
 		acc->generic_var += 0.16 * att;
@@ -338,11 +385,15 @@ static void ring_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 /* One Taft term per group the walk from the centre meets: -rho* sigma* f^(d-1). */
 typedef struct taft_ctx {
 	term_list *tl;
+	const eng_mol *e;
 	const pred_model *m;
+	const eng_site *s;
 	const frag_site *row;
 } taft_ctx;
 
-static void add_taft(void *ctx, const sigmas *sg, int d, double att)
+/* A group of the Taft walk: its sigma* term; an aryl group also passes on its own meta and
+ * para substituents (aryl_ring_effects). */
+static void add_taft(void *ctx, const sigmas *sg, int x, int d, double att, unsigned char *seen)
 {
 	taft_ctx *c = ctx;
 	terms_add(c->tl, c->m, sg->generic ? "generic_substituent" : "taft", c->row->p_rho_star,
@@ -352,6 +403,8 @@ static void add_taft(void *ctx, const sigmas *sg, int d, double att)
 		c->tl->n_generic++;
 		c->tl->extra_var += 0.16 * att;
 	}
+	if (c->e->atoms[x].aromatic && !sg->generic)
+		aryl_ring_effects(c->tl, c->e, c->m, c->s, x, d, seen);
 }
 
 static void walk_effects(term_list *tl, const eng_mol *e, const pred_model *m,
@@ -360,7 +413,7 @@ static void walk_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 	const frag_site *row = &m->sites[s->row];
 	if (m->params[row->p_rho_star].value == 0)
 		return;
-	taft_ctx c = {tl, m, row};
+	taft_ctx c = {tl, e, m, s, row};
 	walk_from(e, m, s, s->centre, 0, seen, queue, depth, add_taft, &c);
 }
 
@@ -372,17 +425,22 @@ static void correction_effects(term_list *tl, const eng_mol *e, const pred_worke
 		const frag_corr *c = &m->corrs[k];
 		if (!w->corr_ok[k * m->n_sites + (size_t)s->row])
 			continue;
-		/* a pattern of one (recursive) atom matches a site once; a chain pattern matches
-		 * once per distinct group, so two ortho chloro groups give two matches */
 		int hits = 0;
-		for (int i = e->corr_start[k]; i < e->corr_start[k + 1]; i++)
-			hits += e->corr_atom[i] == s->atom;
-		if (hits == 0)
+		for (int i = e->corr_start[k]; i < e->corr_start[k + 1]; i++) {
+			if (e->corr_atom[i] != s->atom)
+				continue;
+			hits++;
+			if (!c->per_match)
+				break;
+		}
+		if (!hits)
 			continue;
-		if (hits == 1)
-			terms_add(tl, m, c->term, c->p_value, 1.0, "%s", c->id);
-		else
+		/* a per-match row (one carboxymethyl arm of an ammonium, say) scales with the
+		 * count, and so does the design column the fit regresses on */
+		if (hits > 1)
 			terms_add(tl, m, c->term, c->p_value, hits, "%s x %d", c->id, hits);
+		else
+			terms_add(tl, m, c->term, c->p_value, 1.0, "%s", c->id);
 		tl->extra_var += hits * c->unc * c->unc;
 	}
 }

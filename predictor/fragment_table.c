@@ -265,6 +265,11 @@ static int parse_corr_row(pred_model *m, frag_corr *k, const tsv_table *t, const
 	    (rc = dup_field(&k->source, t, r, c[6], err)) ||
 	    (rc = check_smarts(t, r, k->smarts, err)))
 		return rc;
+	const char *count = c[7] >= 0 ? r->fields[c[7]] : "site";
+	if (strcmp(count, "site") && strcmp(count, "match"))
+		return tsv_fail(err, PRED_EDATA, t, r->line, "count '%s' is not site or match",
+				count);
+	k->per_match = !strcmp(count, "match");
 	char id[128];
 	snprintf(id, sizeof id, "corr.%s", k->id);
 	k->p_value = model_param_add(m, id, value, 0.5);
@@ -275,11 +280,17 @@ static int parse_corrs(pred_model *m, const tsv_table *t, pred_error *err)
 {
 	static const char *const names[] = {"id", "term", "sites", "smarts", "value", "unc",
 					    "source", NULL};
-	int c[7];
+	int c[8];
 	if (columns(c, t, names, err))
 		return PRED_EDATA;
-	if (t->n_cols != 7)
-		return tsv_fail(err, PRED_EDATA, t, 0, "expected 7 columns, got %zu", t->n_cols);
+	/* count is optional: a table without the column adds every row once per site. */
+	c[7] = -1;
+	for (size_t j = 0; j < t->n_cols; j++)
+		if (!strcmp(t->header[j], "count"))
+			c[7] = (int)j;
+	if (t->n_cols != (c[7] >= 0 ? 8u : 7u))
+		return tsv_fail(err, PRED_EDATA, t, 0, "expected %d columns, got %zu",
+				c[7] >= 0 ? 8 : 7, t->n_cols);
 	m->corrs = calloc(t->n_rows ? t->n_rows : 1, sizeof *m->corrs);
 	if (!m->corrs)
 		return PRED_ENOMEM;
@@ -357,6 +368,8 @@ static int add_globals(pred_model *m)
 	m->p_interaction_decay = model_param_add(m, "global.interaction_decay", 0.53, 0.1);
 	/* 0: only the shortest route between two charges; the value is a params.tsv row */
 	m->p_interaction_route = model_param_add(m, "global.interaction_route", 0.0, 0);
+	/* 0: ring substituents of an aryl met by the Taft walk count nothing; params.tsv row */
+	m->p_aryl_transmission = model_param_add(m, "global.aryl_transmission", 0.0, 0);
 	/* One factor on every site uncertainty, chosen on the train split so that the share of
 	 * residuals within one uncertainty is near 68% (not fitted by least squares). */
 	m->p_unc_scale = model_param_add(m, "global.unc_scale", 1.0, 0);
@@ -370,7 +383,7 @@ static int add_globals(pred_model *m)
 	 * -0.70 / -0.21, over sigma*(C6H5) 0.60: 0.23 / 0.32 (own arithmetic); fitted. */
 	m->p_amine_n = model_param_add(m, "global.amine_n_sigma", 0.25, 0.1);
 	return m->p_falloff < 0 || m->p_interaction < 0 || m->p_interaction_decay < 0 ||
-		       m->p_interaction_route < 0 ||
+		       m->p_interaction_route < 0 || m->p_aryl_transmission < 0 ||
 		       m->p_unc_scale < 0 || m->p_unc_size < 0 || m->p_unc_sites < 0 ||
 		       m->p_unc_floor < 0 || m->p_amine_n < 0
 		       ? PRED_ENOMEM

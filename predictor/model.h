@@ -48,6 +48,7 @@ typedef struct frag_corr {
 	char *smarts;
 	int p_value;
 	double unc;
+	int per_match; /* 1: the term counts every match at the site (count "match") */
 	char *source;
 } frag_corr;
 
@@ -79,6 +80,7 @@ struct pred_model {
 	int p_interaction;  /* charge-interaction scale (pKa units at distance 1) */
 	int p_interaction_decay; /* per-bond decay of the charge interaction */
 	int p_interaction_route; /* share of W per further route between two charges */
+	int p_aryl_transmission; /* share of a ring substituent's sigma on an aryl the walk meets */
 	int p_unc_scale;    /* calibration factor of every site uncertainty */
 	int p_unc_size;     /* widening per 10 heavy atoms beyond 8 (see site_unc_factor) */
 	int p_unc_sites;    /* widening per site beyond the first */

@@ -32,7 +32,7 @@ COLUMNS = {
                   "sigma_para", "rho_star", "unc", "source"],
     "substituents.tsv": ["id", "smarts", "sigma_m", "sigma_p", "sigma_p_minus", "sigma_p_plus",
                          "sigma_star", "sigma_i", "transparent", "source"],
-    "corrections.tsv": ["id", "term", "sites", "smarts", "value", "unc", "source"],
+    "corrections.tsv": ["id", "term", "sites", "smarts", "value", "unc", "count", "source"],
 }
 # handbook site_class -> site groups that answer it (kind "any": either kind)
 CLASS_GROUPS = {
@@ -163,6 +163,8 @@ def check_fields(tables, rep):
     for r in tables["corrections.tsv"]:
         number(rep, "corrections.tsv", r, "value")
         number(rep, "corrections.tsv", r, "unc")
+        if r["count"] not in ("site", "match"):
+            rep.fail(f"fragments/corrections.tsv:{r['line']}: count '{r['count']}'")
         for s in r["sites"].split(","):
             if s != "*" and s not in names:
                 rep.fail(f"fragments/corrections.tsv:{r['line']}: unknown site '{s}'")
@@ -304,7 +306,7 @@ def selftest():
             shutil.copy(os.path.join(FRAG, name), tmp)
         faults = {
             "sites.tsv": lambda t: t + t.splitlines()[-1] + "\n",        # duplicate id
-            "corrections.tsv": lambda t: t + "bad\tortho\t*\t[C;\t0\t0\tcommon practice\n",
+            "corrections.tsv": lambda t: t + "bad\tortho\t*\t[C;\t0\t0\tsite\tcommon practice\n",
             "substituents.tsv": lambda t: t + "short\t[Cl]\t0.1\n",      # column count
         }
         for name, inject in faults.items():

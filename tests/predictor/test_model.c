@@ -4,6 +4,7 @@
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
+#include <unistd.h>
 
 #include "harness.h"
 #include "model.h"
@@ -301,6 +302,93 @@ static void test_model__para_substituents_take_rho_para_where_the_row_has_one(vo
 	pred_model_free(m);
 }
 
+static int copy_file(const char *from, const char *to)
+{
+	FILE *in = fopen(from, "rb"), *out = in ? fopen(to, "wb") : NULL;
+	char buf[4096];
+	size_t n;
+	int rc = in && out ? 0 : -1;
+	while (!rc && (n = fread(buf, 1, sizeof buf, in)) > 0)
+		rc = fwrite(buf, 1, n, out) == n ? 0 : -1;
+	if (in)
+		fclose(in);
+	if (out && fclose(out))
+		rc = -1;
+	return rc;
+}
+
+/* Loads the fixture's sites and substituents with this corrections.tsv text, from a scratch
+ * directory under the working directory (removed again). */
+static int load_with_corrections(pred_model **m, const char *corrections, pred_error *err)
+{
+	const char *src = getenv("PKAD_SOURCE_DIR");
+	static const char *const tables[] = {"sites.tsv", "substituents.tsv"};
+	char dir[] = "fixture-corrections-XXXXXX", from[1024], to[1024];
+	*m = NULL;
+	if (!mkdtemp(dir))
+		return -1;
+	int rc = 0;
+	for (size_t i = 0; i < 2 && !rc; i++) {
+		snprintf(from, sizeof from, "%s/tests/predictor/fixture/%s", src ? src : ".",
+			 tables[i]);
+		snprintf(to, sizeof to, "%s/%s", dir, tables[i]);
+		rc = copy_file(from, to);
+	}
+	snprintf(to, sizeof to, "%s/corrections.tsv", dir);
+	FILE *f = rc ? NULL : fopen(to, "wb");
+	if (f) {
+		fputs(corrections, f);
+		fclose(f);
+		rc = pred_model_load(m, dir, err);
+	}
+	for (size_t i = 0; i < 3; i++) {
+		snprintf(to, sizeof to, "%s/%s", dir, i < 2 ? tables[i] : "corrections.tsv");
+		remove(to);
+	}
+	rmdir(dir);
+	return rc;
+}
+
+/* A corrections.tsv row with count "match" adds its value once per match of its pattern at
+ * the site (two alpha chlorines: twice), "site" once; any other count fails the load. The
+ * value -1.0 is a demonstration value, not a constant of any series. */
+static void test_model__per_match_correction_counts_its_matches(void)
+{
+	static const char *const hdr = "id\tterm\tsites\tsmarts\tvalue\tunc\tcount\tsource\n";
+	char text[512];
+	const char *counts[] = {"match", "site"};
+	for (int k = 0; k < 2; k++) {
+		snprintf(text, sizeof text,
+			 "%sarm\tdemo\tcarboxylic\t[OX2H1]C(=O)[CX4]Cl\t-1.0\t0\t%s"
+			 "\tdemonstration row\n",
+			 hdr, counts[k]);
+		pred_model *m = NULL;
+		pred_worker *w = NULL;
+		pred_error err = {0};
+		if (load_with_corrections(&m, text, &err) || pred_worker_new(&w, m, &err)) {
+			fprintf(stderr, "load: %s\n", err.msg);
+			CHECK(0);
+			pred_model_free(m);
+			return;
+		}
+		pred_result *r = NULL;
+		CHECK_INT_EQ(pred_predict(&r, w, "ClC(Cl)C(=O)O", PRED_FMT_SMILES, NULL, &err), 0);
+		CHECK_NEAR(site_term(r, "carboxylic_acid", "demo"), k == 0 ? -2.0 : -1.0, 1e-9);
+		pred_result_free(r);
+		CHECK_INT_EQ(pred_predict(&r, w, "ClCC(=O)O", PRED_FMT_SMILES, NULL, &err), 0);
+		CHECK_NEAR(site_term(r, "carboxylic_acid", "demo"), -1.0, 1e-9);
+		pred_result_free(r);
+		pred_worker_free(w);
+		pred_model_free(m);
+	}
+	snprintf(text, sizeof text, "%sarm\tdemo\tcarboxylic\t[OX2H1]C\t-1.0\t0\tall\tdemo\n", hdr);
+	pred_model *m = NULL;
+	pred_error err = {0};
+	CHECK_INT_EQ(load_with_corrections(&m, text, &err), PRED_EDATA);
+	CHECK(strstr(err.msg, "corrections.tsv:2: count 'all' is not site or match") != NULL);
+	pred_model_free(m);
+}
+
 int main(void)
 {
 	const char *src = getenv("PKAD_SOURCE_DIR");
@@ -317,6 +405,7 @@ int main(void)
 	RUN(test_model__hammett_uses_position_and_sigma_minus);
 	RUN(test_model__ring_nitrogen_counts_as_aza);
 	RUN(test_model__para_substituents_take_rho_para_where_the_row_has_one);
+	RUN(test_model__per_match_correction_counts_its_matches);
 	RUN(test_model__equivalent_sites_get_statistical_terms);
 	RUN(test_model__azinium_charge_is_shared_with_ortho_and_para_carbons);
 	RUN(test_model__hbond_pair_lowers_the_first_step_and_raises_the_second);
