@@ -8,8 +8,10 @@
 #include <string.h>
 #include <time.h>
 
+#include "canon_rank.h"
 #include "engine.h"
 #include "ionization.h"
+#include "smiles_write.h"
 
 enum { MAX_INPUT_BYTES = 100000 };
 
@@ -240,7 +242,7 @@ static int build_sites(pred_result *r, eng_mol *e, pred_worker *w, pred_error *e
 	for (size_t a = 0; a < e->nat && sym; a++)
 		sym[a] = (int)a;
 	if (!rc && e->shared_rows)
-		rc = obw_mol_symmetry(e->mol, sym, e->nat, NULL, 0);
+		rc = canon_rank(sym, NULL, NULL, e->mol, NULL);
 	for (size_t i = 0; i < n && !rc; i++)
 		eng_site_effects(&tls[i], e, w, &e->sites[i]);
 	if (!rc && drop_minor_chalcogen_bases(e, tls, w->m))
@@ -306,26 +308,30 @@ static int finish(pred_result *r, eng_mol *e, pred_worker *w, const pred_options
 		  pred_error *err)
 {
 	char msg[256] = "";
-	char *can = obw_mol_canonical(e->mol, w->ctx, msg, sizeof msg);
+	int *rank = NULL, *scls = NULL;
+	char *can = smiles_canonical(&rank, &scls, e->mol, w->ctx, msg, sizeof msg);
 	r->smiles = can ? res_strdup(r, can) : NULL;
 	free(can);
-	if (!r->smiles)
-		return fail(err, PRED_EINTERNAL, "canonical smiles: %s", msg);
 	size_t n = e->n_sites;
-	int *site_atoms = calloc(n + 1, sizeof *site_atoms);
-	double *extra = pair_extra(e, w->m);
+	int *site_atoms = r->smiles ? calloc(n + 1, sizeof *site_atoms) : NULL;
+	double *extra = site_atoms ? pair_extra(e, w->m) : NULL;
 	if (!site_atoms || !extra) {
 		free(site_atoms);
 		free(extra);
-		return PRED_ENOMEM;
+		free(rank);
+		free(scls);
+		return r->smiles ? PRED_ENOMEM
+				 : fail(err, PRED_EINTERNAL, "canonical smiles: %s", msg);
 	}
 	for (size_t i = 0; i < n; i++)
 		site_atoms[i] = e->sites[i].atom;
 	ion_input in = {e->mol, w->ctx, site_atoms, e->qdist, e->nat,
-			e->shared_rows ? e->symclass : NULL, extra};
+			e->shared_rows ? e->symclass : NULL, extra, rank, scls};
 	int rc = ionization_fill(r, w->m, &in, opt, err);
 	free(site_atoms);
 	free(extra);
+	free(rank);
+	free(scls);
 	if (!rc && r->n_sites == 0)
 		rc = res_note(r, "no ionizable site found");
 	return rc;

@@ -19,6 +19,7 @@
 #include <openbabel/phmodel.h>
 #include <openbabel/ring.h>
 #include <openbabel/stereo/cistrans.h>
+#include <openbabel/stereo/tetrahedral.h>
 #include <openbabel/typer.h>
 
 #include <algorithm>
@@ -197,6 +198,35 @@ static void reset_perception(OBMol &mol)
 	mol.SetClosureBondsPerceived(false);
 }
 
+/* Specified tetrahedral centres, neighbours as atom indices (-1: implicit or folded H). */
+static void build_tetra(obw_mol *m)
+{
+	OBMol &mol = m->mol;
+	m->tetra.clear();
+	m->n_cistrans = 0;
+	for (OBGenericData *d : mol.GetAllData(OBGenericDataType::StereoData)) {
+		OBStereoBase *st = static_cast<OBStereoBase *>(d);
+		if (st->GetType() == OBStereo::CisTrans &&
+		    static_cast<OBCisTransStereo *>(st)->GetConfig().specified)
+			m->n_cistrans++;
+		if (st->GetType() != OBStereo::Tetrahedral)
+			continue;
+		OBTetrahedralStereo::Config cfg = static_cast<OBTetrahedralStereo *>(st)->GetConfig(
+			OBStereo::Clockwise, OBStereo::ViewFrom);
+		OBAtom *centre = mol.GetAtomById(cfg.center);
+		if (!cfg.specified || cfg.refs.size() != 3 || !centre)
+			continue;
+		obw_tetra t;
+		t.centre = (int)centre->GetIdx() - 1;
+		unsigned long ids[4] = {cfg.from, cfg.refs[0], cfg.refs[1], cfg.refs[2]};
+		for (int k = 0; k < 4; k++) {
+			OBAtom *a = ids[k] == OBStereo::ImplicitRef ? nullptr : mol.GetAtomById(ids[k]);
+			t.nbr[k] = a ? (int)a->GetIdx() - 1 : -1;
+		}
+		m->tetra.push_back(t);
+	}
+}
+
 /* Views of the current graph; reset forgets the toolkit's perception first (after edits). */
 static void rebuild_cache(obw_mol *m, bool reset = true)
 {
@@ -219,6 +249,7 @@ static void rebuild_cache(obw_mol *m, bool reset = true)
 	}
 	build_rings(m);
 	smallest_ring_sizes(m);
+	build_tetra(m);
 }
 
 /* ---- hydrogens ------------------------------------------------------------------------ */
@@ -467,6 +498,26 @@ extern "C" size_t obw_mol_bonds(const obw_mol *m, const obw_bond **out)
 {
 	*out = m->bonds.data();
 	return m->bonds.size();
+}
+
+extern "C" size_t obw_mol_tetra(const obw_mol *m, const obw_tetra **out)
+{
+	*out = m->tetra.data();
+	return m->tetra.size();
+}
+
+extern "C" size_t obw_mol_cistrans_count(const obw_mol *m)
+{
+	return m->n_cistrans;
+}
+
+extern "C" const char *obw_element_symbol(int z)
+{
+	try {
+		return z > 0 && z < 119 ? OBElements::GetSymbol((unsigned int)z) : "";
+	} catch (...) {
+		return "";
+	}
 }
 
 extern "C" void obw_mol_rings(const obw_mol *m, obw_rings *out)
