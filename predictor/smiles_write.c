@@ -5,7 +5,6 @@
 #include "smiles_write.h"
 
 #include <ctype.h>
-#include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
 
@@ -137,15 +136,45 @@ static const char *chirality(sw *w, int a)
 	return odd ? "@" : "@@";
 }
 
+/* Decimal digits of v >= 0 after prefix (at most 12 bytes with the terminator). */
+static void put_number(sw *w, const char *prefix, int v)
+{
+	char s[16], *p = s + sizeof s;
+	*--p = 0;
+	do {
+		*--p = (char)('0' + v % 10);
+		v /= 10;
+	} while (v && p > s + 4);
+	size_t k = strlen(prefix);
+	p -= k;
+	memcpy(p, prefix, k);
+	put(w, p);
+}
+
+/* The lowercase symbols SMILES has for aromatic atoms (OpenSMILES). */
+static int aromatic_symbol(const char *name)
+{
+	static const char *const ok[] = {"b", "c", "n", "o", "p", "s", "se", "as", "te"};
+	for (size_t i = 0; i < sizeof ok / sizeof *ok; i++)
+		if (!strcmp(name, ok[i]))
+			return 1;
+	return 0;
+}
+
 static void put_atom(sw *w, int a)
 {
 	const obw_atom *x = &w->at[a];
 	const char *sym = obw_element_symbol(x->element), *chir = chirality(w, a);
-	char tok[48], name[4];
-	snprintf(name, sizeof name, "%s", sym);
+	char name[4] = {0};
+	size_t k = strlen(sym);
+	if (!k || k > 3) {
+		w->bad = 1;
+		return;
+	}
+	memcpy(name, sym, k);
 	if (x->aromatic)
 		name[0] = (char)tolower((unsigned char)name[0]);
-	if (!*sym || (x->aromatic && !strstr(" b c n o p s se as te ", name))) {
+	if (x->aromatic && !aromatic_symbol(name)) {
 		w->bad = 1;
 		return;
 	}
@@ -153,24 +182,24 @@ static void put_atom(sw *w, int a)
 		put(w, name);
 		return;
 	}
-	int n = snprintf(tok, sizeof tok, "[");
 	if (x->isotope)
-		n += snprintf(tok + n, sizeof tok - (size_t)n, "%d", x->isotope);
-	n += snprintf(tok + n, sizeof tok - (size_t)n, "%s%s", name, chir);
+		put_number(w, "[", x->isotope);
+	else
+		put(w, "[");
+	put(w, name);
+	put(w, chir);
 	if (x->hcount)
-		n += snprintf(tok + n, sizeof tok - (size_t)n, x->hcount > 1 ? "H%d" : "H", x->hcount);
-	if (x->charge)
-		n += snprintf(tok + n, sizeof tok - (size_t)n, x->charge > 1 || x->charge < -1
-			      ? "%+d" : x->charge > 0 ? "+" : "-", x->charge);
-	snprintf(tok + n, sizeof tok - (size_t)n, "]");
-	put(w, tok);
+		x->hcount > 1 ? put_number(w, "H", x->hcount) : put(w, "H");
+	if (x->charge) {
+		int q = x->charge < 0 ? -x->charge : x->charge;
+		q > 1 ? put_number(w, x->charge > 0 ? "+" : "-", q) : put(w, x->charge > 0 ? "+" : "-");
+	}
+	put(w, "]");
 }
 
 static void put_digit(sw *w, int d)
 {
-	char s[8];
-	snprintf(s, sizeof s, d < 10 ? "%d" : "%%%d", d);
-	put(w, s);
+	put_number(w, d < 10 ? "" : "%", d);
 }
 
 /* Ring-closure digits at a: closing ones first (their digits freed after), then opening
