@@ -164,21 +164,30 @@ static void put(jw *w, const char *s)
 	srv_buf_puts(&w->b, s);
 }
 
-/* cJSON's escapes: quote, backslash, \b \f \n \r \t, other control bytes as \u00xx. */
+/* s made valid UTF-8 as srv_utf8_clean does, with cJSON's escapes: quote, backslash,
+ * \b \f \n \r \t, other control bytes as \u00xx. No copy of a string that is valid. */
 static void put_string(srv_buf *b, const char *s)
 {
 	static const char hex[] = "0123456789abcdef";
-	char *clean = srv_utf8_clean(s, strlen(s));
-	const char *p = clean ? clean : "";
+	const unsigned char *p = (const unsigned char *)s, *run = p;
 	srv_buf_append(b, "\"", 1);
-	for (const char *run = p;; p++) {
-		unsigned char ch = (unsigned char)*p;
-		if (ch >= 32 && ch != '"' && ch != '\\')
+	for (;; p++) {
+		unsigned char ch = *p;
+		size_t len = ch >= 0x80 ? utf8_seq_len(p, strnlen((const char *)p, 4)) : 1;
+		if (ch >= 0x80 && len) {
+			p += len - 1;
 			continue;
-		srv_buf_append(b, run, (size_t)(p - run));
+		}
+		if (ch >= 32 && ch != '"' && ch != '\\' && ch < 0x80)
+			continue;
+		srv_buf_append(b, (const char *)run, (size_t)(p - run));
 		run = p + 1;
 		if (!ch)
 			break;
+		if (ch >= 0x80) {
+			srv_buf_append(b, "\xef\xbf\xbd", 3); /* U+FFFD for a bad byte */
+			continue;
+		}
 		const char *esc = ch == '"' ? "\\\"" : ch == '\\' ? "\\\\" : ch == '\b' ? "\\b"
 			: ch == '\f' ? "\\f" : ch == '\n' ? "\\n" : ch == '\r' ? "\\r"
 			: ch == '\t' ? "\\t" : NULL;
@@ -186,7 +195,6 @@ static void put_string(srv_buf *b, const char *s)
 		srv_buf_puts(b, esc ? esc : u);
 	}
 	srv_buf_append(b, "\"", 1);
-	free(clean);
 }
 
 /* The separator before a member or element, then its key (NULL inside an array). */
