@@ -237,12 +237,17 @@ static int build_sites(pred_result *r, eng_mol *e, pred_worker *w, pred_error *e
 	r->design = res_alloc(r, (n + 1) * sizeof *r->design);
 	r->micro = res_alloc(r, (n + 1) * sizeof *r->micro);
 	int rc = tls && micro && sym && r->sites && r->design && r->micro ? 0 : PRED_ENOMEM;
-	/* symmetry perception is costly: only sites of one row can be equivalent */
+	/* only sites of one row can be equivalent; the ranks of the same refinement serve
+	 * the canonical SMILES later */
 	e->shared_rows = rows_shared(e);
 	for (size_t a = 0; a < e->nat && sym; a++)
 		sym[a] = (int)a;
-	if (!rc && e->shared_rows)
-		rc = canon_rank(sym, NULL, NULL, e->mol, NULL);
+	if (!rc && e->shared_rows) {
+		e->rank = malloc((e->nat + 1) * sizeof *e->rank);
+		e->scls = malloc((e->nat + 1) * sizeof *e->scls);
+		rc = e->rank && e->scls ? canon_rank(sym, e->scls, e->rank, e->mol, NULL)
+				       : PRED_ENOMEM;
+	}
 	for (size_t i = 0; i < n && !rc; i++)
 		eng_site_effects(&tls[i], e, w, &e->sites[i]);
 	if (!rc && drop_minor_chalcogen_bases(e, tls, w->m))
@@ -308,8 +313,14 @@ static int finish(pred_result *r, eng_mol *e, pred_worker *w, const pred_options
 		  pred_error *err)
 {
 	char msg[256] = "";
-	int *rank = NULL, *scls = NULL;
-	char *can = smiles_canonical(&rank, &scls, e->mol, w->ctx, msg, sizeof msg);
+	int *rank = e->rank, *scls = e->scls;
+	char *can = rank ? smiles_write(e->mol, NULL, rank, scls) : NULL;
+	e->rank = e->scls = NULL;
+	if (!can) {
+		free(rank);
+		free(scls);
+		can = smiles_canonical(&rank, &scls, e->mol, w->ctx, msg, sizeof msg);
+	}
 	r->smiles = can ? res_strdup(r, can) : NULL;
 	free(can);
 	size_t n = e->n_sites;
