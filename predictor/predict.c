@@ -230,7 +230,13 @@ static int rows_shared(const eng_mol *e)
 static int build_sites(pred_result *r, eng_mol *e, pred_worker *w, pred_error *err)
 {
 	size_t n = e->n_sites;
-	term_list *tls = calloc(n + 1, sizeof *tls);
+	/* a term list is some 9 kB: set its counters, not every slot */
+	term_list *tls = malloc((n + 1) * sizeof *tls);
+	for (size_t i = 0; tls && i <= n; i++) {
+		tls[i].n = 0;
+		tls[i].extra_var = 0;
+		tls[i].n_generic = 0;
+	}
 	double *micro = calloc(n + 1, sizeof *micro);
 	int *sym = e->symclass = calloc(e->nat + 1, sizeof *sym);
 	r->sites = res_alloc(r, (n + 1) * sizeof *r->sites);
