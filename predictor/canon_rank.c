@@ -51,7 +51,7 @@ static void sort_atoms(const canon *c, int *idx, int *tmp, size_t n, canon_cmp c
 			return (x) < (y) ? -1 : 1;                                         \
 	} while (0)
 
-/* An atom the SMILES writer surely writes without brackets: uncharged, no isotope, not
+/* An atom a SMILES writer surely writes without brackets: uncharged, no isotope, not
  * aromatic, hydrogens filling the element's lowest usual valence (common practice: the
  * OpenSMILES organic subset). */
 static int bare(const obw_atom *x)
@@ -64,10 +64,10 @@ static int bare(const obw_atom *x)
 	return valence[x->element] && x->valence + x->hcount == valence[x->element];
 }
 
-/* Starting invariants. Tetrahedral centres come last, then atoms that may need brackets,
- * and low degrees first: the writer roots a molecule at its lowest-ranked atom, drops the
- * mark of a centre there and miscounts the hydrogens of a bracket atom there (Open Babel
- * 3.1.1). The eccentricity is the graph-theoretical distance of Open Babel's classes. */
+/* Starting invariants. Tetrahedral centres come last, then atoms that need brackets, and
+ * low degrees first, so that a SMILES written from the lowest rank starts at a plain
+ * terminal atom (CC(=O)O rather than C(C)(=O)O). The eccentricity is the graph-theoretical
+ * distance that Open Babel's symmetry classes start from, so that the classes agree. */
 static int cmp_invariant(const canon *c, int a, int b)
 {
 	const obw_atom *x = &c->at[a], *y = &c->at[b];
