@@ -18,11 +18,10 @@ typedef struct canon {
 	int *lab;    /* bond label of each nbr entry: 4 aromatic, else the bond order */
 	int *key;    /* per nbr entry: class of the neighbour * 8 + label, sorted per atom */
 	int *cls;    /* current class of each atom, dense from 0, ordered by invariant */
-	int *ecc;    /* eccentricity (most bonds to any atom of its fragment) */
 	int *par;    /* stereo parity of a tetrahedral centre under cls: 0 undefined, 1, 2 */
 	int *tet;    /* tetrahedral record of each atom, -1 none */
 	int *idx;    /* atoms in class order */
-	int *tmp;    /* merge buffer, then BFS queue */
+	int *tmp;    /* merge buffer */
 	const obw_tetra *tetra;
 } canon;
 
@@ -66,8 +65,9 @@ static int bare(const obw_atom *x)
 
 /* Starting invariants. Tetrahedral centres come last, then atoms that need brackets, and
  * low degrees first, so that a SMILES written from the lowest rank starts at a plain
- * terminal atom (CC(=O)O rather than C(C)(=O)O). The eccentricity is the graph-theoretical
- * distance that Open Babel's symmetry classes start from, so that the classes agree. */
+ * terminal atom (CC(=O)O rather than C(C)(=O)O). Open Babel's classes also start from the
+ * graph-theoretical distance; the refinement reaches the same classes without it
+ * (tests/predictor/test_canon_rank.c). */
 static int cmp_invariant(const canon *c, int a, int b)
 {
 	const obw_atom *x = &c->at[a], *y = &c->at[b];
@@ -81,7 +81,6 @@ static int cmp_invariant(const canon *c, int a, int b)
 	CMP_FIELD(x->aromatic, y->aromatic);
 	CMP_FIELD(x->in_ring, y->in_ring);
 	CMP_FIELD(x->radical, y->radical);
-	CMP_FIELD(c->ecc[a], c->ecc[b]);
 	return 0;
 }
 
@@ -173,29 +172,6 @@ static void break_tie(canon *c)
 			c->cls[a]++;
 }
 
-/* Eccentricity of every atom by breadth-first search (c->tmp as queue). */
-static void eccentricities(canon *c, int *dist)
-{
-	for (size_t s = 0; s < c->n; s++) {
-		for (size_t a = 0; a < c->n; a++)
-			dist[a] = -1;
-		size_t head = 0, tail = 0;
-		int far = 0;
-		dist[s] = 0;
-		c->tmp[tail++] = (int)s;
-		while (head < tail) {
-			int a = c->tmp[head++];
-			far = dist[a] > far ? dist[a] : far;
-			for (int k = c->start[a]; k < c->start[a + 1]; k++)
-				if (dist[c->nbr[k]] < 0) {
-					dist[c->nbr[k]] = dist[a] + 1;
-					c->tmp[tail++] = c->nbr[k];
-				}
-		}
-		c->ecc[s] = far;
-	}
-}
-
 /* CSR adjacency with bond labels from m's bonds. */
 static void build_graph(canon *c, const obw_bond *b, size_t nb)
 {
@@ -220,7 +196,7 @@ static void build_graph(canon *c, const obw_bond *b, size_t nb)
 static int *canon_alloc(canon *c, size_t nb)
 {
 	size_t n = c->n;
-	int *blk = calloc(7 * n + 6 * nb + 2, sizeof *blk);
+	int *blk = calloc(6 * n + 6 * nb + 2, sizeof *blk);
 	if (!blk)
 		return NULL;
 	c->start = blk;
@@ -228,8 +204,7 @@ static int *canon_alloc(canon *c, size_t nb)
 	c->lab = c->nbr + 2 * nb;
 	c->key = c->lab + 2 * nb;
 	c->cls = c->key + 2 * nb;
-	c->ecc = c->cls + n;
-	c->par = c->ecc + n;
+	c->par = c->cls + n;
 	c->tet = c->par + n;
 	c->idx = c->tet + n;
 	c->tmp = c->idx + n;
@@ -257,7 +232,6 @@ int canon_rank(int *cls, int *scls, int *rank, const obw_mol *m, const obw_atom 
 	}
 	for (size_t t = 0; t < nt; t++)
 		c.tet[c.tetra[t].centre] = (int)t;
-	eccentricities(&c, next);
 	sort_atoms(&c, c.idx, c.tmp, c.n, cmp_invariant);
 	size_t count = refine(&c, assign_classes(&c, cmp_invariant, c.cls), next, 0);
 	if (cls)
