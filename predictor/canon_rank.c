@@ -144,12 +144,21 @@ static void neighbour_keys(canon *c, int a)
 static size_t refine(canon *c, size_t count, int *next, int stereo)
 {
 	for (;;) {
-		for (size_t a = 0; a < c->n; a++) {
-			neighbour_keys(c, (int)a);
-			c->par[a] = stereo && c->tet[a] >= 0 ? tetra_parity(c, &c->tetra[c->tet[a]])
-							     : 0;
+		/* c->idx is in class order: only a shared class can split, so only its atoms
+		 * need keys and a sort (the same order as sorting all atoms) */
+		for (size_t i = 0, j; i < c->n; i = j) {
+			for (j = i + 1; j < c->n && c->cls[c->idx[j]] == c->cls[c->idx[i]]; j++)
+				;
+			for (size_t k = i; j - i > 1 && k < j; k++) {
+				int a = c->idx[k];
+				neighbour_keys(c, a);
+				c->par[a] = stereo && c->tet[a] >= 0
+						    ? tetra_parity(c, &c->tetra[c->tet[a]])
+						    : 0;
+			}
+			if (j - i > 1)
+				sort_atoms(c, c->idx + i, c->tmp, j - i, cmp_refined);
 		}
-		sort_atoms(c, c->idx, c->tmp, c->n, cmp_refined);
 		size_t now = assign_classes(c, cmp_refined, next);
 		memcpy(c->cls, next, c->n * sizeof *next);
 		if (now == count)
