@@ -315,36 +315,46 @@ static double *pair_extra(const eng_mol *e, const pred_model *m)
 	return x;
 }
 
-static int finish(pred_result *r, eng_mol *e, pred_worker *w, const pred_options *opt,
-		  pred_error *err)
+/* r->smiles from the ranks build_sites computed (taken over from e), else from a fresh
+ * ranking; *rank and *scls get the ranks used, NULL when Open Babel wrote the string. */
+static int canonical_smiles(pred_result *r, eng_mol *e, pred_worker *w, int **rank, int **scls,
+			    pred_error *err)
 {
 	char msg[256] = "";
-	int *rank = e->rank, *scls = e->scls;
-	char *can = rank ? smiles_write(e->mol, NULL, rank, scls) : NULL;
+	*rank = e->rank;
+	*scls = e->scls;
 	e->rank = e->scls = NULL;
+	char *can = *rank ? smiles_write(e->mol, NULL, *rank, *scls) : NULL;
 	if (!can) {
-		free(rank);
-		free(scls);
-		can = smiles_canonical(&rank, &scls, e->mol, w->ctx, msg, sizeof msg);
+		free(*rank);
+		free(*scls);
+		can = smiles_canonical(rank, scls, e->mol, w->ctx, msg, sizeof msg);
 	}
 	r->smiles = can ? res_strdup(r, can) : NULL;
 	free(can);
+	return r->smiles ? 0 : fail(err, PRED_EINTERNAL, "canonical smiles: %s", msg);
+}
+
+static int finish(pred_result *r, eng_mol *e, pred_worker *w, const pred_options *opt,
+		  pred_error *err)
+{
+	int *rank = NULL, *scls = NULL;
+	int rc = canonical_smiles(r, e, w, &rank, &scls, err);
 	size_t n = e->n_sites;
-	int *site_atoms = r->smiles ? calloc(n + 1, sizeof *site_atoms) : NULL;
+	int *site_atoms = rc ? NULL : calloc(n + 1, sizeof *site_atoms);
 	double *extra = site_atoms ? pair_extra(e, w->m) : NULL;
 	if (!site_atoms || !extra) {
 		free(site_atoms);
 		free(extra);
 		free(rank);
 		free(scls);
-		return r->smiles ? PRED_ENOMEM
-				 : fail(err, PRED_EINTERNAL, "canonical smiles: %s", msg);
+		return rc ? rc : PRED_ENOMEM;
 	}
 	for (size_t i = 0; i < n; i++)
 		site_atoms[i] = e->sites[i].atom;
 	ion_input in = {e->mol, w->ctx, site_atoms, e->qdist, e->nat,
 			e->shared_rows ? e->symclass : NULL, extra, rank, scls};
-	int rc = ionization_fill(r, w->m, &in, opt, err);
+	rc = ionization_fill(r, w->m, &in, opt, err);
 	free(site_atoms);
 	free(extra);
 	free(rank);
