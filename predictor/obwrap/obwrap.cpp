@@ -738,28 +738,36 @@ extern "C" int obw_pattern_match(int **out, const obw_pattern *p, obw_mol *m)
 		/* unique by (first atom, atom set): a symmetric pattern such as the two OH of
 		 * [OX2H1]C(=O)[OX2H1] gives one match per first atom, where unique-by-set
 		 * matching would give one match in all */
-		std::vector<std::vector<int>> all, ml;
+		std::vector<std::vector<int>> all;
 		if (!p->pat.Match(m->mol, all, OBSmartsPattern::All) || all.empty())
 			return 0;
-		std::vector<std::vector<int>> seen;
-		for (const std::vector<int> &mt : all) {
-			std::vector<int> key(mt.begin() + 1, mt.end());
-			std::sort(key.begin(), key.end());
-			key.insert(key.begin(), mt[0]);
-			if (std::find(seen.begin(), seen.end(), key) != seen.end())
-				continue;
-			seen.push_back(key);
-			ml.push_back(mt);
-		}
 		size_t na = p->pat.NumAtoms();
-		int *v = static_cast<int *>(malloc(ml.size() * na * sizeof(int)));
+		std::vector<int> keys, key(na); /* keys of the kept matches, na ints each */
+		std::vector<size_t> kept;
+		keys.reserve(all.size() * na);
+		kept.reserve(all.size());
+		for (size_t i = 0; i < all.size(); i++) {
+			const std::vector<int> &mt = all[i];
+			if (mt.size() != na)
+				return E_INTERNAL;
+			std::copy(mt.begin(), mt.end(), key.begin());
+			std::sort(key.begin() + 1, key.end());
+			bool seen = false;
+			for (size_t k = 0; k < kept.size() && !seen; k++)
+				seen = std::equal(key.begin(), key.end(), keys.begin() + (long)(k * na));
+			if (seen)
+				continue;
+			keys.insert(keys.end(), key.begin(), key.end());
+			kept.push_back(i);
+		}
+		int *v = static_cast<int *>(malloc(kept.size() * na * sizeof(int)));
 		if (!v)
 			return E_NOMEM;
-		for (size_t k = 0; k < ml.size(); k++)
+		for (size_t k = 0; k < kept.size(); k++)
 			for (size_t j = 0; j < na; j++)
-				v[k * na + j] = ml[k][j] - 1;
+				v[k * na + j] = all[kept[k]][j] - 1;
 		*out = v;
-		return (int)ml.size();
+		return (int)kept.size();
 	} catch (const std::bad_alloc &) {
 		return E_NOMEM;
 	} catch (...) {
