@@ -6,6 +6,7 @@
 #include <string.h>
 
 #include "base_table.h"
+#include "smiles_write.h"
 #include "deprotonate.h"
 
 static int fail(pred_error *err, int code, const char *msg)
@@ -118,7 +119,7 @@ static char *protonated(obw_mol *mol, obw_ctx *ctx, int a, char *msg, size_t msg
 	if (!rc)
 		rc = obw_mol_refresh(mol, msg, msgn);
 	if (!rc)
-		out = obw_mol_canonical(mol, ctx, msg, msgn);
+		out = smiles_canonical(NULL, NULL, mol, ctx, msg, msgn);
 	free(comp);
 	free(keep);
 	return out;

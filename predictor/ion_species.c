@@ -4,6 +4,8 @@
 #include <stdlib.h>
 #include <string.h>
 
+#include "canon_rank.h"
+#include "smiles_write.h"
 #include "ion_states.h"
 
 /* States below this fraction are not written out (symmetry-equivalent states are merged by
@@ -40,6 +42,34 @@ static int site_on(const ion_work *w, size_t s, size_t i, const unsigned char *i
 	return 0;
 }
 
+/* The species' SMILES by pkad's writer: atom[k] changed by dq[k] in charge and hydrogen
+ * count, in the molecule's order, or in the species' own canonical order when equivalent
+ * sites make several states one species. malloc'd; NULL when it cannot be written so. */
+static char *species_written(const ion_input *in, const int *atom, const int *dq, size_t n)
+{
+	const obw_atom *at;
+	size_t nat = obw_mol_atoms(in->mol, &at);
+	obw_atom *edited = malloc((nat + 1) * sizeof *edited);
+	int *rank = in->symclass ? malloc((nat + 1) * sizeof *rank) : NULL;
+	int *scls = in->symclass ? malloc((nat + 1) * sizeof *scls) : NULL;
+	char *s = NULL;
+	if (edited && (!in->symclass || (rank && scls))) {
+		memcpy(edited, at, nat * sizeof *edited);
+		for (size_t k = 0; k < n; k++) {
+			edited[atom[k]].charge += dq[k];
+			edited[atom[k]].hcount += dq[k];
+		}
+		if (!in->symclass)
+			s = smiles_write(in->mol, edited, in->rank, in->scls);
+		else if (canon_rank(NULL, scls, rank, in->mol, edited) == 0)
+			s = smiles_write(in->mol, edited, rank, scls);
+	}
+	free(edited);
+	free(rank);
+	free(scls);
+	return s;
+}
+
 static char *species_smiles(pred_result *r, const ion_work *w, const ion_input *in, size_t s,
                             const unsigned char *is_extra, pred_error *err)
 {
@@ -56,8 +86,10 @@ static char *species_smiles(pred_result *r, const ion_work *w, const ion_input *
 	}
 	/* with equivalent sites the representative is written canonically, so that the name of
 	 * the species does not depend on which equivalent atom its state happens to use */
-	if (!rc && !(smi = obw_mol_smiles_edited(in->mol, in->ctx, atom, dq, n,
-						 in->symclass != NULL, msg, msgn)))
+	if (!rc && in->rank)
+		smi = species_written(in, atom, dq, n);
+	if (!rc && !smi && !(smi = obw_mol_smiles_edited(in->mol, in->ctx, atom, dq, n,
+							 in->symclass != NULL, msg, msgn)))
 		rc = PRED_EINTERNAL;
 	if (!rc && !(out = res_strdup(r, smi)))
 		rc = PRED_ENOMEM;

@@ -31,6 +31,11 @@ typedef struct ion_input {
 	 * hydrogen bonds of two acids, pair_hbond.c; routes beyond the shortest, charge_dist.c),
 	 * or NULL */
 	const double *pair_extra;
+	/* canonical ranks and stereo classes of mol's atoms (canon_rank) when pkad's own
+	 * writer wrote its SMILES (smiles_write.c), else NULL: species are then written the
+	 * same way, in this order or canonically per species */
+	const int *rank;
+	const int *scls;
 } ion_input;
 
 /* Fills r->macro, r->ph, r->charge, r->species, r->has_pi/pi, r->approximate and, when

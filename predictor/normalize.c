@@ -7,6 +7,8 @@
 #include <stdlib.h>
 #include <string.h>
 
+#include "smiles_write.h"
+
 void norm_report_init(norm_report *rep)
 {
 	memset(rep, 0, sizeof *rep);
@@ -69,7 +71,7 @@ static char *fragment_smiles(const obw_mol *m, obw_ctx *c, const int *comp, size
 		for (size_t i = 0; i < nat; i++)
 			keep[i] = comp[i] == k;
 		if (obw_mol_keep_atoms(copy, keep, nat, NULL, 0) == 0)
-			s = obw_mol_canonical(copy, c, NULL, 0);
+			s = smiles_canonical(NULL, NULL, copy, c, NULL, 0);
 	}
 	obw_mol_free(copy);
 	free(keep);

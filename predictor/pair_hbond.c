@@ -37,8 +37,10 @@ static int pair_param(const eng_mol *e, const pred_worker *w, size_t i, size_t j
 	int d = e->dist[i * e->nat + (size_t)e->sites[j].atom];
 	if (d <= 0 || d > PAIR_MAX_BONDS)
 		return -1;
+	/* rows without a match in this molecule first: most are, and the name test costs more */
 	for (size_t k = 0; k < w->m->n_corrs; k++)
-		if (!strcmp(w->m->corrs[k].term, PAIR_TERM) && site_takes(e, w, k, i) &&
+		if (e->corr_start[k] < e->corr_start[k + 1] &&
+		    !strcmp(w->m->corrs[k].term, PAIR_TERM) && site_takes(e, w, k, i) &&
 		    site_takes(e, w, k, j))
 			return w->m->corrs[k].p_value;
 	return -1;

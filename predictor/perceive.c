@@ -266,6 +266,8 @@ void eng_free(eng_mol *e)
 	free(e->qroute);
 	free(e->corr_start);
 	free(e->symclass);
+	free(e->rank);
+	free(e->scls);
 	free(e->corr_atom);
 	free(e->pair_param);
 	free(e->adj);

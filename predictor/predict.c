@@ -8,8 +8,10 @@
 #include <string.h>
 #include <time.h>
 
+#include "canon_rank.h"
 #include "engine.h"
 #include "ionization.h"
+#include "smiles_write.h"
 
 enum { MAX_INPUT_BYTES = 100000 };
 
@@ -228,19 +230,30 @@ static int rows_shared(const eng_mol *e)
 static int build_sites(pred_result *r, eng_mol *e, pred_worker *w, pred_error *err)
 {
 	size_t n = e->n_sites;
-	term_list *tls = calloc(n + 1, sizeof *tls);
+	/* a term list is some 9 kB: set its counters, not every slot */
+	term_list *tls = malloc((n + 1) * sizeof *tls);
+	for (size_t i = 0; tls && i <= n; i++) {
+		tls[i].n = 0;
+		tls[i].extra_var = 0;
+		tls[i].n_generic = 0;
+	}
 	double *micro = calloc(n + 1, sizeof *micro);
 	int *sym = e->symclass = calloc(e->nat + 1, sizeof *sym);
 	r->sites = res_alloc(r, (n + 1) * sizeof *r->sites);
 	r->design = res_alloc(r, (n + 1) * sizeof *r->design);
 	r->micro = res_alloc(r, (n + 1) * sizeof *r->micro);
 	int rc = tls && micro && sym && r->sites && r->design && r->micro ? 0 : PRED_ENOMEM;
-	/* symmetry perception is costly: only sites of one row can be equivalent */
+	/* only sites of one row can be equivalent; the ranks of the same refinement serve
+	 * the canonical SMILES later */
 	e->shared_rows = rows_shared(e);
 	for (size_t a = 0; a < e->nat && sym; a++)
 		sym[a] = (int)a;
-	if (!rc && e->shared_rows)
-		rc = obw_mol_symmetry(e->mol, sym, e->nat, NULL, 0);
+	if (!rc && e->shared_rows) {
+		e->rank = malloc((e->nat + 1) * sizeof *e->rank);
+		e->scls = malloc((e->nat + 1) * sizeof *e->scls);
+		rc = e->rank && e->scls ? canon_rank(sym, e->scls, e->rank, e->mol, NULL)
+				       : PRED_ENOMEM;
+	}
 	for (size_t i = 0; i < n && !rc; i++)
 		eng_site_effects(&tls[i], e, w, &e->sites[i]);
 	if (!rc && drop_minor_chalcogen_bases(e, tls, w->m))
@@ -302,30 +315,50 @@ static double *pair_extra(const eng_mol *e, const pred_model *m)
 	return x;
 }
 
+/* r->smiles from the ranks build_sites computed (taken over from e), else from a fresh
+ * ranking; *rank and *scls get the ranks used, NULL when Open Babel wrote the string. */
+static int canonical_smiles(pred_result *r, eng_mol *e, pred_worker *w, int **rank, int **scls,
+			    pred_error *err)
+{
+	char msg[256] = "";
+	*rank = e->rank;
+	*scls = e->scls;
+	e->rank = e->scls = NULL;
+	char *can = *rank ? smiles_write(e->mol, NULL, *rank, *scls) : NULL;
+	if (!can) {
+		free(*rank);
+		free(*scls);
+		can = smiles_canonical(rank, scls, e->mol, w->ctx, msg, sizeof msg);
+	}
+	r->smiles = can ? res_strdup(r, can) : NULL;
+	free(can);
+	return r->smiles ? 0 : fail(err, PRED_EINTERNAL, "canonical smiles: %s", msg);
+}
+
 static int finish(pred_result *r, eng_mol *e, pred_worker *w, const pred_options *opt,
 		  pred_error *err)
 {
-	char msg[256] = "";
-	char *can = obw_mol_canonical(e->mol, w->ctx, msg, sizeof msg);
-	r->smiles = can ? res_strdup(r, can) : NULL;
-	free(can);
-	if (!r->smiles)
-		return fail(err, PRED_EINTERNAL, "canonical smiles: %s", msg);
+	int *rank = NULL, *scls = NULL;
+	int rc = canonical_smiles(r, e, w, &rank, &scls, err);
 	size_t n = e->n_sites;
-	int *site_atoms = calloc(n + 1, sizeof *site_atoms);
-	double *extra = pair_extra(e, w->m);
+	int *site_atoms = rc ? NULL : calloc(n + 1, sizeof *site_atoms);
+	double *extra = site_atoms ? pair_extra(e, w->m) : NULL;
 	if (!site_atoms || !extra) {
 		free(site_atoms);
 		free(extra);
-		return PRED_ENOMEM;
+		free(rank);
+		free(scls);
+		return rc ? rc : PRED_ENOMEM;
 	}
 	for (size_t i = 0; i < n; i++)
 		site_atoms[i] = e->sites[i].atom;
 	ion_input in = {e->mol, w->ctx, site_atoms, e->qdist, e->nat,
-			e->shared_rows ? e->symclass : NULL, extra};
-	int rc = ionization_fill(r, w->m, &in, opt, err);
+			e->shared_rows ? e->symclass : NULL, extra, rank, scls};
+	rc = ionization_fill(r, w->m, &in, opt, err);
 	free(site_atoms);
 	free(extra);
+	free(rank);
+	free(scls);
 	if (!rc && r->n_sites == 0)
 		rc = res_note(r, "no ionizable site found");
 	return rc;

@@ -460,6 +460,84 @@ static void atom_kinds(smarts_screen *s)
 		}
 }
 
+/* Cost of starting the search at a pattern atom: the kinds of atom it may take, a carbon
+ * counting as many (most atoms of a molecule are carbons, and every one of them would be
+ * tried as a start). */
+static int root_cost(const sx_patom *pa)
+{
+	int bits = 0;
+	for (uint32_t k = pa->kinds; k; k &= k - 1)
+		bits++;
+	return bits + (pa->kinds & (sx_kind(6, 0) | sx_kind(6, 1)) ? 16 : 0);
+}
+
+/* Renumbers the main pattern breadth-first from its cheapest start atom: tree bonds from
+ * the walk, every other bond a ring closure. Whether a pattern may match does not depend on
+ * the atom it is searched from; a recursive part keeps its first atom, which is the atom it
+ * is about. Returns nonzero when out of memory (the pattern is then left as it was). */
+static int reroot(sx_pat *pt)
+{
+	int n = pt->n_atoms, ne = n - 1 + pt->n_closures, best = 0, cnt = 1, nc = 0;
+	for (int i = 1; i < n; i++)
+		best = root_cost(&pt->atoms[i]) < root_cost(&pt->atoms[best]) ? i : best;
+	if (best == 0)
+		return 0;
+	int *ea = malloc((size_t)(3 * ne + 3 * n + 1) * sizeof *ea);
+	sx_patom *atoms = malloc((size_t)n * sizeof *atoms);
+	sx_closure *cl = malloc((size_t)(ne + 1) * sizeof *cl);
+	if (!ea || !atoms || !cl) {
+		free(ea);
+		free(atoms);
+		free(cl);
+		return 1;
+	}
+	int *eb = ea + ne, *tree = eb + ne, *pos = tree + ne, *order = pos + n, *from = order + n;
+	for (int i = 1; i < n; i++)
+		ea[i - 1] = i, eb[i - 1] = pt->atoms[i].parent;
+	for (int c = 0; c < pt->n_closures; c++)
+		ea[n - 1 + c] = pt->closures[c].a, eb[n - 1 + c] = pt->closures[c].b;
+	for (int i = 0; i < n; i++)
+		pos[i] = -1;
+	memset(tree, 0, (size_t)ne * sizeof *tree);
+	pos[best] = 0;
+	order[0] = best;
+	for (int head = 0; head < cnt; head++)
+		for (int e = 0; e < ne; e++) {
+			int u = order[head], v = ea[e] == u ? eb[e] : eb[e] == u ? ea[e] : -1;
+			if (v < 0 || tree[e] || pos[v] >= 0)
+				continue;
+			tree[e] = 1;
+			pos[v] = cnt;
+			order[cnt++] = v;
+			from[v] = e;
+		}
+	for (int k = 0; k < n && cnt == n; k++) {
+		int old = order[k], e = k ? from[old] : -1;
+		int bond = e < 0 ? -1 : e < n - 1 ? pt->atoms[ea[e]].bond : pt->closures[e - n + 1].bond;
+		atoms[k] = (sx_patom){pt->atoms[old].kinds, pt->atoms[old].expr,
+				      e < 0 ? -1 : pos[ea[e] == old ? eb[e] : ea[e]], bond};
+	}
+	for (int e = 0; e < ne && cnt == n; e++) {
+		int a = pos[ea[e]], b = pos[eb[e]];
+		int bond = e < n - 1 ? pt->atoms[ea[e]].bond : pt->closures[e - n + 1].bond;
+		if (!tree[e])
+			cl[nc++] = (sx_closure){a < b ? a : b, a < b ? b : a, bond};
+	}
+	if (cnt == n) {
+		free(pt->atoms);
+		free(pt->closures);
+		pt->atoms = atoms;
+		pt->closures = cl;
+		pt->n_closures = nc;
+		atoms = NULL;
+		cl = NULL;
+	}
+	free(ea);
+	free(atoms);
+	free(cl);
+	return 0;
+}
+
 smarts_screen *smarts_screen_new(const char *smarts)
 {
 	smarts_screen *s = calloc(1, sizeof *s);
@@ -467,8 +545,10 @@ smarts_screen *smarts_screen_new(const char *smarts)
 		return s ? (free(s), NULL) : NULL;
 	parser ps = {s, smarts, smarts + strlen(smarts), 0};
 	parse_pattern(&ps, ps.p, ps.end);
-	if (!ps.bad)
+	if (!ps.bad) {
 		atom_kinds(s);
+		ps.bad = reroot(&s->pats[0]);
+	}
 	int atoms = 0;
 	for (int p = 0; p < s->n_pats; p++)
 		atoms += s->pats[p].n_atoms;

@@ -18,22 +18,53 @@ static double round_to(double x, int decimals)
 	return r == 0.0 ? 0.0 : r;
 }
 
-/* A finite number written once with the given decimals, trailing zeros dropped: cJSON's
- * own printing (%1.15g, then a read-back check) is a sizeable share of a prediction. */
+/* A finite number with the given decimals, trailing zeros dropped, into buf (64 bytes):
+ * cJSON's own printing (%1.15g, then a read-back check) and even snprintf are a sizeable
+ * share of a prediction. The digits of round(x * 10^decimals) are what "%.*f" prints for
+ * the rounded value; snprintf stays for magnitudes where a double holds no such integer. */
+static void format_fixed(char *buf, double x, int decimals)
+{
+	double scaled = round(x * pow(10.0, decimals));
+	if (!(fabs(scaled) < 1e15)) {
+		int n = snprintf(buf, 64, "%.*f", decimals, round_to(x, decimals));
+		if (n > 0 && n < 64 && strchr(buf, '.')) {
+			while (buf[n - 1] == '0')
+				buf[--n] = '\0';
+			if (buf[n - 1] == '.')
+				buf[--n] = '\0';
+		}
+		if (!strcmp(buf, "-0"))
+			strcpy(buf, "0");
+		return;
+	}
+	long long k = (long long)scaled;
+	unsigned long long u = k < 0 ? (unsigned long long)-k : (unsigned long long)k;
+	char digits[32];
+	int nd = 0, o = 0, frac = 0;
+	do {
+		digits[nd++] = (char)('0' + u % 10);
+		u /= 10;
+	} while (u || nd <= decimals);
+	for (int i = 0; i < decimals; i++)
+		if (digits[i] != '0') {
+			frac = decimals - i; /* fraction digits kept */
+			break;
+		}
+	if (k < 0)
+		buf[o++] = '-';
+	for (int i = nd - 1; i >= decimals; i--)
+		buf[o++] = digits[i];
+	if (frac)
+		buf[o++] = '.';
+	for (int i = decimals - 1; i >= decimals - frac; i--)
+		buf[o++] = digits[i];
+	buf[o] = '\0';
+}
+
 static cJSON *fixed_number(double x, int decimals)
 {
 	char buf[64];
-	int n = snprintf(buf, sizeof buf, "%.*f", decimals, round_to(x, decimals));
-	if (n <= 0 || (size_t)n >= sizeof buf)
-		return cJSON_CreateNumber(x);
-	if (strchr(buf, '.')) {
-		while (n > 0 && buf[n - 1] == '0')
-			buf[--n] = '\0';
-		if (n > 0 && buf[n - 1] == '.')
-			buf[--n] = '\0';
-	}
-	if (!strcmp(buf, "-0"))
-		strcpy(buf, "0");
+	format_fixed(buf, x, decimals);
 	return cJSON_CreateRaw(buf);
 }
 
@@ -53,15 +84,6 @@ cJSON *srv_json_add_number(cJSON *obj, const char *name, double x, int decimals,
 		cJSON_AddItemToArray(warnings, cJSON_CreateString(msg));
 	}
 	return cJSON_AddNullToObject(obj, name);
-}
-
-/* Number for an array element (arrays have no key to name in a warning). */
-static cJSON *array_number(double x, int decimals, int *bad)
-{
-	if (isfinite(x))
-		return fixed_number(x, decimals);
-	*bad = 1;
-	return cJSON_CreateNull();
 }
 
 /* Length of the valid UTF-8 sequence at s (at most n bytes), or 0 when invalid. */
@@ -127,151 +149,260 @@ static void add_clean_string(cJSON *obj, const char *name, const char *s)
 	free(clean);
 }
 
-static cJSON *terms_json(const pred_site *s, cJSON *warnings)
+/* ---- the result, written straight to text ------------------------------------------------
+ * Byte for byte what cJSON_PrintUnformatted gives for the same object (string escapes, "%d"
+ * integers), without building the tree: that was a tenth of a prediction. */
+
+typedef struct jw {
+	srv_buf b;
+	srv_buf warn;  /* the encoder's own warnings, as JSON strings with leading commas */
+	int first;     /* no member written yet in the innermost object or array */
+} jw;
+
+static void put(jw *w, const char *s)
 {
-	cJSON *arr = cJSON_CreateArray();
-	for (size_t i = 0; arr && i < s->n_terms; i++) {
+	srv_buf_puts(&w->b, s);
+}
+
+/* s made valid UTF-8 as srv_utf8_clean does, with cJSON's escapes: quote, backslash,
+ * \b \f \n \r \t, other control bytes as \u00xx. No copy of a string that is valid. */
+static void put_string(srv_buf *b, const char *s)
+{
+	static const char hex[] = "0123456789abcdef";
+	const unsigned char *p = (const unsigned char *)s, *run = p;
+	srv_buf_append(b, "\"", 1);
+	for (;; p++) {
+		unsigned char ch = *p;
+		size_t len = ch >= 0x80 ? utf8_seq_len(p, strnlen((const char *)p, 4)) : 1;
+		if (ch >= 0x80 && len) {
+			p += len - 1;
+			continue;
+		}
+		if (ch >= 32 && ch != '"' && ch != '\\' && ch < 0x80)
+			continue;
+		srv_buf_append(b, (const char *)run, (size_t)(p - run));
+		run = p + 1;
+		if (!ch)
+			break;
+		if (ch >= 0x80) {
+			srv_buf_append(b, "\xef\xbf\xbd", 3); /* U+FFFD for a bad byte */
+			continue;
+		}
+		const char *esc = ch == '"' ? "\\\"" : ch == '\\' ? "\\\\" : ch == '\b' ? "\\b"
+			: ch == '\f' ? "\\f" : ch == '\n' ? "\\n" : ch == '\r' ? "\\r"
+			: ch == '\t' ? "\\t" : NULL;
+		char u[7] = {'\\', 'u', '0', '0', hex[ch >> 4], hex[ch & 15], 0};
+		srv_buf_puts(b, esc ? esc : u);
+	}
+	srv_buf_append(b, "\"", 1);
+}
+
+/* The separator before a member or element, then its key (NULL inside an array). */
+static void put_key(jw *w, const char *key)
+{
+	if (!w->first)
+		put(w, ",");
+	w->first = 0;
+	if (key) {
+		put_string(&w->b, key);
+		put(w, ":");
+	}
+}
+
+static void open_with(jw *w, const char *key, const char *bracket)
+{
+	put_key(w, key);
+	put(w, bracket);
+	w->first = 1;
+}
+
+static void close_with(jw *w, const char *bracket)
+{
+	put(w, bracket);
+	w->first = 0;
+}
+
+static void put_str_member(jw *w, const char *key, const char *s)
+{
+	put_key(w, key);
+	put_string(&w->b, s ? s : "");
+}
+
+static void put_int_member(jw *w, const char *key, int v)
+{
+	char s[16];
+	snprintf(s, sizeof s, "%d", v);
+	put_key(w, key);
+	put(w, s);
+}
+
+/* An encoder warning, in order of discovery; they follow the result's own. */
+static void warn(jw *w, const char *msg)
+{
+	srv_buf_append(&w->warn, ",", 1);
+	put_string(&w->warn, msg);
+}
+
+static void put_fixed(jw *w, double x, int decimals)
+{
+	char buf[64];
+	format_fixed(buf, x, decimals);
+	put(w, buf);
+}
+
+/* A keyed number; non-finite: null and a warning naming the key. */
+static void put_number(jw *w, const char *key, double x, int decimals)
+{
+	put_key(w, key);
+	if (isfinite(x)) {
+		put_fixed(w, x, decimals);
+		return;
+	}
+	char msg[160];
+	snprintf(msg, sizeof msg, "non-finite value of '%s' encoded as null", key);
+	put(w, "null");
+	warn(w, msg);
+}
+
+/* An array of numbers; returns whether one was non-finite (null). */
+static int put_numbers(jw *w, const char *key, const double *x, size_t n, int decimals)
+{
+	int bad = 0;
+	open_with(w, key, "[");
+	for (size_t i = 0; i < n; i++) {
+		put_key(w, NULL);
+		if (isfinite(x[i]))
+			put_fixed(w, x[i], decimals);
+		else
+			put(w, "null"), bad = 1;
+	}
+	close_with(w, "]");
+	return bad;
+}
+
+static void put_site(jw *w, const pred_site *s)
+{
+	open_with(w, NULL, "{");
+	put_int_member(w, "atom", s->atom);
+	put_str_member(w, "element", s->element ? s->element : "");
+	put_str_member(w, "group", s->group ? s->group : "");
+	put_str_member(w, "kind", s->kind == PRED_BASE ? "base" : "acid");
+	put_number(w, "pka", s->pka, DP_PKA);
+	put_number(w, "uncertainty", s->uncertainty, DP_PKA);
+	put_str_member(w, "confidence", s->confidence ? s->confidence : "low");
+	open_with(w, "terms", "[");
+	for (size_t i = 0; i < s->n_terms; i++) {
 		const pred_term *t = &s->terms[i];
-		cJSON *o = cJSON_CreateObject();
-		cJSON_AddItemToArray(arr, o);
-		add_clean_string(o, "term", t->term ? t->term : "");
-		add_clean_string(o, "detail", t->detail ? t->detail : "");
-		srv_json_add_number(o, "value", t->value, DP_PKA, warnings);
+		open_with(w, NULL, "{");
+		put_str_member(w, "term", t->term ? t->term : "");
+		put_str_member(w, "detail", t->detail ? t->detail : "");
+		put_number(w, "value", t->value, DP_PKA);
+		close_with(w, "}");
 	}
-	return arr;
+	close_with(w, "]");
+	close_with(w, "}");
 }
 
-static cJSON *site_json(const pred_site *s, cJSON *warnings)
+static void put_macro(jw *w, const pred_result *r)
 {
-	cJSON *o = cJSON_CreateObject();
-	if (!o)
-		return NULL;
-	cJSON_AddNumberToObject(o, "atom", s->atom);
-	add_clean_string(o, "element", s->element ? s->element : "");
-	add_clean_string(o, "group", s->group ? s->group : "");
-	cJSON_AddStringToObject(o, "kind", s->kind == PRED_BASE ? "base" : "acid");
-	srv_json_add_number(o, "pka", s->pka, DP_PKA, warnings);
-	srv_json_add_number(o, "uncertainty", s->uncertainty, DP_PKA, warnings);
-	add_clean_string(o, "confidence", s->confidence ? s->confidence : "low");
-	cJSON_AddItemToObject(o, "terms", terms_json(s, warnings));
-	return o;
-}
-
-static cJSON *sites_json(const pred_result *r, cJSON *warnings)
-{
-	cJSON *arr = cJSON_CreateArray();
-	size_t n = pred_result_site_count(r);
-	for (size_t i = 0; arr && i < n; i++)
-		cJSON_AddItemToArray(arr, site_json(pred_result_site(r, i), warnings));
-	return arr;
-}
-
-static cJSON *macro_json(const pred_result *r, cJSON *warnings)
-{
-	cJSON *arr = cJSON_CreateArray();
 	size_t n = pred_result_macro_count(r);
-	int bad = 0;
-	for (size_t i = 0; arr && i < n; i++)
-		cJSON_AddItemToArray(arr, array_number(pred_result_macro_pka(r, i), DP_PKA, &bad));
-	if (bad)
-		cJSON_AddItemToArray(warnings,
-				     cJSON_CreateString("non-finite macro_pka encoded as null"));
-	return arr;
+	double *v = malloc((n + 1) * sizeof *v);
+	if (!v) {
+		w->b.oom = 1;
+		return;
+	}
+	for (size_t i = 0; i < n; i++)
+		v[i] = pred_result_macro_pka(r, i);
+	if (put_numbers(w, "macro_pka", v, n, DP_PKA))
+		warn(w, "non-finite macro_pka encoded as null");
+	free(v);
 }
 
-static cJSON *at_ph_json(const pred_result *r, cJSON *warnings)
+static void put_at_ph(jw *w, const pred_result *r)
 {
-	cJSON *o = cJSON_CreateObject();
-	cJSON *species = cJSON_CreateArray();
-	size_t n = pred_result_species_count(r);
-	srv_json_add_number(o, "ph", pred_result_ph(r), DP_PH, warnings);
-	srv_json_add_number(o, "charge", pred_result_charge(r), DP_CHARGE, warnings);
-	if (pred_result_ionization_is_approximate(r))
-		cJSON_AddTrueToObject(o, "approximate");
-	for (size_t i = 0; species && i < n; i++) {
+	open_with(w, "at_ph", "{");
+	put_number(w, "ph", pred_result_ph(r), DP_PH);
+	put_number(w, "charge", pred_result_charge(r), DP_CHARGE);
+	if (pred_result_ionization_is_approximate(r)) {
+		put_key(w, "approximate");
+		put(w, "true");
+	}
+	open_with(w, "species", "[");
+	for (size_t i = 0; i < pred_result_species_count(r); i++) {
 		const pred_species *sp = pred_result_species(r, i);
-		cJSON *s = cJSON_CreateObject();
-		cJSON_AddItemToArray(species, s);
-		add_clean_string(s, "smiles", sp->smiles ? sp->smiles : "");
-		srv_json_add_number(s, "fraction", sp->fraction, DP_FRACTION, warnings);
-		cJSON_AddNumberToObject(s, "charge", sp->charge);
+		open_with(w, NULL, "{");
+		put_str_member(w, "smiles", sp->smiles ? sp->smiles : "");
+		put_number(w, "fraction", sp->fraction, DP_FRACTION);
+		put_int_member(w, "charge", sp->charge);
+		close_with(w, "}");
 	}
-	cJSON_AddItemToObject(o, "species", species);
-	return o;
+	close_with(w, "]");
+	close_with(w, "}");
 }
 
-/* A JSON array of n doubles rounded to `decimals` places. */
-static cJSON *number_array(const double *x, size_t n, int decimals, int *bad)
+static void put_curves(jw *w, const pred_curves *c)
 {
-	cJSON *arr = cJSON_CreateArray();
-	for (size_t i = 0; arr && i < n; i++)
-		cJSON_AddItemToArray(arr, array_number(x[i], decimals, bad));
-	return arr;
-}
-
-static cJSON *curves_json(const pred_curves *c, cJSON *warnings)
-{
-	cJSON *o = cJSON_CreateObject();
-	cJSON *series = cJSON_CreateArray();
 	int bad = 0;
-	cJSON_AddItemToObject(o, "ph", number_array(c->ph, c->n_points, DP_PH, &bad));
-	cJSON_AddItemToObject(o, "charge", number_array(c->charge, c->n_points, DP_CHARGE, &bad));
-	for (size_t s = 0; series && s < c->n_series; s++) {
-		cJSON *f = cJSON_CreateObject();
-		cJSON_AddItemToArray(series, f);
-		cJSON_AddNumberToObject(f, "charge", c->series_charge[s]);
-		cJSON_AddItemToObject(f, "fraction",
-				      number_array(c->fraction + s * c->n_points, c->n_points,
-						   DP_FRACTION, &bad));
+	open_with(w, "curves", "{");
+	bad |= put_numbers(w, "ph", c->ph, c->n_points, DP_PH);
+	bad |= put_numbers(w, "charge", c->charge, c->n_points, DP_CHARGE);
+	open_with(w, "fractions", "[");
+	for (size_t s = 0; s < c->n_series; s++) {
+		open_with(w, NULL, "{");
+		put_int_member(w, "charge", c->series_charge[s]);
+		bad |= put_numbers(w, "fraction", c->fraction + s * c->n_points, c->n_points,
+				   DP_FRACTION);
+		close_with(w, "}");
 	}
-	cJSON_AddItemToObject(o, "fractions", series);
+	close_with(w, "]");
+	close_with(w, "}");
 	if (bad)
-		cJSON_AddItemToArray(warnings,
-				     cJSON_CreateString("non-finite curve value encoded as null"));
-	return o;
+		warn(w, "non-finite curve value encoded as null");
 }
 
-/* Copies the result's warnings or notes into a JSON array of strings. */
-static cJSON *strings_json(const pred_result *r, size_t (*count)(const pred_result *),
-			   const char *(*get)(const pred_result *, size_t))
+/* The result's warnings or notes, then (warnings only) the encoder's. */
+static void put_strings(jw *w, const char *key, const pred_result *r,
+			size_t (*count)(const pred_result *),
+			const char *(*get)(const pred_result *, size_t), const srv_buf *extra)
 {
-	cJSON *arr = cJSON_CreateArray();
-	size_t n = count(r);
-	for (size_t i = 0; arr && i < n; i++) {
-		const char *s = get(r, i);
-		char *clean = srv_utf8_clean(s ? s : "", s ? strlen(s) : 0);
-		cJSON_AddItemToArray(arr, cJSON_CreateString(clean ? clean : ""));
-		free(clean);
+	open_with(w, key, "[");
+	for (size_t i = 0; i < count(r); i++) {
+		put_key(w, NULL);
+		put_string(&w->b, get(r, i) ? get(r, i) : "");
 	}
-	return arr;
+	if (extra && extra->len)
+		srv_buf_append(&w->b, extra->p + (w->first ? 1 : 0), extra->len - (w->first ? 1 : 0));
+	close_with(w, "]");
 }
 
-/* The encoder's own warnings (non-finite numbers) join the result's; the array is attached
- * last so that "warnings" and "notes" close the object. */
-cJSON *srv_result_json(const pred_result *r, const char *id, const char *input)
+char *srv_result_text(const pred_result *r, const char *id, const char *input)
 {
-	cJSON *o = cJSON_CreateObject();
-	cJSON *warnings = strings_json(r, pred_result_warning_count, pred_result_warning);
-	const pred_curves *curves = pred_result_curves(r);
+	jw w = {{0}, {0}, 1};
 	double pi;
-	if (!o || !warnings) {
-		cJSON_Delete(o);
-		cJSON_Delete(warnings);
-		return NULL;
-	}
-	add_clean_string(o, "id", id);
-	add_clean_string(o, "input", input);
-	add_clean_string(o, "smiles", pred_result_smiles(r) ? pred_result_smiles(r) : "");
-	cJSON_AddItemToObject(o, "sites", sites_json(r, warnings));
-	cJSON_AddItemToObject(o, "macro_pka", macro_json(r, warnings));
-	cJSON_AddItemToObject(o, "at_ph", at_ph_json(r, warnings));
+	const pred_curves *curves = pred_result_curves(r);
+	put(&w, "{");
+	if (id)
+		put_str_member(&w, "id", id);
+	if (input)
+		put_str_member(&w, "input", input);
+	put_str_member(&w, "smiles", pred_result_smiles(r) ? pred_result_smiles(r) : "");
+	open_with(&w, "sites", "[");
+	for (size_t i = 0; i < pred_result_site_count(r); i++)
+		put_site(&w, pred_result_site(r, i));
+	close_with(&w, "]");
+	put_macro(&w, r);
+	put_at_ph(&w, r);
 	if (pred_result_isoelectric(r, &pi) == 0)
-		srv_json_add_number(o, "isoelectric_point", pi, DP_PKA, warnings);
+		put_number(&w, "isoelectric_point", pi, DP_PKA);
 	if (curves)
-		cJSON_AddItemToObject(o, "curves", curves_json(curves, warnings));
-	cJSON_AddItemToObject(o, "warnings", warnings);
-	cJSON_AddItemToObject(o, "notes", strings_json(r, pred_result_note_count, pred_result_note));
-	return o;
+		put_curves(&w, curves);
+	put_strings(&w, "warnings", r, pred_result_warning_count, pred_result_warning, &w.warn);
+	put_strings(&w, "notes", r, pred_result_note_count, pred_result_note, NULL);
+	put(&w, "}");
+	if (w.warn.oom)
+		w.b.oom = 1;
+	srv_buf_free(&w.warn);
+	return srv_buf_take(&w.b);
 }
 
 cJSON *srv_error_json(const char *id, const char *input, const pred_error *e)

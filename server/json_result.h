@@ -6,13 +6,15 @@
 #include <cjson/cJSON.h>
 
 #include "predictor.h"
+#include "strbuf.h"
 
-/** The result object of one molecule: {"id", "input", "smiles", "sites", "macro_pka",
- *  "at_ph", ["isoelectric_point"], ["curves"], "warnings", "notes"}. id and input may be
- *  NULL (then the key is left out); both are made valid UTF-8. pKa values are rounded to 2
- *  decimals, fractions to 4; a non-finite number becomes null with a warning. Returns NULL
- *  only when out of memory. Caller frees with cJSON_Delete. Thread-safe. */
-cJSON *srv_result_json(const pred_result *r, const char *id, const char *input);
+/** The result object of one molecule as one line of JSON text (no newline): {"id",
+ *  "input", "smiles", "sites", "macro_pka", "at_ph", ["isoelectric_point"], ["curves"],
+ *  "warnings", "notes"}. id and input may be NULL (then the key is left out); every string
+ *  is made valid UTF-8. pKa values are rounded to 2 decimals, fractions to 4; a non-finite
+ *  number becomes null with a warning. Written directly, in cJSON's unformatted layout.
+ *  Returns NULL only when out of memory. Caller frees with free(). Thread-safe. */
+char *srv_result_text(const pred_result *r, const char *id, const char *input);
 
 /** The error object {"id", "input", "error": {"code", "message"}}; code is
  *  pred_status_name(e->code). With id and input NULL this is the daemon's error body.

@@ -93,15 +93,21 @@ int srv_output_format_parse(srv_output_format *out, const char *s)
 
 static char *render_jsonl(const srv_record *rec, const pred_result *r, const pred_error *e)
 {
-	cJSON *o = r ? srv_result_json(r, rec->id, rec->text)
-		     : srv_error_json(rec->id, rec->text, e);
-	char *line = srv_json_line(o);
 	sbuf b = {0};
-	if (!line)
-		return NULL;
-	sb_puts(&b, line);
+	if (r) {
+		char *line = srv_result_text(r, rec->id, rec->text);
+		if (!line)
+			return NULL;
+		sb_puts(&b, line);
+		free(line);
+	} else {
+		char *line = srv_json_line(srv_error_json(rec->id, rec->text, e));
+		if (!line)
+			return NULL;
+		sb_puts(&b, line);
+		cJSON_free(line);
+	}
 	sb_puts(&b, "\n");
-	cJSON_free(line);
 	return sb_finish(&b);
 }
 

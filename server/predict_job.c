@@ -32,10 +32,15 @@ void srv_job_run(srv_job *j, pred_worker *w)
 	j->code = pred_predict(&r, w, j->input, PRED_FMT_SMILES, j->opt, &err);
 	if (j->code < 0)
 		err.code = j->code;
-	line = srv_json_line(j->code == 0 ? srv_result_json(r, NULL, j->input)
-					   : srv_error_json(NULL, j->input, &err));
-	j->json = line ? dup_text(line) : oom_json();
-	cJSON_free(line);
+	if (j->code == 0) {
+		j->json = srv_result_text(r, NULL, j->input);
+	} else {
+		line = srv_json_line(srv_error_json(NULL, j->input, &err));
+		j->json = line ? dup_text(line) : NULL;
+		cJSON_free(line);
+	}
+	if (!j->json)
+		j->json = oom_json();
 	pred_result_free(r);
 }
 

@@ -31,7 +31,7 @@ void srv_run_finish(srv_run *run, srv_job *j);
 void srv_job_clear(srv_job *j);
 
 /* Appends the answer of j with "id" first when id is not NULL: the same text
- * srv_result_json(r, id, input) gives. */
+ * srv_result_text(r, id, input) gives. */
 void srv_job_append(srv_buf *b, const srv_job *j, const char *id);
 
 #endif

@@ -19,6 +19,7 @@
 #include <openbabel/phmodel.h>
 #include <openbabel/ring.h>
 #include <openbabel/stereo/cistrans.h>
+#include <openbabel/stereo/tetrahedral.h>
 #include <openbabel/typer.h>
 
 #include <algorithm>
@@ -197,6 +198,35 @@ static void reset_perception(OBMol &mol)
 	mol.SetClosureBondsPerceived(false);
 }
 
+/* Specified tetrahedral centres, neighbours as atom indices (-1: implicit or folded H). */
+static void build_tetra(obw_mol *m)
+{
+	OBMol &mol = m->mol;
+	m->tetra.clear();
+	m->n_cistrans = 0;
+	for (OBGenericData *d : mol.GetAllData(OBGenericDataType::StereoData)) {
+		OBStereoBase *st = static_cast<OBStereoBase *>(d);
+		if (st->GetType() == OBStereo::CisTrans &&
+		    static_cast<OBCisTransStereo *>(st)->GetConfig().specified)
+			m->n_cistrans++;
+		if (st->GetType() != OBStereo::Tetrahedral)
+			continue;
+		OBTetrahedralStereo::Config cfg = static_cast<OBTetrahedralStereo *>(st)->GetConfig(
+			OBStereo::Clockwise, OBStereo::ViewFrom);
+		OBAtom *centre = mol.GetAtomById(cfg.center);
+		if (!cfg.specified || cfg.refs.size() != 3 || !centre)
+			continue;
+		obw_tetra t;
+		t.centre = (int)centre->GetIdx() - 1;
+		unsigned long ids[4] = {cfg.from, cfg.refs[0], cfg.refs[1], cfg.refs[2]};
+		for (int k = 0; k < 4; k++) {
+			OBAtom *a = ids[k] == OBStereo::ImplicitRef ? nullptr : mol.GetAtomById(ids[k]);
+			t.nbr[k] = a ? (int)a->GetIdx() - 1 : -1;
+		}
+		m->tetra.push_back(t);
+	}
+}
+
 /* Views of the current graph; reset forgets the toolkit's perception first (after edits). */
 static void rebuild_cache(obw_mol *m, bool reset = true)
 {
@@ -219,6 +249,7 @@ static void rebuild_cache(obw_mol *m, bool reset = true)
 	}
 	build_rings(m);
 	smallest_ring_sizes(m);
+	build_tetra(m);
 }
 
 /* ---- hydrogens ------------------------------------------------------------------------ */
@@ -469,6 +500,26 @@ extern "C" size_t obw_mol_bonds(const obw_mol *m, const obw_bond **out)
 	return m->bonds.size();
 }
 
+extern "C" size_t obw_mol_tetra(const obw_mol *m, const obw_tetra **out)
+{
+	*out = m->tetra.data();
+	return m->tetra.size();
+}
+
+extern "C" size_t obw_mol_cistrans_count(const obw_mol *m)
+{
+	return m->n_cistrans;
+}
+
+extern "C" const char *obw_element_symbol(int z)
+{
+	try {
+		return z > 0 && z < 119 ? OBElements::GetSymbol((unsigned int)z) : "";
+	} catch (...) {
+		return "";
+	}
+}
+
 extern "C" void obw_mol_rings(const obw_mol *m, obw_rings *out)
 {
 	out->n_rings = m->ring_sizes.size();
@@ -687,28 +738,36 @@ extern "C" int obw_pattern_match(int **out, const obw_pattern *p, obw_mol *m)
 		/* unique by (first atom, atom set): a symmetric pattern such as the two OH of
 		 * [OX2H1]C(=O)[OX2H1] gives one match per first atom, where unique-by-set
 		 * matching would give one match in all */
-		std::vector<std::vector<int>> all, ml;
+		std::vector<std::vector<int>> all;
 		if (!p->pat.Match(m->mol, all, OBSmartsPattern::All) || all.empty())
 			return 0;
-		std::vector<std::vector<int>> seen;
-		for (const std::vector<int> &mt : all) {
-			std::vector<int> key(mt.begin() + 1, mt.end());
-			std::sort(key.begin(), key.end());
-			key.insert(key.begin(), mt[0]);
-			if (std::find(seen.begin(), seen.end(), key) != seen.end())
-				continue;
-			seen.push_back(key);
-			ml.push_back(mt);
-		}
 		size_t na = p->pat.NumAtoms();
-		int *v = static_cast<int *>(malloc(ml.size() * na * sizeof(int)));
+		std::vector<int> keys, key(na); /* keys of the kept matches, na ints each */
+		std::vector<size_t> kept;
+		keys.reserve(all.size() * na);
+		kept.reserve(all.size());
+		for (size_t i = 0; i < all.size(); i++) {
+			const std::vector<int> &mt = all[i];
+			if (mt.size() != na)
+				return E_INTERNAL;
+			std::copy(mt.begin(), mt.end(), key.begin());
+			std::sort(key.begin() + 1, key.end());
+			bool seen = false;
+			for (size_t k = 0; k < kept.size() && !seen; k++)
+				seen = std::equal(key.begin(), key.end(), keys.begin() + (long)(k * na));
+			if (seen)
+				continue;
+			keys.insert(keys.end(), key.begin(), key.end());
+			kept.push_back(i);
+		}
+		int *v = static_cast<int *>(malloc(kept.size() * na * sizeof(int)));
 		if (!v)
 			return E_NOMEM;
-		for (size_t k = 0; k < ml.size(); k++)
+		for (size_t k = 0; k < kept.size(); k++)
 			for (size_t j = 0; j < na; j++)
-				v[k * na + j] = ml[k][j] - 1;
+				v[k * na + j] = all[kept[k]][j] - 1;
 		*out = v;
-		return (int)ml.size();
+		return (int)kept.size();
 	} catch (const std::bad_alloc &) {
 		return E_NOMEM;
 	} catch (...) {

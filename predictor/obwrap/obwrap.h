@@ -75,6 +75,19 @@ typedef struct obw_rings {
 } obw_rings;
 void obw_mol_rings(const obw_mol *m, obw_rings *out);
 
+/** A tetrahedral stereo centre as drawn: looking from nbr[0], nbr[1..3] run clockwise;
+ *  -1 stands for the centre's implicit hydrogen. */
+typedef struct obw_tetra {
+	int centre;
+	int nbr[4];
+} obw_tetra;
+/** Specified tetrahedral centres; borrowed like obw_mol_atoms. Returns the count. */
+size_t obw_mol_tetra(const obw_mol *m, const obw_tetra **out);
+/** Number of double bonds with a specified cis/trans configuration. */
+size_t obw_mol_cistrans_count(const obw_mol *m);
+/** Element symbol of atomic number z ("C", "Cl"; "" when unknown). Static storage. */
+const char *obw_element_symbol(int z);
+
 /** Symmetry class of each atom (equal numbers = topologically equivalent), n = atom count.
  *  Writes into caller's array cls[n]. */
 int obw_mol_symmetry(obw_mol *m, int *cls, size_t n, char *msg, size_t msgn);

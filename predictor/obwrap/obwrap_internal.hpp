@@ -33,6 +33,8 @@ struct obw_mol {
 	std::vector<obw_atom> atoms;
 	std::vector<obw_bond> bonds;
 	std::vector<int> ring_sizes, ring_offsets, ring_atoms;
+	std::vector<obw_tetra> tetra;   /* specified tetrahedral centres */
+	size_t n_cistrans = 0;          /* specified cis/trans double bonds */
 	std::string canonical;          /* last canonical SMILES written, "" when stale */
 	std::vector<int> canonical_order; /* atom index (0-based) of each atom token in it */
 };

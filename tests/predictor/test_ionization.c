@@ -39,7 +39,7 @@ static hand make(const char *kinds, const double *pka, const int *bonds)
 		h.dist = res_alloc(h.r, n * n * sizeof *h.dist);
 		memcpy(h.dist, bonds, n * n * sizeof *h.dist);
 	}
-	h.in = (ion_input){NULL, NULL, h.atom, h.dist, n, NULL, NULL};
+	h.in = (ion_input){NULL, NULL, h.atom, h.dist, n, NULL, NULL, NULL, NULL};
 	return h;
 }
 
@@ -328,11 +328,32 @@ static void test_ionization__glycine_is_a_zwitterion_at_7_4(void)
 	pred_result_free(r);
 }
 
+/* Whether two SMILES are one molecule: equal Open Babel canonical SMILES (the reference
+ * toolkit; pkad writes in its own canonical order). */
+static int same_molecule(const char *a, const char *b)
+{
+	obw_ctx *c = obw_ctx_new();
+	obw_mol *ma = NULL, *mb = NULL;
+	char *sa = NULL, *sb = NULL;
+	if (c && obw_mol_parse(&ma, c, a, OBW_SMILES, NULL, 0) == 0 &&
+	    obw_mol_parse(&mb, c, b, OBW_SMILES, NULL, 0) == 0) {
+		sa = obw_mol_canonical(ma, c, NULL, 0);
+		sb = obw_mol_canonical(mb, c, NULL, 0);
+	}
+	int same = sa && sb && strcmp(sa, sb) == 0;
+	free(sa);
+	free(sb);
+	obw_mol_free(ma);
+	obw_mol_free(mb);
+	obw_ctx_free(c);
+	return same;
+}
+
 static void test_ionization__ethylenediamine_species_carry_charges(void)
 {
 	pred_result *r = predict("NCCN", 2.0); /* well below both values: the dication */
 	CHECK(r && pred_result_species(r, 0)->charge == 2);
-	CHECK(r && strstr(pred_result_species(r, 0)->smiles, "[NH3+]CC[NH3+]"));
+	CHECK(r && same_molecule(pred_result_species(r, 0)->smiles, "[NH3+]CC[NH3+]"));
 	CHECK(r && pred_result_charge(r) > 1.99);
 	pred_result_free(r);
 	r = predict("OC(=O)CCC(=O)O", 12.0); /* succinate dianion */

@@ -10,6 +10,7 @@
 #include "cache.h"
 #include "harness.h"
 #include "http_errors.h"
+#include "json_result.h"
 #include "metrics.h"
 #include "openapi_embedded.h"
 #include "routes.h"
@@ -401,11 +402,41 @@ static void test_stream__records_fed_byte_by_byte_answer_in_order(void)
 	srv_pka_stream_ops.free(s);
 }
 
+/* The result text is written without cJSON but must be what cJSON prints for the same
+ * object: parsed and printed again by cJSON it is byte for byte the same, escapes of
+ * quotes, backslashes and control bytes and the curves included. */
+static void test_json__result_text_is_cjson_layout(void)
+{
+	static const char *const inputs[] = {"NCC(=O)O", "Oc1ccccc1", "C", "OC(=O)CCC(=O)O"};
+	pred_worker *w = NULL;
+	pred_error err = {0, ""};
+	pred_options opt;
+	pred_options_init(&opt);
+	opt.curves = 1;
+	CHECK_INT_EQ(pred_worker_new(&w, model, &err), 0);
+	for (size_t i = 0; w && i < sizeof inputs / sizeof *inputs; i++) {
+		pred_result *r = NULL;
+		CHECK_INT_EQ(pred_predict(&r, w, inputs[i], PRED_FMT_SMILES, &opt, &err), 0);
+		char *text = r ? srv_result_text(r, "id \"q\" \\ \t\x01\x7f\xc3\xa9\xff", inputs[i])
+			       : NULL;
+		cJSON *o = text ? cJSON_Parse(text) : NULL;
+		char *again = o ? cJSON_PrintUnformatted(o) : NULL;
+		CHECK(again != NULL);
+		CHECK_STR_EQ(text, again);
+		cJSON_free(again);
+		cJSON_Delete(o);
+		free(text);
+		pred_result_free(r);
+	}
+	pred_worker_free(w);
+}
+
 int main(void)
 {
 	if (setup() < 0)
 		return 1;
 	RUN(test_routes__unknown_path_returns_404);
+	RUN(test_json__result_text_is_cjson_layout);
 	RUN(test_routes__wrong_method_returns_405_with_allow);
 	RUN(test_routes__draining_returns_503_with_retry_after);
 	RUN(test_routes__bearer_token_checked_except_healthz);
