@@ -62,7 +62,6 @@ static int grow(fit_data *d, size_t rows, size_t nnz)
 		GROW_OR_FAIL(d->c, cap);
 		GROW_OR_FAIL(d->ufac, cap);
 		GROW_OR_FAIL(d->fold, cap);
-		GROW_OR_FAIL(d->src, cap);
 		GROW_OR_FAIL(d->off, cap + 1);
 		d->cap = cap;
 	}
@@ -123,10 +122,7 @@ static int collect(fit_data *d, pred_model *m, const pred_fit_row *rows, size_t 
 			d->n_unreadable++;
 			continue;
 		}
-		size_t before = d->n;
 		rc = add_row(d, r, &rows[i], opt->folds);
-		if (d->n > before)
-			d->src[before] = i;
 		d->n_unmatched += rc == 1;
 		rc = rc == 1 ? 0 : rc;
 		pred_result_free(r);
@@ -160,23 +156,15 @@ static double value_now(const pred_model *m, const fit_data *d, size_t i)
 
 /* Rows far off under the starting values get weight 0: no parameter of the model can
  * explain a missing site class, a mis-drawn tautomer or a data error, and such rows would
- * drag the class they happen to match. Each input row is judged once, the first time it is
- * collected (far[i]: 0 not yet, 1 kept, 2 dropped), so that the set of rows does not change
- * between the fall-off trials and relinearisation rounds of one fit: a set re-judged at
- * every trial made the search jump between states (a class parent near the cut moving by
- * more than a unit on an unrelated change). Returns how many are dropped. */
-static size_t trim_rows(fit_data *d, const pred_model *m, double trim, unsigned char *far)
+ * drag the class they happen to match. Returns how many. */
+static size_t trim_rows(fit_data *d, const pred_model *m, double trim)
 {
 	size_t n = 0;
-	for (size_t i = 0; trim > 0 && i < d->n; i++) {
-		unsigned char *f = &far[d->src[i]];
-		if (!*f)
-			*f = fabs(value_now(m, d, i) - d->y[i]) > trim ? 2 : 1;
-		if (*f == 2) {
+	for (size_t i = 0; trim > 0 && i < d->n; i++)
+		if (fabs(value_now(m, d, i) - d->y[i]) > trim) {
 			d->w[i] = 0;
 			n++;
 		}
-	}
 	return n;
 }
 
@@ -247,7 +235,7 @@ static void estimate_resid_sd(pred_fit_options *opt, const pred_model *m, const 
 }
 
 static int evaluate(fit_state *s, pred_model *m, double falloff, const pred_fit_row *rows,
-		    size_t n, unsigned char *far, pred_fit_options *opt, pred_error *err)
+		    size_t n, pred_fit_options *opt, pred_error *err)
 {
 	int rc;
 	state_clear(s);
@@ -259,7 +247,7 @@ static int evaluate(fit_state *s, pred_model *m, double falloff, const pred_fit_
 	if (opt->resid_sd <= 0)
 		estimate_resid_sd(opt, m, &s->d);
 	s->loss_now = loss_now(m, &s->d, falloff, opt);
-	s->n_trimmed = trim_rows(&s->d, m, opt->trim, far);
+	s->n_trimmed = trim_rows(&s->d, m, opt->trim);
 	if (s->d.n == 0)
 		return set_err(err, PRED_EINVAL, "no training row has a matching site");
 	if ((rc = fit_cols_build(&s->cols, m, &s->d, m->p_falloff)))
@@ -274,7 +262,7 @@ static int evaluate(fit_state *s, pred_model *m, double falloff, const pred_fit_
 
 /* Golden-section search of the fall-off over [lo, hi]; leaves the best state in *best. */
 static int search_falloff(fit_state *best, pred_model *m, const pred_fit_row *rows, size_t n,
-			  unsigned char *far, pred_fit_options *opt, pred_error *err)
+			  pred_fit_options *opt, pred_error *err)
 {
 	const double g = 0.6180339887498949;
 	double a = opt->falloff_lo, b = opt->falloff_hi, x1, x2, f1, f2;
@@ -282,26 +270,26 @@ static int search_falloff(fit_state *best, pred_model *m, const pred_fit_row *ro
 	int rc;
 	x1 = b - g * (b - a);
 	x2 = a + g * (b - a);
-	if ((rc = evaluate(&s, m, x1, rows, n, far, opt, err)))
+	if ((rc = evaluate(&s, m, x1, rows, n, opt, err)))
 		goto done;
 	f1 = s.obj;
-	if ((rc = evaluate(&s, m, x2, rows, n, far, opt, err)))
+	if ((rc = evaluate(&s, m, x2, rows, n, opt, err)))
 		goto done;
 	f2 = s.obj;
 	for (int it = 0; it < 7; it++) {
 		if (f1 < f2) {
 			b = x2, x2 = x1, f2 = f1, x1 = b - g * (b - a);
-			if ((rc = evaluate(&s, m, x1, rows, n, far, opt, err)))
+			if ((rc = evaluate(&s, m, x1, rows, n, opt, err)))
 				goto done;
 			f1 = s.obj;
 		} else {
 			a = x1, x1 = x2, f1 = f2, x2 = a + g * (b - a);
-			if ((rc = evaluate(&s, m, x2, rows, n, far, opt, err)))
+			if ((rc = evaluate(&s, m, x2, rows, n, opt, err)))
 				goto done;
 			f2 = s.obj;
 		}
 	}
-	rc = evaluate(best, m, f1 < f2 ? x1 : x2, rows, n, far, opt, err);
+	rc = evaluate(best, m, f1 < f2 ? x1 : x2, rows, n, opt, err);
 done:
 	state_clear(&s);
 	return rc;
@@ -446,8 +434,7 @@ static void load_values(pred_model *m, const double *v)
  * recomputed) and keep them only while the penalised loss falls; then solve again from
  * there. Leaves the best values in m and their collection in *s. */
 static int refine(fit_state *s, pred_model *m, double *best, double best_loss,
-		  const pred_fit_row *rows, size_t n, unsigned char *far, pred_fit_options *opt,
-		  pred_error *err)
+		  const pred_fit_row *rows, size_t n, pred_fit_options *opt, pred_error *err)
 {
 	double best_f = m->p_falloff >= 0 ? m->params[m->p_falloff].value : 0, f;
 	int rc = 0;
@@ -455,7 +442,7 @@ static int refine(fit_state *s, pred_model *m, double *best, double best_loss,
 		f = s->falloff;
 		for (size_t j = 0; j < s->cols.n; j++)
 			m->params[s->cols.param_of[j]].value = s->theta[j];
-		if ((rc = evaluate(s, m, f, rows, n, far, opt, err)))
+		if ((rc = evaluate(s, m, f, rows, n, opt, err)))
 			break;
 		if (!(s->loss_now < best_loss - 1e-6 * fabs(best_loss)))
 			break;
@@ -467,7 +454,7 @@ static int refine(fit_state *s, pred_model *m, double *best, double best_loss,
 	if (rc)
 		return rc;
 	load_values(m, best);
-	return evaluate(s, m, best_f, rows, n, far, opt, err);
+	return evaluate(s, m, best_f, rows, n, opt, err);
 }
 
 static int fit_run(pred_fit_report *rep, pred_model *m, const pred_fit_row *rows, size_t n,
@@ -475,17 +462,16 @@ static int fit_run(pred_fit_report *rep, pred_model *m, const pred_fit_row *rows
 {
 	fit_state s = {0};
 	double *cv = NULL, *start = save_values(m), *best = save_values(m), start_loss;
-	unsigned char *far = calloc(n + 1, 1);
 	int search = opt->search_falloff && m->p_falloff >= 0;
-	int rc = start && best && far ? evaluate(&s, m, m->p_falloff >= 0 ? start[m->p_falloff] : 0,
-					  rows, n, far, opt, err)
+	int rc = start && best ? evaluate(&s, m, m->p_falloff >= 0 ? start[m->p_falloff] : 0,
+					  rows, n, opt, err)
 			       : set_err(err, PRED_ENOMEM, "out of memory");
 	if (rc)
 		goto done;
 	rep->sum.rmse_before = rmse_current(m, &s.d);
 	start_loss = s.loss_now;
-	if ((search && (rc = search_falloff(&s, m, rows, n, far, opt, err))) ||
-	    (rc = refine(&s, m, best, start_loss, rows, n, far, opt, err)))
+	if ((search && (rc = search_falloff(&s, m, rows, n, opt, err))) ||
+	    (rc = refine(&s, m, best, start_loss, rows, n, opt, err)))
 		goto done;
 	if (!(cv = calloc(s.d.n + 1, sizeof *cv))) {
 		rc = set_err(err, PRED_ENOMEM, "out of memory");
@@ -510,7 +496,6 @@ static int fit_run(pred_fit_report *rep, pred_model *m, const pred_fit_row *rows
 done:
 	if (rc && start)
 		load_values(m, start);
-	free(far);
 	free(start);
 	free(best);
 	free(cv);

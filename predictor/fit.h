@@ -18,7 +18,6 @@ typedef struct fit_data {
 	int *param;
 	double *feat;
 	unsigned *fold;    /* cross-validation fold of each row (by molecule) */
-	size_t *src;       /* index of the input row it was collected from */
 	size_t n_unreadable, n_unmatched;
 	size_t cap, cap_nnz; /* allocated rows and design entries */
 } fit_data;

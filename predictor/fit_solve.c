@@ -17,7 +17,6 @@ void fit_data_clear(fit_data *d)
 	free(d->param);
 	free(d->feat);
 	free(d->fold);
-	free(d->src);
 	memset(d, 0, sizeof *d);
 }
 

@@ -357,50 +357,6 @@ static void test_fit__recovers_a_shifted_parent(void)
 	pred_model_free(m);
 }
 
-/* Rows made by the model with carboxylic.parent raised by 2.5 (all within the 3-unit trim at
- * the start), plus a copy of the acetic acid row 0.8 further off (3.3 at the start: dropped).
- * The drop is judged once, under the starting values: once the fit has moved the parent the
- * copy is only 0.8 off, and a fit that judged the rows again would take it back in. */
-static void test_fit__far_rows_are_judged_once_at_the_start(void)
-{
-	pred_model *m = fixture_model();
-	pred_worker *w = NULL;
-	pred_fit_row rows[NF + 1];
-	pred_fit_report *rep = NULL;
-	pred_fit_options opt;
-	pred_fit_summary sum;
-	size_t n = 0;
-	int p = m ? model_param_find(m, "carboxylic.parent") : -1;
-	CHECK(p >= 0);
-	if (p < 0 || pred_worker_new(&w, m, NULL))
-		return;
-	m->params[p].value += 2.5;
-	for (size_t i = 0; i < NF; i++) {
-		pred_result *r = NULL;
-		pred_predict(&r, w, fit_smiles[i], PRED_FMT_SMILES, NULL, NULL);
-		long k = r ? pred_result_match(r, PRED_ACID, 1) : -1;
-		if (k >= 0)
-			rows[n++] = (pred_fit_row){fit_smiles[i], PRED_ACID, 1,
-						   pred_result_site(r, (size_t)k)->pka, 1.0, 0, 0};
-		pred_result_free(r);
-	}
-	pred_worker_free(w);
-	m->params[p].value -= 2.5;
-	CHECK(n > 1 && !strcmp(rows[0].smiles, "CC(=O)O"));
-	rows[n] = rows[0];
-	rows[n++].pka += 0.8;
-	pred_fit_options_init(&opt);
-	opt.search_falloff = 0;
-	opt.resid_sd = 0.01;
-	opt.folds = 2;
-	CHECK_INT_EQ(pred_fit(&rep, m, rows, n, &opt, NULL), 0);
-	pred_fit_report_summary(rep, &sum);
-	CHECK_INT_EQ(sum.n_trimmed, 1);
-	CHECK_NEAR(m->params[p].value, m->params[p].prior + 2.5, 0.02);
-	pred_fit_report_free(rep);
-	pred_model_free(m);
-}
-
 int main(void)
 {
 	RUN(test_fit__ranks_sites_by_acidity_and_basicity);
@@ -414,6 +370,5 @@ int main(void)
 	RUN(test_fit__params_file_keeps_rows_it_did_not_fit);
 	RUN(test_fit__design_reproduces_site_pka);
 	RUN(test_fit__recovers_a_shifted_parent);
-	RUN(test_fit__far_rows_are_judged_once_at_the_start);
 	return harness_done();
 }
