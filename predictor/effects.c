@@ -345,6 +345,20 @@ static void amine_n_effects(term_list *tl, const eng_mol *e, const pred_model *m
 	tl->extra_var += acc.generic_var;
 }
 
+/* The C=O (C=S) para to the ring N-H of an acid site matched as the N alone is that site's
+ * own acceptor (the carbonyl of a 4-pyridone takes the anion's charge), not a substituent of
+ * its ring. A site whose match holds a C=O beside the N (2-pyridones, uracil N1) keeps a para
+ * C=O as a substituent: that one is a second acceptor. */
+static int own_para_oxo(const eng_mol *e, const pred_model *m, const eng_site *s, int ipso,
+			int pos, int x)
+{
+	const obw_atom *c = &e->atoms[s->centre], *o = &e->atoms[x];
+	return pos == 4 && ipso == s->centre && s->n_match == 1 &&
+	       m->sites[s->row].kind == PRED_ACID &&
+	       c->element == 7 && c->hcount > 0 && (o->element == 8 || o->element == 16) &&
+	       o->degree == 1 && o->hcount == 0 && o->charge == 0 && !o->in_ring;
+}
+
 /* Substituents of the Hammett ring k (ipso at ring index i0). Marks what it counted. */
 static void ring_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 			 const eng_site *s, size_t k, int ipso, unsigned char *seen, int *queue,
@@ -372,6 +386,10 @@ static void ring_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 			int x = nb[q];
 			if (ring_index_of(R, k, x) >= 0 || in_match(s, x) || fused_with(e, k, a, x))
 				continue;
+			if (own_para_oxo(e, m, s, ipso, pos, x)) {
+				seen[x] = 1;
+				continue;
+			}
 			sigmas g;
 			group_sigmas(&g, e, m, x);
 			hammett_term(tl, m, row, pos, &g);
