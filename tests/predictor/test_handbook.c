@@ -497,6 +497,19 @@ static void test_handbook__fused_pyrimidine_ring_n(void)
 	CHECK_NEAR(site_pka("Cn1cc2ccccc2nc1=O", "pyrimidine", PRED_BASE), 2.15, 0.8);
 }
 
+/* Pteridinium cations are covalently hydrated (Albert): the equilibrium value lies well above
+ * the anhydrous one wherever C4, C6 or C7 carries a hydrogen. 6-methoxy- 3.57, 7-chloro- 3.21
+ * and 4-methylthiopteridine 2.53 (Perrin 1965 via IUPAC dataset, entries of data/iupac-pka.csv,
+ * train split); 2,4,6,7-tetramethylpteridine 2.60 cannot hydrate and stays below the first
+ * three's hydrated level. */
+static void test_handbook__pteridine_cations_hydrate(void)
+{
+	CHECK_NEAR(most_basic("COc1cnc2c(n1)cncn2"), 3.57, 0.8);
+	CHECK_NEAR(most_basic("Clc1cnc2c(n1)ncnc2"), 3.21, 0.8);
+	CHECK_NEAR(most_basic("CSc1ncnc2c1nccn2"), 2.53, 0.8);
+	CHECK_NEAR(most_basic("Cc1nc(C)c2c(n1)nc(c(n2)C)C"), 2.60, 0.8);
+}
+
 /* Two alkylamino donors at C4 and C6 of a pyrimidine saturate (corrections.tsv,
  * pyrimidine_alkylamino_saturation): 4,6-bisdimethylaminopyrimidine 6.34 (entry perrin1634 of
  * data/iupac-pka.csv, Perrin 1965), predicted 8.7 from the additive sigma_p terms alone, 7.4
@@ -869,6 +882,7 @@ int main(void)
 	RUN(test_handbook__nitro_on_n_or_o_is_no_base);
 	RUN(test_handbook__acyl_nitro_cyano_guanidines);
 	RUN(test_handbook__fused_pyrimidine_ring_n);
+	RUN(test_handbook__pteridine_cations_hydrate);
 	RUN(test_handbook__pyrimidine_alkylamino_donors_saturate);
 	RUN(test_handbook__parallel_saturated_routes_add_to_the_interaction);
 	RUN(test_handbook__two_ortho_groups_each_take_the_ortho_term);
