@@ -497,6 +497,32 @@ static void test_handbook__fused_pyrimidine_ring_n(void)
 	CHECK_NEAR(site_pka("Cn1cc2ccccc2nc1=O", "pyrimidine", PRED_BASE), 2.15, 0.8);
 }
 
+/* Pteridinium cations are covalently hydrated (Albert): the equilibrium value lies well above
+ * the anhydrous one wherever C4, C6 or C7 carries a hydrogen. 6-methoxy- 3.57, 7-chloro- 3.21
+ * and 4-methylthiopteridine 2.53 (Perrin 1965 via IUPAC dataset, entries of data/iupac-pka.csv,
+ * train split); 2,4,6,7-tetramethylpteridine 2.60 cannot hydrate and stays below the first
+ * three's hydrated level. */
+static void test_handbook__pteridine_cations_hydrate(void)
+{
+	CHECK_NEAR(most_basic("COc1cnc2c(n1)cncn2"), 3.57, 0.8);
+	CHECK_NEAR(most_basic("Clc1cnc2c(n1)ncnc2"), 3.21, 0.8);
+	CHECK_NEAR(most_basic("CSc1ncnc2c1nccn2"), 2.53, 0.8);
+	CHECK_NEAR(most_basic("Cc1nc(C)c2c(n1)nc(c(n2)C)C"), 2.60, 0.8);
+}
+
+/* A dialkylamino group on the azole carbon beside the basic N conjugates as an amidine, as a
+ * primary or secondary one does (corrections.tsv, aminoazole_resonance):
+ * 2-dimethylamino-6,7,8,9-tetrahydro-1H-naphth[1,2-d]imidazole 7.54, 8-dimethylaminopurine 4.75
+ * and 1-methyl-5-nitro-2-piperidinoimidazole 2.72 (Perrin 1965 and its 1972 supplement via
+ * IUPAC dataset, entries perrin2740, perrin2550 and perrin_supp5461 of data/iupac-pka.csv);
+ * without the term they were predicted 4.4, 2.4 and 1.3. */
+static void test_handbook__dialkylamino_azoles_conjugate(void)
+{
+	CHECK_NEAR(site_pka("CN(c1nc2c([nH]1)c1CCCCc1cc2)C", "imidazole", PRED_BASE), 7.54, 1.0);
+	CHECK_NEAR(most_basic("CN(c1nc2c([nH]1)cncn2)C"), 4.75, 1.0);
+	CHECK_NEAR(site_pka("Cn1c(ncc1[N+](=O)[O-])N1CCCCC1", "imidazole", PRED_BASE), 2.72, 1.0);
+}
+
 /* Two alkylamino donors at C4 and C6 of a pyrimidine saturate (corrections.tsv,
  * pyrimidine_alkylamino_saturation): 4,6-bisdimethylaminopyrimidine 6.34 (entry perrin1634 of
  * data/iupac-pka.csv, Perrin 1965), predicted 8.7 from the additive sigma_p terms alone, 7.4
@@ -924,6 +950,8 @@ int main(void)
 	RUN(test_handbook__nitro_on_n_or_o_is_no_base);
 	RUN(test_handbook__acyl_nitro_cyano_guanidines);
 	RUN(test_handbook__fused_pyrimidine_ring_n);
+	RUN(test_handbook__pteridine_cations_hydrate);
+	RUN(test_handbook__dialkylamino_azoles_conjugate);
 	RUN(test_handbook__pyrimidine_alkylamino_donors_saturate);
 	RUN(test_handbook__parallel_saturated_routes_add_to_the_interaction);
 	RUN(test_handbook__two_ortho_groups_each_take_the_ortho_term);
