@@ -1,6 +1,7 @@
 /* SPDX-License-Identifier: MIT */
 /* test_oh_acids.c: carboxylic acid and phenol corrections of fragments/corrections.tsv
- * (ortho groups, hydration, heteroaryl rings, vicinal diacids) against reference rows. */
+ * (ortho groups, hydration, heteroaryl rings, H-bonded diacid monoanions, sulfonates) against
+ * reference rows. */
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -125,6 +126,39 @@ static void test_oh_acids__furan_3_4_diacid_monoanion_is_hydrogen_bonded(void)
 	CHECK_NEAR(v[1], 7.84, 0.8);
 }
 
+/* Two carbon groups on one carbon of a succinic acid hold the carboxyls gauche and the
+ * monoanion H-bonded (diacid_succinic_gem_disubstituted): 2-benzyl-2-methylsuccinic acid
+ * 4.14 / 6.49 (Serjeant & Dempsey 1979 via IUPAC dataset, entry serjeant5567 of
+ * data/iupac-pka.csv); 4.06 / 5.27 without the row. */
+static void test_oh_acids__gem_disubstituted_succinic_monoanion_is_hydrogen_bonded(void)
+{
+	double v[2];
+	CHECK_INT_EQ(acid_steps("OC(=O)C(Cc1ccccc1)(CC(=O)O)C", "carboxylic_acid", v, 2), 2);
+	CHECK(v[1] - v[0] > 1.8); /* measured 2.35 apart */
+	CHECK_NEAR(v[1], 6.49, 0.8);
+}
+
+/* The Hammett constants of SO3- already hold the field of its charge, so a phenol does not
+ * take the stepwise interaction with it as well (phenol_sulfonate_*_bonds): across the ring
+ * fusion a sulfonate acidifies a naphthol, 5-hydroxynaphthalene-1-sulfonic acid 9.11 against
+ * 1-naphthol 9.39 (Serjeant & Dempsey 1979 via IUPAC dataset, entries serjeant5104 and
+ * serjeant4956 of data/iupac-pka.csv); 9.72 without the rows. Tolerance 1.5 x the phenol
+ * class uncertainty (0.3). */
+static void test_oh_acids__sulfonate_charge_is_counted_once(void)
+{
+	CHECK_NEAR(acid_pka("Oc1cccc2c1cccc2S(=O)(=O)O", "phenol"), 9.11, 0.45);
+}
+
+/* An OH beside the ring fusion of an indazole gives part of its charge to the pyrazole N
+ * (phenol_indazole_alpha): 7-hydroxy-1H-indazole-4-sulfonic acid 7.60 and
+ * 4,6-dinitro-1H-indazol-7-ol 2.50 (Serjeant & Dempsey 1979 via IUPAC dataset, entries
+ * serjeant3882 and serjeant3513 of data/iupac-pka.csv); 8.94 and 3.23 without the rows. */
+static void test_oh_acids__indazol_7_ol_is_more_acidic(void)
+{
+	CHECK_NEAR(acid_pka("Oc1ccc(c2c1[nH]nc2)S(=O)(=O)O", "phenol"), 7.60, 0.6);
+	CHECK_NEAR(acid_pka("[O-][N+](=O)c1cc([N+](=O)[O-])c2c(c1O)[nH]nc2", "phenol"), 2.50, 0.6);
+}
+
 int main(void)
 {
 	const char *src = getenv("PKAD_SOURCE_DIR");
@@ -143,6 +177,9 @@ int main(void)
 	RUN(test_oh_acids__glyoxylic_acid_ionises_as_its_hydrate);
 	RUN(test_oh_acids__pyrrole_carboxylic_acid_is_weaker_than_furoic);
 	RUN(test_oh_acids__furan_3_4_diacid_monoanion_is_hydrogen_bonded);
+	RUN(test_oh_acids__gem_disubstituted_succinic_monoanion_is_hydrogen_bonded);
+	RUN(test_oh_acids__sulfonate_charge_is_counted_once);
+	RUN(test_oh_acids__indazol_7_ol_is_more_acidic);
 	pred_worker_free(worker);
 	pred_model_free(model);
 	return harness_done();
