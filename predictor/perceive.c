@@ -49,22 +49,37 @@ static int screen_view(eng_mol *e)
 	if (!e->ring_sizes || !e->kind || !e->scratch)
 		return PRED_ENOMEM;
 	uint32_t kinds = 0;
-	for (size_t a = 0; a < e->nat; a++)
+	int has_h = 0;
+	for (size_t a = 0; a < e->nat; a++) {
 		kinds |= e->kind[a] = sx_kind(e->atoms[a].element, e->atoms[a].aromatic);
+		has_h |= e->atoms[a].element == 1;
+	}
 	for (size_t k = 0; k < e->rings.n_rings; k++) {
 		int size = e->rings.sizes[k];
 		for (int i = 0; i < size && size < 32; i++)
 			e->ring_sizes[e->rings.atoms[e->rings.offsets[k] + i]] |= (uint32_t)1 << size;
 	}
-	e->screen = (sx_mol){e->atoms, e->bonds,      e->nat, e->adj_start, e->adj,
-			     e->adj_bond, e->ring_sizes, e->kind, kinds, e->scratch};
+	const int *ob_bonds;
+	int own = !has_h && obw_mol_atom_bonds(e->mol, &ob_bonds) == 2 * e->nbonds;
+	e->screen = (sx_mol){e->atoms,      e->bonds, e->nat, e->adj_start, e->adj, e->adj_bond,
+			     ob_bonds,      e->ring_sizes, e->kind, kinds,  own,    e->scratch};
 	return 0;
 }
 
-/* The element prefilter, then the graph screen: zero when pattern p cannot match. */
-static int may_match(const eng_mol *e, const smarts_req *req, const smarts_screen *scr)
+/* Matches of a pattern (obw_pattern_match's list): none when the element prefilter says
+ * so, the screen's own when it decides them, else Open Babel's where the screen allows. */
+static int pattern_matches(int **out, const eng_mol *e, const smarts_req *req,
+			   const smarts_screen *scr, const obw_pattern *pat)
 {
-	return smarts_may_match(req, &e->elements) && smarts_screen_may_match(scr, &e->screen);
+	*out = NULL;
+	if (!smarts_may_match(req, &e->elements))
+		return 0;
+	int n = smarts_screen_matches(out, scr, &e->screen);
+	if (n >= 0)
+		return n;
+	if (!smarts_screen_may_match(scr, &e->screen))
+		return 0;
+	return obw_pattern_match(out, pat, e->mol);
 }
 
 /* Substituent groups claim their atoms in table order; an atom belongs to one group. */
@@ -74,12 +89,14 @@ static int claim_groups(eng_mol *e, const pred_worker *w)
 	for (size_t a = 0; a < e->nat; a++)
 		e->group[a] = e->group_root[a] = -1;
 	for (size_t g = 0; g < m->n_substs; g++) {
-		if (!may_match(e, &w->subst_req[g], w->subst_scr[g]))
-			continue;
 		int *hits = NULL;
-		int n = obw_pattern_match(&hits, w->subst_pat[g], e->mol);
-		if (n < 0)
-			return n;
+		int n = pattern_matches(&hits, e, &w->subst_req[g], w->subst_scr[g],
+					w->subst_pat[g]);
+		if (n <= 0) {
+			if (n < 0)
+				return n;
+			continue;
+		}
 		int k = obw_pattern_atom_count(w->subst_pat[g]);
 		for (int i = 0; i < n; i++) {
 			const int *mt = hits + (size_t)i * k;
@@ -130,12 +147,13 @@ static int find_sites(eng_mol *e, const pred_worker *w)
 {
 	const pred_model *m = w->m;
 	for (size_t r = 0; r < m->n_sites; r++) {
-		if (!may_match(e, &w->site_req[r], w->site_scr[r]))
-			continue;
 		int *hits = NULL;
-		int n = obw_pattern_match(&hits, w->site_pat[r], e->mol);
-		if (n < 0)
-			return n;
+		int n = pattern_matches(&hits, e, &w->site_req[r], w->site_scr[r], w->site_pat[r]);
+		if (n <= 0) {
+			if (n < 0)
+				return n;
+			continue;
+		}
 		int k = obw_pattern_atom_count(w->site_pat[r]);
 		int rc = 0;
 		for (int i = 0; i < n && !rc; i++) {
@@ -169,10 +187,10 @@ static int match_corrections(eng_mol *e, const pred_worker *w)
 	size_t used = 0, cap = 0;
 	for (size_t k = 0; k < m->n_corrs; k++) {
 		e->corr_start[k + 1] = (int)used;
-		if (!corr_wanted(e, w, k) || !may_match(e, &w->corr_req[k], w->corr_scr[k]))
+		if (!corr_wanted(e, w, k))
 			continue;
 		int *hits = NULL;
-		int n = obw_pattern_match(&hits, w->corr_pat[k], e->mol);
+		int n = pattern_matches(&hits, e, &w->corr_req[k], w->corr_scr[k], w->corr_pat[k]);
 		if (n < 0)
 			return n;
 		int na = obw_pattern_atom_count(w->corr_pat[k]);

@@ -199,29 +199,189 @@ size_t smarts_screen_scratch(size_t nat)
 	return 2 * (size_t)SX_MAX_PATS * nat + SX_MAX_PATS + SX_MAX_ATOMS * sizeof(int) + 16;
 }
 
+/* Lays the search state over the molecule's scratch memory and clears it. */
+static void init_search(search *x, const smarts_screen *s, const sx_mol *m)
+{
+	size_t total = 0, cells = (size_t)s->n_pats * m->nat;
+	x->s = s;
+	x->m = m;
+	for (int p = 0; p < s->n_pats; p++) {
+		x->map_base[p] = (int)total;
+		total += (size_t)s->pats[p].n_atoms;
+	}
+	/* layout: map (ints, aligned first), memo, used, feasible */
+	x->map = (int *)(void *)m->scratch;
+	x->memo = m->scratch + SX_MAX_ATOMS * sizeof(int);
+	x->used = x->memo + (size_t)SX_MAX_PATS * m->nat;
+	x->feasible = x->used + (size_t)SX_MAX_PATS * m->nat;
+	memset(x->memo, 0, cells);
+	memset(x->feasible, 0, (size_t)s->n_pats);
+}
+
 int smarts_screen_may_match(const smarts_screen *s, const sx_mol *m)
 {
 	if (!s || !m->nat || !m->scratch)
 		return 1;
 	search x;
-	x.s = s;
-	x.m = m;
-	size_t total = 0, cells = (size_t)s->n_pats * m->nat;
-	for (int p = 0; p < s->n_pats; p++) {
-		x.map_base[p] = (int)total;
-		total += (size_t)s->pats[p].n_atoms;
-	}
-	/* layout: map (ints, aligned first), memo, used, feasible */
-	x.map = (int *)(void *)m->scratch;
-	x.memo = m->scratch + SX_MAX_ATOMS * sizeof(int);
-	x.used = x.memo + (size_t)SX_MAX_PATS * m->nat;
-	x.feasible = x.used + (size_t)SX_MAX_PATS * m->nat;
-	memset(x.memo, 0, cells);
-	memset(x.feasible, 0, (size_t)s->n_pats);
+	init_search(&x, s, m);
 	if (!feasible(&x, 0))
 		return 0;
 	for (size_t a = 0; a < m->nat; a++)
 		if (rooted(&x, 0, (int)a, SX_U) != SX_F)
 			return 1;
 	return 0;
+}
+
+/* ---- matches of our own --------------------------------------------------------------- */
+
+typedef struct found {
+	int *maps; /* n ints per embedding, in the screen's atom order */
+	size_t n, cap;
+	int undecided;
+} found;
+
+/* Every embedding of atoms k.. of the main pattern that extends the current map: the true
+ * ones are kept; a "maybe" one makes the whole answer undecided. */
+static void collect(search *x, found *f, int k, int cur)
+{
+	const sx_pat *pt = &x->s->pats[0];
+	const sx_mol *m = x->m;
+	if (k == pt->n_atoms) {
+		if (cur != SX_T || f->n == f->cap) {
+			f->undecided = 1; /* a "maybe", or the store is full */
+			return;
+		}
+		memcpy(f->maps + f->n++ * (size_t)k, x->map, (size_t)k * sizeof *f->maps);
+		return;
+	}
+	const sx_patom *pa = &pt->atoms[k];
+	int from = x->map[pa->parent];
+	for (int j = m->adj_start[from]; j < m->adj_start[from + 1] && !f->undecided; j++) {
+		int atom = m->adj[j];
+		if (x->used[atom] || !(m->kind[atom] & pa->kinds))
+			continue;
+		int v = tv_and(cur, eval(x, pa->bond, -1, &m->bonds[m->adj_bond[j]]));
+		if (v != SX_F)
+			v = tv_and(v, eval(x, pa->expr, atom, NULL));
+		if (v != SX_F)
+			v = tv_and(v, closures_value(x, pt, x->map, k, atom));
+		if (v == SX_F)
+			continue;
+		x->map[k] = atom;
+		x->used[atom] = 1;
+		collect(x, f, k + 1, v);
+		x->used[atom] = 0;
+	}
+}
+
+/* Open Babel's enumeration key of a match in SMARTS order: the first atom's index, then
+ * each atom's place among the neighbours of its parent's atom. */
+static void match_key(int *key, const int *mt, const smarts_screen *s, const sx_mol *m, int n)
+{
+	key[0] = mt[0];
+	for (int i = 1; i < n; i++) {
+		const obw_bond *b = bond_between(m, mt[s->smarts_parent[i]], mt[i]);
+		int from = mt[s->smarts_parent[i]], j = m->adj_start[from], bi = (int)(b - m->bonds);
+		while (j < m->adj_start[from + 1] && m->ob_bonds[j] != bi)
+			j++;
+		key[i] = j - m->adj_start[from];
+	}
+}
+
+static int cmp_keys(const int *a, const int *b, int n)
+{
+	for (int i = 0; i < n; i++)
+		if (a[i] != b[i])
+			return a[i] < b[i] ? -1 : 1;
+	return 0;
+}
+
+/* The first atom and the sorted rest: two matches with one key are one match. */
+static void set_key(int *key, const int *mt, int n)
+{
+	memcpy(key, mt, (size_t)n * sizeof *key);
+	for (int i = 2; i < n; i++)
+		for (int j = i; j > 1 && key[j - 1] > key[j]; j--) {
+			int t = key[j];
+			key[j] = key[j - 1];
+			key[j - 1] = t;
+		}
+}
+
+/* Matches of f (screen order) into out in SMARTS order, sorted by Open Babel's key
+ * (insertion: the lists are short), duplicates by atom set dropped; returns the count. */
+static size_t order_matches(int *out, int *keys, const found *f, const smarts_screen *s,
+			    const sx_mol *m, int n)
+{
+	size_t cnt = 0;
+	for (size_t i = 0; i < f->n; i++) {
+		int *mt = out + cnt * (size_t)n, *key = keys + cnt * (size_t)n;
+		for (int k = 0; k < n; k++)
+			mt[s->smarts_order[k]] = f->maps[i * (size_t)n + (size_t)k];
+		match_key(key, mt, s, m, n);
+		size_t at = cnt++;
+		for (; at > 0 && cmp_keys(keys + (at - 1) * (size_t)n, key, n) > 0; at--)
+			;
+		if (at == cnt - 1)
+			continue;
+		int tm[SX_MAX_ATOMS], tk[SX_MAX_ATOMS];
+		memcpy(tm, mt, (size_t)n * sizeof *tm);
+		memcpy(tk, key, (size_t)n * sizeof *tk);
+		size_t tail = (cnt - 1 - at) * (size_t)n * sizeof *out;
+		memmove(out + (at + 1) * (size_t)n, out + at * (size_t)n, tail);
+		memmove(keys + (at + 1) * (size_t)n, keys + at * (size_t)n, tail);
+		memcpy(out + at * (size_t)n, tm, (size_t)n * sizeof *tm);
+		memcpy(keys + at * (size_t)n, tk, (size_t)n * sizeof *tk);
+	}
+	size_t kept = 0;
+	for (size_t i = 0; i < cnt; i++) {
+		int *key = keys + i * (size_t)n, seen = 0;
+		set_key(key, out + i * (size_t)n, n);
+		for (size_t k = 0; k < kept && !seen; k++)
+			seen = !memcmp(keys + k * (size_t)n, key, (size_t)n * sizeof *key);
+		if (seen)
+			continue;
+		memmove(keys + kept * (size_t)n, key, (size_t)n * sizeof *key);
+		memmove(out + kept * (size_t)n, out + i * (size_t)n, (size_t)n * sizeof *out);
+		kept++;
+	}
+	return kept;
+}
+
+enum { SX_MAX_FOUND = 256 }; /* more embeddings than this: let Open Babel list them */
+
+int smarts_screen_matches(int **out, const smarts_screen *s, const sx_mol *m)
+{
+	*out = NULL;
+	if (!s || !m->nat || !m->scratch || !m->own_matches)
+		return -1;
+	search x;
+	int n = s->pats[0].n_atoms;
+	init_search(&x, s, m);
+	if (!feasible(&x, 0))
+		return 0;
+	found f = {malloc(SX_MAX_FOUND * (size_t)n * sizeof(int)), 0, SX_MAX_FOUND, 0};
+	if (!f.maps)
+		return -1;
+	const sx_patom *pa = &s->pats[0].atoms[0];
+	for (size_t a = 0; a < m->nat && !f.undecided; a++) {
+		if (!(m->kind[a] & pa->kinds))
+			continue;
+		int v = eval(&x, pa->expr, (int)a, NULL);
+		if (v == SX_F)
+			continue;
+		x.map[0] = (int)a;
+		x.used[a] = 1;
+		collect(&x, &f, 1, v);
+		x.used[a] = 0;
+	}
+	int *res = f.undecided || !f.n ? NULL : malloc(2 * f.n * (size_t)n * sizeof *res);
+	if (f.undecided || (f.n && !res)) {
+		free(f.maps);
+		return -1;
+	}
+	size_t kept = f.n ? order_matches(res, res + f.n * (size_t)n, &f, s, m, n) : 0;
+	free(f.maps);
+	*out = res;
+	return (int)kept;
 }

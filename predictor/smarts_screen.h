@@ -56,6 +56,8 @@ typedef struct smarts_screen {
 	int n_nodes;
 	sx_pat *pats; /* pats[0] is the pattern, the rest its recursive parts */
 	int n_pats;
+	int *smarts_order;  /* atom k of pats[0] is atom smarts_order[k] of the SMARTS text */
+	int *smarts_parent; /* per atom in SMARTS order: the atom its bond grows from, -1 first */
 } smarts_screen;
 
 /* The molecule as the screen sees it (borrowed arrays; built once per molecule). */
@@ -68,9 +70,11 @@ typedef struct sx_mol {
 	const obw_bond *bonds;
 	size_t nat;
 	const int *adj_start, *adj, *adj_bond; /* CSR: neighbour and bond index */
+	const int *ob_bonds; /* per atom (from adj_start), its bonds in Open Babel's order */
 	const uint32_t *ring_sizes; /* bit k: the atom is in an SSSR ring of size k (k < 32) */
 	const uint32_t *kind;       /* sx_kind of each atom */
 	uint32_t kinds;             /* union of kind[] */
+	int own_matches; /* the screen may list matches (no H atom in the graph, ob_bonds set) */
 	unsigned char *scratch;     /* smarts_screen_scratch(nat) bytes, owned by the caller */
 } sx_mol;
 
@@ -84,5 +88,13 @@ void smarts_screen_free(smarts_screen *s);
 /* Zero only when the pattern surely has no match in the molecule; nonzero when it may.
  * A NULL screen always may, and so does any failure (out of memory). */
 int smarts_screen_may_match(const smarts_screen *s, const sx_mol *m);
+
+/* The pattern's matches when the screen decides every embedding exactly (no "maybe"
+ * anywhere): the count, with *out holding n ints per match (n = atoms of the pattern, in
+ * SMARTS order), in the order and uniqueness of obw_pattern_match (Open Babel's matcher
+ * order: first atom by index, each further atom by its place among its parent's
+ * neighbours; one match per first atom and atom set). -1 when undecided, unscreened or out
+ * of memory: ask Open Babel. The caller frees *out (NULL when the count is 0 or -1). */
+int smarts_screen_matches(int **out, const smarts_screen *s, const sx_mol *m);
 
 #endif

@@ -405,6 +405,8 @@ void smarts_screen_free(smarts_screen *s)
 	}
 	free(s->pats);
 	free(s->nodes);
+	free(s->smarts_order);
+	free(s->smarts_parent);
 	free(s);
 }
 
@@ -475,9 +477,11 @@ static int root_cost(const sx_patom *pa)
  * the walk, every other bond a ring closure. Whether a pattern may match does not depend on
  * the atom it is searched from; a recursive part keeps its first atom, which is the atom it
  * is about. Returns nonzero when out of memory (the pattern is then left as it was). */
-static int reroot(sx_pat *pt)
+static int reroot(sx_pat *pt, int *smarts_order)
 {
 	int n = pt->n_atoms, ne = n - 1 + pt->n_closures, best = 0, cnt = 1, nc = 0;
+	for (int i = 0; i < n; i++)
+		smarts_order[i] = i;
 	for (int i = 1; i < n; i++)
 		best = root_cost(&pt->atoms[i]) < root_cost(&pt->atoms[best]) ? i : best;
 	if (best == 0)
@@ -524,6 +528,7 @@ static int reroot(sx_pat *pt)
 			cl[nc++] = (sx_closure){a < b ? a : b, a < b ? b : a, bond};
 	}
 	if (cnt == n) {
+		memcpy(smarts_order, order, (size_t)n * sizeof *order);
 		free(pt->atoms);
 		free(pt->closures);
 		pt->atoms = atoms;
@@ -546,8 +551,15 @@ smarts_screen *smarts_screen_new(const char *smarts)
 	parser ps = {s, smarts, smarts + strlen(smarts), 0};
 	parse_pattern(&ps, ps.p, ps.end);
 	if (!ps.bad) {
+		int n = s->pats[0].n_atoms;
 		atom_kinds(s);
-		ps.bad = reroot(&s->pats[0]);
+		s->smarts_order = malloc((size_t)n * sizeof *s->smarts_order);
+		s->smarts_parent = malloc((size_t)n * sizeof *s->smarts_parent);
+		ps.bad = !s->smarts_order || !s->smarts_parent;
+		for (int i = 0; i < n && !ps.bad; i++)
+			s->smarts_parent[i] = s->pats[0].atoms[i].parent;
+		if (!ps.bad)
+			ps.bad = reroot(&s->pats[0], s->smarts_order);
 	}
 	int atoms = 0;
 	for (int p = 0; p < s->n_pats; p++)

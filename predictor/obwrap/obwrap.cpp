@@ -247,6 +247,10 @@ static void rebuild_cache(obw_mol *m, bool reset = true)
 		v.in_ring = b->IsInRing() ? 1 : 0;
 		m->bonds.push_back(v);
 	}
+	m->atom_bonds.clear();
+	FOR_ATOMS_OF_MOL (a, mol)
+		FOR_BONDS_OF_ATOM (b, &*a)
+			m->atom_bonds.push_back((int)b->GetIdx());
 	build_rings(m);
 	smallest_ring_sizes(m);
 	build_tetra(m);
@@ -498,6 +502,12 @@ extern "C" size_t obw_mol_bonds(const obw_mol *m, const obw_bond **out)
 {
 	*out = m->bonds.data();
 	return m->bonds.size();
+}
+
+extern "C" size_t obw_mol_atom_bonds(const obw_mol *m, const int **out)
+{
+	*out = m->atom_bonds.data();
+	return m->atom_bonds.size();
 }
 
 extern "C" size_t obw_mol_tetra(const obw_mol *m, const obw_tetra **out)
