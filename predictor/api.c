@@ -147,6 +147,23 @@ static void free_screens(smarts_screen **s, size_t n)
 	free(s);
 }
 
+/* One value per molecule and atom for each distinct recursive part of all the screens. */
+static int share_recursion(pred_worker *w)
+{
+	const pred_model *m = w->m;
+	sx_shared reg = {NULL, 0, 0};
+	int rc = 0;
+	for (size_t i = 0; i < m->n_sites && !rc; i++)
+		rc = smarts_screen_share(w->site_scr[i], &reg);
+	for (size_t i = 0; i < m->n_substs && !rc; i++)
+		rc = smarts_screen_share(w->subst_scr[i], &reg);
+	for (size_t i = 0; i < m->n_corrs && !rc; i++)
+		rc = smarts_screen_share(w->corr_scr[i], &reg);
+	w->n_shared = reg.n;
+	sx_shared_clear(&reg);
+	return rc ? PRED_ENOMEM : 0;
+}
+
 int pred_worker_new(pred_worker **out, const pred_model *m, pred_error *err)
 {
 	*out = NULL;
@@ -174,6 +191,8 @@ int pred_worker_new(pred_worker **out, const pred_model *m, pred_error *err)
 		rc = screens(&w->subst_scr, m->n_substs, subst_smarts, m);
 	if (!rc)
 		rc = screens(&w->corr_scr, m->n_corrs, corr_smarts, m);
+	if (!rc)
+		rc = share_recursion(w);
 	if (!rc)
 		rc = corr_table(w);
 	if (rc) {

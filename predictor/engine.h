@@ -31,6 +31,7 @@ struct pred_worker {
 	obw_pattern **corr_pat;  /* one per m->corrs row */
 	smarts_req *site_req, *subst_req, *corr_req;
 	smarts_screen **site_scr, **subst_scr, **corr_scr; /* NULL entries: never screened */
+	int n_shared; /* distinct recursive parts of all the screens (smarts_screen_share) */
 	unsigned char *corr_ok; /* corr_ok[k * n_sites + r]: correction k applies to site row r */
 };
 

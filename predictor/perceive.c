@@ -41,11 +41,13 @@ static int build_graph(eng_mol *e)
 }
 
 /* The screen's view of the molecule: the CSR graph plus the SSSR ring sizes of each atom. */
-static int screen_view(eng_mol *e)
+static int screen_view(eng_mol *e, const pred_worker *w)
 {
+	size_t own = smarts_screen_scratch(e->nat);
 	e->ring_sizes = calloc(e->nat + 1, sizeof *e->ring_sizes);
 	e->kind = malloc((e->nat + 1) * sizeof *e->kind);
-	e->scratch = calloc(smarts_screen_scratch(e->nat), 1);
+	/* the screen's scratch, then the values of the shared recursive parts (zero: unknown) */
+	e->scratch = calloc(own + (size_t)w->n_shared * e->nat, 1);
 	if (!e->ring_sizes || !e->kind || !e->scratch)
 		return PRED_ENOMEM;
 	uint32_t kinds = 0;
@@ -59,10 +61,11 @@ static int screen_view(eng_mol *e)
 		for (int i = 0; i < size && size < 32; i++)
 			e->ring_sizes[e->rings.atoms[e->rings.offsets[k] + i]] |= (uint32_t)1 << size;
 	}
-	const int *ob_bonds;
-	int own = !has_h && obw_mol_atom_bonds(e->mol, &ob_bonds) == 2 * e->nbonds;
+	const int *ob_bonds = NULL;
+	int lists = !has_h && obw_mol_atom_bonds(e->mol, &ob_bonds) == 2 * e->nbonds;
 	e->screen = (sx_mol){e->atoms,      e->bonds, e->nat, e->adj_start, e->adj, e->adj_bond,
-			     ob_bonds,      e->ring_sizes, e->kind, kinds,  own,    e->scratch};
+			     ob_bonds,      e->ring_sizes, e->kind, kinds,  lists,  e->scratch,
+			     e->scratch + own};
 	return 0;
 }
 
@@ -256,7 +259,7 @@ int eng_perceive(eng_mol *e, pred_worker *w, obw_mol *mol, pred_error *err)
 	e->group_root = malloc((e->nat + 1) * sizeof *e->group_root);
 	int rc = e->group && e->group_root ? build_graph(e) : PRED_ENOMEM;
 	if (!rc)
-		rc = screen_view(e);
+		rc = screen_view(e, w);
 	/* sites first: a molecule without one needs no substituent perception */
 	if (!rc)
 		rc = find_sites(e, w);

@@ -188,7 +188,10 @@ static int rooted(search *x, int pat, int atom, int target)
 /* A recursive pattern is matched on its own (its atoms may repeat the outer match's). */
 static int recursive_value(search *x, int pat, int atom)
 {
-	unsigned char *slot = &x->memo[(size_t)pat * x->m->nat + (size_t)atom];
+	int shared = x->s->pats[pat].shared;
+	unsigned char *slot = shared >= 0 && x->m->shared
+				      ? &x->m->shared[(size_t)shared * x->m->nat + (size_t)atom]
+				      : &x->memo[(size_t)pat * x->m->nat + (size_t)atom];
 	if (!*slot)
 		*slot = (unsigned char)(1 + (feasible(x, pat) ? rooted(x, pat, atom, SX_T) : SX_F));
 	return *slot - 1;
@@ -234,11 +237,33 @@ int smarts_screen_may_match(const smarts_screen *s, const sx_mol *m)
 
 /* ---- matches of our own --------------------------------------------------------------- */
 
+enum { SX_MAX_FOUND = 4096 }; /* more embeddings than this: let Open Babel list them */
+
 typedef struct found {
 	int *maps; /* n ints per embedding, in the screen's atom order */
 	size_t n, cap;
 	int undecided;
+	int local[512]; /* the first embeddings, before maps moves to the heap */
 } found;
+
+/* Room for one more embedding of n atoms; zero when out of memory or at SX_MAX_FOUND. */
+static int found_room(found *f, int n)
+{
+	if (f->n < f->cap)
+		return 1;
+	size_t cap = 2 * f->cap + 4;
+	if (cap > SX_MAX_FOUND)
+		return 0;
+	int *grown = malloc(cap * (size_t)n * sizeof *grown);
+	if (!grown)
+		return 0;
+	memcpy(grown, f->maps, f->n * (size_t)n * sizeof *grown);
+	if (f->maps != f->local)
+		free(f->maps);
+	f->maps = grown;
+	f->cap = cap;
+	return 1;
+}
 
 /* Every embedding of atoms k.. of the main pattern that extends the current map: the true
  * ones are kept; a "maybe" one makes the whole answer undecided. */
@@ -247,7 +272,7 @@ static void collect(search *x, found *f, int k, int cur)
 	const sx_pat *pt = &x->s->pats[0];
 	const sx_mol *m = x->m;
 	if (k == pt->n_atoms) {
-		if (cur != SX_T || f->n == f->cap) {
+		if (cur != SX_T || !found_room(f, k)) {
 			f->undecided = 1; /* a "maybe", or the store is full */
 			return;
 		}
@@ -348,8 +373,6 @@ static size_t order_matches(int *out, int *keys, const found *f, const smarts_sc
 	return kept;
 }
 
-enum { SX_MAX_FOUND = 256 }; /* more embeddings than this: let Open Babel list them */
-
 int smarts_screen_matches(int **out, const smarts_screen *s, const sx_mol *m)
 {
 	*out = NULL;
@@ -360,9 +383,11 @@ int smarts_screen_matches(int **out, const smarts_screen *s, const sx_mol *m)
 	init_search(&x, s, m);
 	if (!feasible(&x, 0))
 		return 0;
-	found f = {malloc(SX_MAX_FOUND * (size_t)n * sizeof(int)), 0, SX_MAX_FOUND, 0};
-	if (!f.maps)
-		return -1;
+	found f;
+	f.maps = f.local;
+	f.n = 0;
+	f.cap = sizeof f.local / sizeof f.local[0] / (size_t)n;
+	f.undecided = 0;
 	const sx_patom *pa = &s->pats[0].atoms[0];
 	for (size_t a = 0; a < m->nat && !f.undecided; a++) {
 		if (!(m->kind[a] & pa->kinds))
@@ -377,11 +402,13 @@ int smarts_screen_matches(int **out, const smarts_screen *s, const sx_mol *m)
 	}
 	int *res = f.undecided || !f.n ? NULL : malloc(2 * f.n * (size_t)n * sizeof *res);
 	if (f.undecided || (f.n && !res)) {
-		free(f.maps);
+		if (f.maps != f.local)
+			free(f.maps);
 		return -1;
 	}
 	size_t kept = f.n ? order_matches(res, res + f.n * (size_t)n, &f, s, m, n) : 0;
-	free(f.maps);
+	if (f.maps != f.local)
+		free(f.maps);
 	*out = res;
 	return (int)kept;
 }

@@ -49,6 +49,8 @@ typedef struct sx_pat {
 	int n_atoms, n_closures;
 	sx_patom *atoms;
 	sx_closure *closures;
+	char *text;  /* a recursive part's SMARTS (inside "$(...)"), NULL for the pattern */
+	int shared;  /* a recursive part's slot in the molecule's shared values, -1 none */
 } sx_pat;
 
 typedef struct smarts_screen {
@@ -76,7 +78,21 @@ typedef struct sx_mol {
 	uint32_t kinds;             /* union of kind[] */
 	int own_matches; /* the screen may list matches (no H atom in the graph, ob_bonds set) */
 	unsigned char *scratch;     /* smarts_screen_scratch(nat) bytes, owned by the caller */
+	unsigned char *shared;      /* NULL, or shared slots x nat values of the recursive parts
+				       (0 = not yet known), zeroed by the caller per molecule */
 } sx_mol;
+
+/* Distinct recursive parts of a set of screens: each is valued once per molecule and atom
+ * and the value shared by every screen that holds it. */
+typedef struct sx_shared {
+	char **texts;
+	int n, cap;
+} sx_shared;
+
+/* Gives the recursive parts of s their slots in reg (the same text, the same slot).
+ * Returns 0, or -1 when out of memory (s then keeps its own values). */
+int smarts_screen_share(smarts_screen *s, sx_shared *reg);
+void sx_shared_clear(sx_shared *reg);
 
 /* Bytes of scratch the screen needs for a molecule of nat atoms. */
 size_t smarts_screen_scratch(size_t nat);

@@ -100,6 +100,14 @@ static int recursive(parser *ps)
 		return 0;
 	}
 	int sub = parse_pattern(ps, ps->p + 2, q - 1);
+	size_t len = (size_t)(q - 1 - (ps->p + 2));
+	char *text = ps->bad ? NULL : malloc(len + 1);
+	if (text) {
+		memcpy(text, ps->p + 2, len);
+		text[len] = '\0';
+		ps->s->pats[sub].text = text;
+	}
+	ps->bad |= !text;
 	ps->p = q;
 	return prim(ps, SXP_RECURSIVE, sub);
 }
@@ -296,6 +304,7 @@ static int new_pat(parser *ps)
 	}
 	s->pats = grown;
 	memset(&s->pats[s->n_pats], 0, sizeof s->pats[0]);
+	s->pats[s->n_pats].shared = -1;
 	return s->n_pats++;
 }
 
@@ -402,6 +411,7 @@ void smarts_screen_free(smarts_screen *s)
 	for (int i = 0; i < s->n_pats; i++) {
 		free(s->pats[i].atoms);
 		free(s->pats[i].closures);
+		free(s->pats[i].text);
 	}
 	free(s->pats);
 	free(s->nodes);
@@ -541,6 +551,40 @@ static int reroot(sx_pat *pt, int *smarts_order)
 	free(atoms);
 	free(cl);
 	return 0;
+}
+
+int smarts_screen_share(smarts_screen *s, sx_shared *reg)
+{
+	for (int p = 1; s && p < s->n_pats; p++) {
+		int k = 0;
+		while (k < reg->n && strcmp(reg->texts[k], s->pats[p].text))
+			k++;
+		if (k == reg->n) {
+			if (reg->n == reg->cap) {
+				int cap = reg->cap ? 2 * reg->cap : 64;
+				char **grown = realloc(reg->texts, (size_t)cap * sizeof *grown);
+				if (!grown)
+					return -1;
+				reg->texts = grown;
+				reg->cap = cap;
+			}
+			size_t len = strlen(s->pats[p].text);
+			if (!(reg->texts[k] = malloc(len + 1)))
+				return -1;
+			memcpy(reg->texts[k], s->pats[p].text, len + 1);
+			reg->n++;
+		}
+		s->pats[p].shared = k;
+	}
+	return 0;
+}
+
+void sx_shared_clear(sx_shared *reg)
+{
+	for (int k = 0; k < reg->n; k++)
+		free(reg->texts[k]);
+	free(reg->texts);
+	*reg = (sx_shared){NULL, 0, 0};
 }
 
 smarts_screen *smarts_screen_new(const char *smarts)

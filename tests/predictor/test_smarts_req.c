@@ -55,10 +55,10 @@ static void screen_mol_init(screen_mol *s, obw_mol *mol)
 		for (int i = 0; i < r.sizes[k] && r.sizes[k] < 32; i++)
 			s->rings[r.atoms[r.offsets[k] + i]] |= (uint32_t)1 << r.sizes[k];
 	free(fill);
-	const int *ob_bonds;
+	const int *ob_bonds = NULL;
 	int own = !has_h && obw_mol_atom_bonds(mol, &ob_bonds) == 2 * nb;
 	s->m = (sx_mol){atoms,    bonds,   na,    s->adj_start, s->adj,     s->adj_bond, ob_bonds,
-			s->rings, s->kind, kinds, own,          s->scratch};
+			s->rings, s->kind, kinds, own,          s->scratch, NULL};
 }
 
 static void screen_mol_free(screen_mol *s)
@@ -69,6 +69,7 @@ static void screen_mol_free(screen_mol *s)
 	free(s->rings);
 	free(s->kind);
 	free(s->scratch);
+	free(s->m.shared);
 }
 
 static screen_mol screens[2000];
@@ -95,7 +96,10 @@ static void check_own_matches(const char *smarts, const smarts_screen *scr, int 
 	free(own);
 }
 
-static void check_pattern(const char *smarts, obw_mol *const *mols, size_t n)
+/* scr: the pattern's screen, its recursive parts' values shared with every other pattern's
+ * (smarts_screen_share) across the whole run over the molecules */
+static void check_pattern(const char *smarts, smarts_screen *scr, obw_mol *const *mols,
+			  size_t n)
 {
 	char msg[200];
 	obw_pattern *p = obw_pattern_parse(smarts, msg, sizeof msg);
@@ -104,7 +108,6 @@ static void check_pattern(const char *smarts, obw_mol *const *mols, size_t n)
 		return;
 	smarts_req req;
 	smarts_requirements(&req, smarts);
-	smarts_screen *scr = smarts_screen_new(smarts);
 	CHECK(scr != NULL); /* every pattern of the tables is screened */
 	for (size_t i = 0; i < n; i++) {
 		int *hits = NULL;
@@ -128,8 +131,15 @@ static void check_pattern(const char *smarts, obw_mol *const *mols, size_t n)
 			CHECK(0);
 		}
 	}
-	smarts_screen_free(scr);
 	obw_pattern_free(p);
+}
+
+static const char *table_smarts(const pred_model *m, size_t i)
+{
+	if (i < m->n_sites)
+		return m->sites[i].smarts;
+	i -= m->n_sites;
+	return i < m->n_substs ? m->substs[i].smarts : m->corrs[i - m->n_substs].smarts;
 }
 
 static size_t read_smiles(obw_mol **mols, size_t cap, obw_ctx *ctx, const char *path)
@@ -173,14 +183,24 @@ int main(void)
 		n += read_smiles(mols + n, 2000 - n, ctx, path);
 	}
 	CHECK(n > 500);
-	for (size_t i = 0; i < n; i++)
+	size_t n_pats = m->n_sites + m->n_substs + m->n_corrs;
+	smarts_screen **scr = calloc(n_pats, sizeof *scr);
+	sx_shared reg = {NULL, 0, 0};
+	for (size_t k = 0; k < n_pats; k++) {
+		scr[k] = smarts_screen_new(table_smarts(m, k));
+		CHECK(smarts_screen_share(scr[k], &reg) == 0);
+	}
+	CHECK(reg.n > 10); /* the tables share recursive parts */
+	for (size_t i = 0; i < n; i++) {
 		screen_mol_init(&screens[i], mols[i]);
-	for (size_t i = 0; i < m->n_sites; i++)
-		check_pattern(m->sites[i].smarts, mols, n);
-	for (size_t i = 0; i < m->n_substs; i++)
-		check_pattern(m->substs[i].smarts, mols, n);
-	for (size_t i = 0; i < m->n_corrs; i++)
-		check_pattern(m->corrs[i].smarts, mols, n);
+		screens[i].m.shared = calloc((size_t)reg.n * screens[i].m.nat + 1, 1);
+	}
+	for (size_t k = 0; k < n_pats; k++)
+		check_pattern(table_smarts(m, k), scr[k], mols, n);
+	for (size_t k = 0; k < n_pats; k++)
+		smarts_screen_free(scr[k]);
+	free(scr);
+	sx_shared_clear(&reg);
 	/* the screen earns its place: most pattern and molecule pairs cannot match */
 	CHECK(screen_rejects > n * (m->n_sites + m->n_substs + m->n_corrs) / 2);
 	/* and lists the matches itself for most pairs (Open Babel is then not asked) */
