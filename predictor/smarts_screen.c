@@ -99,6 +99,17 @@ static int eval(search *x, int k, int atom, const obw_bond *bond)
 	}
 }
 
+/* Value of pattern atom pa's expression on atom, shared across screens when it can be. */
+static int atom_value(search *x, const sx_patom *pa, int atom)
+{
+	if (pa->shared < 0 || !x->m->shared)
+		return eval(x, pa->expr, atom, NULL);
+	unsigned char *slot = &x->m->shared[(size_t)pa->shared * x->m->nat + (size_t)atom];
+	if (!*slot)
+		*slot = (unsigned char)(1 + eval(x, pa->expr, atom, NULL));
+	return *slot - 1;
+}
+
 /* The molecule bond between atoms a and b, NULL when none. */
 static const obw_bond *bond_between(const sx_mol *m, int a, int b)
 {
@@ -140,7 +151,7 @@ static int extend(search *x, int pat, int k, int cur, int target)
 			continue;
 		int v = tv_and(cur, eval(x, pa->bond, -1, &m->bonds[m->adj_bond[j]]));
 		if (v > best)
-			v = tv_and(v, eval(x, pa->expr, atom, NULL));
+			v = tv_and(v, atom_value(x, pa, atom));
 		if (v > best)
 			v = tv_and(v, closures_value(x, pt, map, k, atom));
 		if (v <= best)
@@ -174,7 +185,7 @@ static int rooted(search *x, int pat, int atom, int target)
 	const sx_pat *pt = &x->s->pats[pat];
 	if (!(x->m->kind[atom] & pt->atoms[0].kinds))
 		return SX_F;
-	int v = eval(x, pt->atoms[0].expr, atom, NULL);
+	int v = atom_value(x, &pt->atoms[0], atom);
 	if (v == SX_F)
 		return SX_F;
 	unsigned char *used = x->used + (size_t)pat * x->m->nat;
@@ -287,7 +298,7 @@ static void collect(search *x, found *f, int k, int cur)
 			continue;
 		int v = tv_and(cur, eval(x, pa->bond, -1, &m->bonds[m->adj_bond[j]]));
 		if (v != SX_F)
-			v = tv_and(v, eval(x, pa->expr, atom, NULL));
+			v = tv_and(v, atom_value(x, pa, atom));
 		if (v != SX_F)
 			v = tv_and(v, closures_value(x, pt, x->map, k, atom));
 		if (v == SX_F)
@@ -392,7 +403,7 @@ int smarts_screen_matches(int **out, const smarts_screen *s, const sx_mol *m)
 	for (size_t a = 0; a < m->nat && !f.undecided; a++) {
 		if (!(m->kind[a] & pa->kinds))
 			continue;
-		int v = eval(&x, pa->expr, (int)a, NULL);
+		int v = atom_value(&x, pa, (int)a);
 		if (v == SX_F)
 			continue;
 		x.map[0] = (int)a;

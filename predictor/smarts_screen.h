@@ -39,6 +39,8 @@ typedef struct sx_patom {
 	int expr;   /* atom expression node */
 	int parent; /* earlier pattern atom bonded to this one, -1 for the first */
 	int bond;   /* expression of that bond */
+	int text_at, text_len; /* the atom's token in the screen's SMARTS text */
+	int shared; /* slot of the expression's values in the molecule's shared values, -1 */
 } sx_patom;
 
 typedef struct sx_closure {
@@ -60,6 +62,7 @@ typedef struct smarts_screen {
 	int n_pats;
 	int *smarts_order;  /* atom k of pats[0] is atom smarts_order[k] of the SMARTS text */
 	int *smarts_parent; /* per atom in SMARTS order: the atom its bond grows from, -1 first */
+	char *smarts;       /* the text compiled */
 } smarts_screen;
 
 /* The molecule as the screen sees it (borrowed arrays; built once per molecule). */
@@ -82,14 +85,15 @@ typedef struct sx_mol {
 				       (0 = not yet known), zeroed by the caller per molecule */
 } sx_mol;
 
-/* Distinct recursive parts of a set of screens: each is valued once per molecule and atom
- * and the value shared by every screen that holds it. */
+/* Distinct recursive parts and atom tokens of a set of screens: each is valued once per
+ * molecule and atom and the value shared by every screen that holds it. */
 typedef struct sx_shared {
 	char **texts;
 	int n, cap;
 } sx_shared;
 
-/* Gives the recursive parts of s their slots in reg (the same text, the same slot).
+/* Gives the recursive parts and atoms of s their slots in reg (the same text, the same
+ * slot).
  * Returns 0, or -1 when out of memory (s then keeps its own values). */
 int smarts_screen_share(smarts_screen *s, sx_shared *reg);
 void sx_shared_clear(sx_shared *reg);

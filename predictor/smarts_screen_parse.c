@@ -12,6 +12,7 @@ typedef struct parser {
 	smarts_screen *s;
 	const char *p, *end;
 	int bad;
+	const char *base; /* start of the whole SMARTS */
 } parser;
 
 static int node(parser *ps, int op, int prim, int value, int a, int b)
@@ -271,7 +272,7 @@ static int bond_expr(parser *ps)
 	return lo;
 }
 
-static int add_atom(parser *ps, sx_pat *pt, int expr, int parent, int bond)
+static int add_atom(parser *ps, sx_pat *pt, int expr, int parent, int bond, const char *tok)
 {
 	sx_patom *grown = realloc(pt->atoms, (size_t)(pt->n_atoms + 1) * sizeof *grown);
 	if (!grown) {
@@ -279,7 +280,8 @@ static int add_atom(parser *ps, sx_pat *pt, int expr, int parent, int bond)
 		return -1;
 	}
 	pt->atoms = grown;
-	pt->atoms[pt->n_atoms] = (sx_patom){0, expr, parent, bond};
+	pt->atoms[pt->n_atoms] =
+	    (sx_patom){0, expr, parent, bond, (int)(tok - ps->base), (int)(ps->p - tok), -1};
 	return pt->n_atoms++;
 }
 
@@ -342,23 +344,26 @@ static void ring_digit(parser *ps, int pi, chain *ch)
 	ch->bond = -1;
 }
 
-static void chain_atom(parser *ps, int pi, chain *ch, int expr)
+/* tok: where the atom's token began (it ends at ps->p) */
+static void chain_atom(parser *ps, int pi, chain *ch, int expr, const char *tok)
 {
 	int bond = ch->bond;
 	if (ch->prev >= 0 && bond < 0)
 		bond = prim(ps, SXB_DEFAULT, 0);
 	if (ps->bad)
 		return;
-	ch->prev = add_atom(ps, &ps->s->pats[pi], expr, ch->prev, ch->prev >= 0 ? bond : -1);
+	ch->prev =
+	    add_atom(ps, &ps->s->pats[pi], expr, ch->prev, ch->prev >= 0 ? bond : -1, tok);
 	ch->bond = -1;
 }
 
 static void chain_step(parser *ps, int pi, chain *ch)
 {
 	char c = *ps->p;
+	const char *tok = ps->p;
 	if (c == '[') {
 		ps->p++;
-		chain_atom(ps, pi, ch, bracket_atom(ps));
+		chain_atom(ps, pi, ch, bracket_atom(ps), tok);
 	} else if (c == '(') {
 		if (ch->depth >= SX_MAX_BRANCH || ch->prev < 0)
 			ps->bad = 1;
@@ -377,7 +382,7 @@ static void chain_step(parser *ps, int pi, chain *ch)
 		ch->bond = bond_expr(ps);
 	} else if (c == '*' || c == 'a' || c == 'A' || (c && strchr("cnospb", c)) ||
 		   (isupper((unsigned char)c) && c != 'H')) {
-		chain_atom(ps, pi, ch, atom_prim(ps, 0, 0));
+		chain_atom(ps, pi, ch, atom_prim(ps, 0, 0), tok);
 	} else {
 		ps->bad = 1; /* '.', '/', '\\', ... */
 	}
@@ -417,6 +422,7 @@ void smarts_screen_free(smarts_screen *s)
 	free(s->nodes);
 	free(s->smarts_order);
 	free(s->smarts_parent);
+	free(s->smarts);
 	free(s);
 }
 
@@ -528,8 +534,9 @@ static int reroot(sx_pat *pt, int *smarts_order)
 	for (int k = 0; k < n && cnt == n; k++) {
 		int old = order[k], e = k ? from[old] : -1;
 		int bond = e < 0 ? -1 : e < n - 1 ? pt->atoms[ea[e]].bond : pt->closures[e - n + 1].bond;
-		atoms[k] = (sx_patom){pt->atoms[old].kinds, pt->atoms[old].expr,
-				      e < 0 ? -1 : pos[ea[e] == old ? eb[e] : ea[e]], bond};
+		atoms[k] = pt->atoms[old];
+		atoms[k].parent = e < 0 ? -1 : pos[ea[e] == old ? eb[e] : ea[e]];
+		atoms[k].bond = bond;
 	}
 	for (int e = 0; e < ne && cnt == n; e++) {
 		int a = pos[ea[e]], b = pos[eb[e]];
@@ -553,28 +560,44 @@ static int reroot(sx_pat *pt, int *smarts_order)
 	return 0;
 }
 
+/* Slot of key (a kind letter, then len bytes of text) in reg; -1 when out of memory. */
+static int shared_slot(sx_shared *reg, char kind, const char *text, size_t len)
+{
+	for (int k = 0; k < reg->n; k++)
+		if (reg->texts[k][0] == kind && !strncmp(reg->texts[k] + 1, text, len) &&
+		    !reg->texts[k][len + 1])
+			return k;
+	if (reg->n == reg->cap) {
+		int cap = reg->cap ? 2 * reg->cap : 64;
+		char **grown = realloc(reg->texts, (size_t)cap * sizeof *grown);
+		if (!grown)
+			return -1;
+		reg->texts = grown;
+		reg->cap = cap;
+	}
+	char *key = malloc(len + 2);
+	if (!key)
+		return -1;
+	key[0] = kind;
+	memcpy(key + 1, text, len);
+	key[len + 1] = '\0';
+	reg->texts[reg->n] = key;
+	return reg->n++;
+}
+
 int smarts_screen_share(smarts_screen *s, sx_shared *reg)
 {
-	for (int p = 1; s && p < s->n_pats; p++) {
-		int k = 0;
-		while (k < reg->n && strcmp(reg->texts[k], s->pats[p].text))
-			k++;
-		if (k == reg->n) {
-			if (reg->n == reg->cap) {
-				int cap = reg->cap ? 2 * reg->cap : 64;
-				char **grown = realloc(reg->texts, (size_t)cap * sizeof *grown);
-				if (!grown)
-					return -1;
-				reg->texts = grown;
-				reg->cap = cap;
-			}
-			size_t len = strlen(s->pats[p].text);
-			if (!(reg->texts[k] = malloc(len + 1)))
+	for (int p = 0; s && p < s->n_pats; p++) {
+		sx_pat *pt = &s->pats[p];
+		if (p > 0 && (pt->shared = shared_slot(reg, '$', pt->text, strlen(pt->text))) < 0)
+			return -1;
+		for (int i = 0; i < pt->n_atoms; i++) {
+			sx_patom *pa = &pt->atoms[i];
+			pa->shared = shared_slot(reg, 'a', s->smarts + pa->text_at,
+						 (size_t)pa->text_len);
+			if (pa->shared < 0)
 				return -1;
-			memcpy(reg->texts[k], s->pats[p].text, len + 1);
-			reg->n++;
 		}
-		s->pats[p].shared = k;
 	}
 	return 0;
 }
@@ -587,23 +610,35 @@ void sx_shared_clear(sx_shared *reg)
 	*reg = (sx_shared){NULL, 0, 0};
 }
 
+/* Reroots the main pattern, keeping its SMARTS atom order and parents (the order Open
+ * Babel lists matches in). Nonzero when out of memory. */
+static int reroot_main(smarts_screen *s)
+{
+	int n = s->pats[0].n_atoms;
+	s->smarts_order = malloc((size_t)n * sizeof *s->smarts_order);
+	s->smarts_parent = malloc((size_t)n * sizeof *s->smarts_parent);
+	if (!s->smarts_order || !s->smarts_parent)
+		return 1;
+	for (int i = 0; i < n; i++)
+		s->smarts_parent[i] = s->pats[0].atoms[i].parent;
+	return reroot(&s->pats[0], s->smarts_order);
+}
+
 smarts_screen *smarts_screen_new(const char *smarts)
 {
 	smarts_screen *s = calloc(1, sizeof *s);
 	if (!s || !smarts)
 		return s ? (free(s), NULL) : NULL;
-	parser ps = {s, smarts, smarts + strlen(smarts), 0};
-	parse_pattern(&ps, ps.p, ps.end);
+	size_t len = strlen(smarts);
+	parser ps = {s, smarts, smarts + len, 0, smarts};
+	if ((s->smarts = malloc(len + 1)))
+		memcpy(s->smarts, smarts, len + 1);
+	ps.bad = !s->smarts;
+	if (!ps.bad)
+		parse_pattern(&ps, ps.p, ps.end);
 	if (!ps.bad) {
-		int n = s->pats[0].n_atoms;
 		atom_kinds(s);
-		s->smarts_order = malloc((size_t)n * sizeof *s->smarts_order);
-		s->smarts_parent = malloc((size_t)n * sizeof *s->smarts_parent);
-		ps.bad = !s->smarts_order || !s->smarts_parent;
-		for (int i = 0; i < n && !ps.bad; i++)
-			s->smarts_parent[i] = s->pats[0].atoms[i].parent;
-		if (!ps.bad)
-			ps.bad = reroot(&s->pats[0], s->smarts_order);
+		ps.bad = reroot_main(s);
 	}
 	int atoms = 0;
 	for (int p = 0; p < s->n_pats; p++)
