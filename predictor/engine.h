@@ -56,6 +56,7 @@ typedef struct eng_mol {
 	uint32_t *ring_sizes; /* per atom, bit k: in an SSSR ring of size k */
 	uint32_t *kind;       /* sx_kind of each atom */
 	unsigned char *scratch; /* the screen's working memory */
+	int *kind_lists;        /* the screen's atoms by kind (sx_kind_lists) */
 	sx_mol screen;  /* the graph as smarts_screen reads it */
 	int *group;     /* substituent row claiming each atom, -1 none */
 	int *group_root; /* root atom of the claim each atom belongs to, -1 none */

@@ -46,9 +46,10 @@ static int screen_view(eng_mol *e, const pred_worker *w)
 	size_t own = smarts_screen_scratch(e->nat);
 	e->ring_sizes = calloc(e->nat + 1, sizeof *e->ring_sizes);
 	e->kind = malloc((e->nat + 1) * sizeof *e->kind);
+	e->kind_lists = malloc((33 + e->nat) * sizeof *e->kind_lists);
 	/* the screen's scratch, then the values of the shared recursive parts (zero: unknown) */
 	e->scratch = calloc(own + (size_t)w->n_shared * e->nat, 1);
-	if (!e->ring_sizes || !e->kind || !e->scratch)
+	if (!e->ring_sizes || !e->kind || !e->kind_lists || !e->scratch)
 		return PRED_ENOMEM;
 	uint32_t kinds = 0;
 	int has_h = 0;
@@ -61,11 +62,14 @@ static int screen_view(eng_mol *e, const pred_worker *w)
 		for (int i = 0; i < size && size < 32; i++)
 			e->ring_sizes[e->rings.atoms[e->rings.offsets[k] + i]] |= (uint32_t)1 << size;
 	}
+	sx_kind_lists(e->kind_lists, e->kind_lists + 33, e->kind, e->nat);
 	const int *ob_bonds = NULL;
 	int lists = !has_h && obw_mol_atom_bonds(e->mol, &ob_bonds) == 2 * e->nbonds;
-	e->screen = (sx_mol){e->atoms,      e->bonds, e->nat, e->adj_start, e->adj, e->adj_bond,
-			     ob_bonds,      e->ring_sizes, e->kind, kinds,  lists,  e->scratch,
-			     e->scratch + own};
+	e->screen = (sx_mol){e->atoms,     e->bonds,		e->nat,
+			     e->adj_start, e->adj,		e->adj_bond,
+			     ob_bonds,	   e->ring_sizes,	e->kind,
+			     e->kind_lists, e->kind_lists + 33, kinds,
+			     lists,	   e->scratch,		e->scratch + own};
 	return 0;
 }
 
@@ -295,6 +299,7 @@ void eng_free(eng_mol *e)
 	free(e->adj_bond);
 	free(e->ring_sizes);
 	free(e->kind);
+	free(e->kind_lists);
 	free(e->scratch);
 	free(e->adj_start);
 	free(e->group);

@@ -15,7 +15,7 @@ typedef struct search {
 	unsigned char *used;     /* n_pats x nat: atoms taken by the embedding of each pattern */
 	unsigned char *feasible; /* per pattern: 0 not yet, 1 no, 2 yes */
 	int *map;                /* pattern atom -> molecule atom, all patterns side by side */
-	int map_base[SX_MAX_PATS];
+	const int *map_base;     /* s->map_base */
 } search;
 
 static int tv_and(int a, int b)
@@ -216,19 +216,16 @@ size_t smarts_screen_scratch(size_t nat)
 /* Lays the search state over the molecule's scratch memory and clears it. */
 static void init_search(search *x, const smarts_screen *s, const sx_mol *m)
 {
-	size_t total = 0, cells = (size_t)s->n_pats * m->nat;
 	x->s = s;
 	x->m = m;
-	for (int p = 0; p < s->n_pats; p++) {
-		x->map_base[p] = (int)total;
-		total += (size_t)s->pats[p].n_atoms;
-	}
+	x->map_base = s->map_base;
 	/* layout: map (ints, aligned first), memo, used, feasible */
 	x->map = (int *)(void *)m->scratch;
 	x->memo = m->scratch + SX_MAX_ATOMS * sizeof(int);
 	x->used = x->memo + (size_t)SX_MAX_PATS * m->nat;
 	x->feasible = x->used + (size_t)SX_MAX_PATS * m->nat;
-	memset(x->memo, 0, cells);
+	if (s->own_memo)
+		memset(x->memo, 0, (size_t)s->n_pats * m->nat);
 	memset(x->feasible, 0, (size_t)s->n_pats);
 }
 
@@ -399,17 +396,21 @@ int smarts_screen_matches(int **out, const smarts_screen *s, const sx_mol *m)
 	f.n = 0;
 	f.cap = sizeof f.local / sizeof f.local[0] / (size_t)n;
 	f.undecided = 0;
+	/* roots kind by kind: the order found does not matter, the list is sorted after */
 	const sx_patom *pa = &s->pats[0].atoms[0];
-	for (size_t a = 0; a < m->nat && !f.undecided; a++) {
-		if (!(m->kind[a] & pa->kinds))
-			continue;
-		int v = atom_value(&x, pa, (int)a);
-		if (v == SX_F)
-			continue;
-		x.map[0] = (int)a;
-		x.used[a] = 1;
-		collect(&x, &f, 1, v);
-		x.used[a] = 0;
+	for (uint32_t ks = pa->kinds & m->kinds; ks && !f.undecided; ks &= ks - 1) {
+		int k = 0;
+		while (!((ks >> k) & 1u))
+			k++;
+		for (int i = m->kind_start[k]; i < m->kind_start[k + 1] && !f.undecided; i++) {
+			int a = m->kind_atoms[i], v = atom_value(&x, pa, a);
+			if (v == SX_F)
+				continue;
+			x.map[0] = a;
+			x.used[a] = 1;
+			collect(&x, &f, 1, v);
+			x.used[a] = 0;
+		}
 	}
 	int *res = f.undecided || !f.n ? NULL : malloc(2 * f.n * (size_t)n * sizeof *res);
 	if (f.undecided || (f.n && !res)) {

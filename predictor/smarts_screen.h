@@ -63,6 +63,8 @@ typedef struct smarts_screen {
 	int *smarts_order;  /* atom k of pats[0] is atom smarts_order[k] of the SMARTS text */
 	int *smarts_parent; /* per atom in SMARTS order: the atom its bond grows from, -1 first */
 	char *smarts;       /* the text compiled */
+	int map_base[SX_MAX_PATS]; /* where each pattern's atoms start in the search's map */
+	int own_memo;       /* some recursive part keeps its values in the search (not shared) */
 } smarts_screen;
 
 /* The molecule as the screen sees it (borrowed arrays; built once per molecule). */
@@ -78,6 +80,8 @@ typedef struct sx_mol {
 	const int *ob_bonds; /* per atom (from adj_start), its bonds in Open Babel's order */
 	const uint32_t *ring_sizes; /* bit k: the atom is in an SSSR ring of size k (k < 32) */
 	const uint32_t *kind;       /* sx_kind of each atom */
+	const int *kind_start;      /* atoms of kind bit k: kind_atoms[kind_start[k]..[k + 1]) */
+	const int *kind_atoms;
 	uint32_t kinds;             /* union of kind[] */
 	int own_matches; /* the screen may list matches (no H atom in the graph, ob_bonds set) */
 	unsigned char *scratch;     /* smarts_screen_scratch(nat) bytes, owned by the caller */
@@ -97,6 +101,10 @@ typedef struct sx_shared {
  * Returns 0, or -1 when out of memory (s then keeps its own values). */
 int smarts_screen_share(smarts_screen *s, sx_shared *reg);
 void sx_shared_clear(sx_shared *reg);
+
+/* Fills kind_start (33 ints) and kind_atoms (nat ints): the atoms of each kind bit in
+ * index order, for sx_mol. */
+void sx_kind_lists(int *kind_start, int *kind_atoms, const uint32_t *kind, size_t nat);
 
 /* Bytes of scratch the screen needs for a molecule of nat atoms. */
 size_t smarts_screen_scratch(size_t nat);

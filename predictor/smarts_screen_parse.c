@@ -429,6 +429,22 @@ void smarts_screen_free(smarts_screen *s)
 static const int kind_elements[] = {1, 5, 6, 7, 8, 9, 14, 15, 16, 17, 34, 35, 53};
 enum { N_KIND_ELEMENTS = sizeof kind_elements / sizeof kind_elements[0] };
 
+void sx_kind_lists(int *kind_start, int *kind_atoms, const uint32_t *kind, size_t nat)
+{
+	memset(kind_start, 0, 33 * sizeof *kind_start);
+	for (size_t a = 0; a < nat; a++)
+		for (int k = 0; k < 32; k++)
+			kind_start[k + 1] += (kind[a] >> k) & 1u;
+	for (int k = 0; k < 32; k++)
+		kind_start[k + 1] += kind_start[k];
+	int fill[32];
+	memcpy(fill, kind_start, sizeof fill);
+	for (size_t a = 0; a < nat; a++)
+		for (int k = 0; k < 32; k++)
+			if ((kind[a] >> k) & 1u)
+				kind_atoms[fill[k]++] = (int)a;
+}
+
 uint32_t sx_kind(int element, int aromatic)
 {
 	for (int i = 0; i < N_KIND_ELEMENTS; i++)
@@ -587,6 +603,8 @@ static int shared_slot(sx_shared *reg, char kind, const char *text, size_t len)
 
 int smarts_screen_share(smarts_screen *s, sx_shared *reg)
 {
+	if (s)
+		s->own_memo = 1; /* until every part has its slot */
 	for (int p = 0; s && p < s->n_pats; p++) {
 		sx_pat *pt = &s->pats[p];
 		if (p > 0 && (pt->shared = shared_slot(reg, '$', pt->text, strlen(pt->text))) < 0)
@@ -599,6 +617,8 @@ int smarts_screen_share(smarts_screen *s, sx_shared *reg)
 				return -1;
 		}
 	}
+	if (s)
+		s->own_memo = 0;
 	return 0;
 }
 
@@ -641,8 +661,11 @@ smarts_screen *smarts_screen_new(const char *smarts)
 		ps.bad = reroot_main(s);
 	}
 	int atoms = 0;
-	for (int p = 0; p < s->n_pats; p++)
+	for (int p = 0; p < s->n_pats && p < SX_MAX_PATS; p++) {
+		s->map_base[p] = atoms;
 		atoms += s->pats[p].n_atoms;
+	}
+	s->own_memo = s->n_pats > 1;
 	if (ps.bad || s->n_pats > SX_MAX_PATS || atoms > SX_MAX_ATOMS) {
 		smarts_screen_free(s);
 		return NULL;

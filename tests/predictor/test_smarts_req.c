@@ -16,6 +16,7 @@ typedef struct screen_mol {
 	sx_mol m;
 	int *adj_start, *adj, *adj_bond;
 	uint32_t *rings, *kind;
+	int *kind_lists;
 	unsigned char *scratch;
 } screen_mol;
 
@@ -55,10 +56,13 @@ static void screen_mol_init(screen_mol *s, obw_mol *mol)
 		for (int i = 0; i < r.sizes[k] && r.sizes[k] < 32; i++)
 			s->rings[r.atoms[r.offsets[k] + i]] |= (uint32_t)1 << r.sizes[k];
 	free(fill);
+	s->kind_lists = malloc((33 + na) * sizeof(int));
+	sx_kind_lists(s->kind_lists, s->kind_lists + 33, s->kind, na);
 	const int *ob_bonds = NULL;
 	int own = !has_h && obw_mol_atom_bonds(mol, &ob_bonds) == 2 * nb;
-	s->m = (sx_mol){atoms,    bonds,   na,    s->adj_start, s->adj,     s->adj_bond, ob_bonds,
-			s->rings, s->kind, kinds, own,          s->scratch, NULL};
+	s->m = (sx_mol){atoms,	   bonds,	      na,    s->adj_start, s->adj, s->adj_bond,
+			ob_bonds,  s->rings,	      s->kind, s->kind_lists, s->kind_lists + 33,
+			kinds,	   own,		      s->scratch, NULL};
 }
 
 static void screen_mol_free(screen_mol *s)
@@ -68,6 +72,7 @@ static void screen_mol_free(screen_mol *s)
 	free(s->adj_bond);
 	free(s->rings);
 	free(s->kind);
+	free(s->kind_lists);
 	free(s->scratch);
 	free(s->m.shared);
 }
