@@ -76,12 +76,12 @@ static int screen_view(eng_mol *e, const pred_worker *w)
 /* Matches of a pattern (obw_pattern_match's list): none when the element prefilter says
  * so, the screen's own when it decides them, else Open Babel's where the screen allows. */
 static int pattern_matches(int **out, const eng_mol *e, const smarts_req *req,
-			   const smarts_screen *scr, const obw_pattern *pat)
+			   const smarts_screen *scr, const obw_pattern *pat, const int *taken)
 {
 	*out = NULL;
 	if (!smarts_may_match(req, &e->elements))
 		return 0;
-	int n = smarts_screen_matches(out, scr, &e->screen);
+	int n = smarts_screen_matches(out, scr, &e->screen, taken);
 	if (n >= 0)
 		return n;
 	if (!smarts_screen_may_match(scr, &e->screen))
@@ -97,8 +97,9 @@ static int claim_groups(eng_mol *e, const pred_worker *w)
 		e->group[a] = e->group_root[a] = -1;
 	for (size_t g = 0; g < m->n_substs; g++) {
 		int *hits = NULL;
+		/* a match holding a claimed atom is of no use: the screen leaves it out */
 		int n = pattern_matches(&hits, e, &w->subst_req[g], w->subst_scr[g],
-					w->subst_pat[g]);
+					w->subst_pat[g], e->group);
 		if (n <= 0) {
 			if (n < 0)
 				return n;
@@ -155,7 +156,8 @@ static int find_sites(eng_mol *e, const pred_worker *w)
 	const pred_model *m = w->m;
 	for (size_t r = 0; r < m->n_sites; r++) {
 		int *hits = NULL;
-		int n = pattern_matches(&hits, e, &w->site_req[r], w->site_scr[r], w->site_pat[r]);
+		int n = pattern_matches(&hits, e, &w->site_req[r], w->site_scr[r], w->site_pat[r],
+					NULL);
 		if (n <= 0) {
 			if (n < 0)
 				return n;
@@ -197,7 +199,8 @@ static int match_corrections(eng_mol *e, const pred_worker *w)
 		if (!corr_wanted(e, w, k))
 			continue;
 		int *hits = NULL;
-		int n = pattern_matches(&hits, e, &w->corr_req[k], w->corr_scr[k], w->corr_pat[k]);
+		int n = pattern_matches(&hits, e, &w->corr_req[k], w->corr_scr[k], w->corr_pat[k],
+					NULL);
 		if (n < 0)
 			return n;
 		int na = obw_pattern_atom_count(w->corr_pat[k]);

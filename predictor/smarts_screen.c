@@ -381,7 +381,7 @@ static size_t order_matches(int *out, int *keys, const found *f, const smarts_sc
 	return kept;
 }
 
-int smarts_screen_matches(int **out, const smarts_screen *s, const sx_mol *m)
+int smarts_screen_matches(int **out, const smarts_screen *s, const sx_mol *m, const int *taken)
 {
 	*out = NULL;
 	if (!s || !m->nat || !m->scratch || !m->own_matches)
@@ -396,6 +396,9 @@ int smarts_screen_matches(int **out, const smarts_screen *s, const sx_mol *m)
 	f.n = 0;
 	f.cap = sizeof f.local / sizeof f.local[0] / (size_t)n;
 	f.undecided = 0;
+	/* a taken atom is used from the start (the main pattern's own marks, pats[0]) */
+	for (size_t a = 0; taken && a < m->nat; a++)
+		x.used[a] = taken[a] >= 0;
 	/* roots kind by kind: the order found does not matter, the list is sorted after */
 	const sx_patom *pa = &s->pats[0].atoms[0];
 	for (uint32_t ks = pa->kinds & m->kinds; ks && !f.undecided; ks &= ks - 1) {
@@ -403,7 +406,7 @@ int smarts_screen_matches(int **out, const smarts_screen *s, const sx_mol *m)
 		while (!((ks >> k) & 1u))
 			k++;
 		for (int i = m->kind_start[k]; i < m->kind_start[k + 1] && !f.undecided; i++) {
-			int a = m->kind_atoms[i], v = atom_value(&x, pa, a);
+			int a = m->kind_atoms[i], v = x.used[a] ? SX_F : atom_value(&x, pa, a);
 			if (v == SX_F)
 				continue;
 			x.map[0] = a;
@@ -412,6 +415,8 @@ int smarts_screen_matches(int **out, const smarts_screen *s, const sx_mol *m)
 			x.used[a] = 0;
 		}
 	}
+	for (size_t a = 0; taken && a < m->nat; a++)
+		x.used[a] = 0;
 	int *res = f.undecided || !f.n ? NULL : malloc(2 * f.n * (size_t)n * sizeof *res);
 	if (f.undecided || (f.n && !res)) {
 		if (f.maps != f.local)

@@ -122,7 +122,9 @@ int smarts_screen_may_match(const smarts_screen *s, const sx_mol *m);
  * SMARTS order), in the order and uniqueness of obw_pattern_match (Open Babel's matcher
  * order: first atom by index, each further atom by its place among its parent's
  * neighbours; one match per first atom and atom set). -1 when undecided, unscreened or out
- * of memory: ask Open Babel. The caller frees *out (NULL when the count is 0 or -1). */
-int smarts_screen_matches(int **out, const smarts_screen *s, const sx_mol *m);
+ * of memory: ask Open Babel. The caller frees *out (NULL when the count is 0 or -1).
+ * taken: NULL, or per atom a value >= 0 for atoms the caller has no use for: the matches
+ * that hold one are left out (the rest keep their order; uniqueness is by atom set). */
+int smarts_screen_matches(int **out, const smarts_screen *s, const sx_mol *m, const int *taken);
 
 #endif
