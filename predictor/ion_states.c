@@ -192,13 +192,18 @@ double ion_work_eval(ion_work *w, double ph)
 		w->frac[s] = w->logw0[s] + w->nrem[s] * ph;
 		mx = w->frac[s] > mx ? w->frac[s] : mx;
 	}
+	/* exp() of an argument below -745.2 is exactly 0, and a zero term changes no sum: such
+	 * states are set to 0 without the call and skipped below (the same bits either way) */
 	for (size_t s = 0; s < w->ns; s++) {
-		w->frac[s] = exp(LN10 * (w->frac[s] - mx));
+		double d = w->frac[s] - mx;
+		w->frac[s] = d < -330 ? 0 : exp(LN10 * d);
 		sum += w->frac[s];
 	}
 	memset(w->qbar, 0, w->n * sizeof *w->qbar);
 	for (size_t s = 0; s < w->ns; s++) {
 		w->frac[s] /= sum;
+		if (w->frac[s] == 0)
+			continue;
 		for (size_t c = 0, b = s; b; c++, b >>= 1)
 			if (b & 1u)
 				w->qbar[w->cl[c]] += w->q_on[w->cl[c]] * w->frac[s];
