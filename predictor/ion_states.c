@@ -192,21 +192,25 @@ double ion_work_eval(ion_work *w, double ph)
 		w->frac[s] = w->logw0[s] + w->nrem[s] * ph;
 		mx = w->frac[s] > mx ? w->frac[s] : mx;
 	}
-	/* exp() of an argument below -745.2 is exactly 0, and a zero term changes no sum: such
-	 * states are set to 0 without the call and skipped below (the same bits either way) */
+	/* exp() of an argument below -745.2 is exactly 0: such states are set to 0 without the
+	 * call (the same bits) */
 	for (size_t s = 0; s < w->ns; s++) {
 		double d = w->frac[s] - mx;
 		w->frac[s] = d < -330 ? 0 : exp(LN10 * d);
 		sum += w->frac[s];
 	}
 	memset(w->qbar, 0, w->n * sizeof *w->qbar);
-	for (size_t s = 0; s < w->ns; s++) {
+	for (size_t s = 0; s < w->ns; s++)
 		w->frac[s] /= sum;
-		if (w->frac[s] == 0)
-			continue;
-		for (size_t c = 0, b = s; b; c++, b >>= 1)
-			if (b & 1u)
-				w->qbar[w->cl[c]] += w->q_on[w->cl[c]] * w->frac[s];
+	/* site by site over the runs of states that hold it, in state order (the same sums) */
+	for (size_t c = 0; c < w->nc; c++) {
+		size_t step = (size_t)1 << c;
+		int q = w->q_on[w->cl[c]];
+		double acc = 0;
+		for (size_t run = step; run < w->ns; run += 2 * step)
+			for (size_t s = run; s < run + step; s++)
+				acc += q * w->frac[s];
+		w->qbar[w->cl[c]] = acc;
 	}
 	eval_extras(w, ph);
 	for (size_t i = 0; i < w->n; i++)
