@@ -76,12 +76,13 @@ static int screen_view(eng_mol *e, const pred_worker *w)
 /* Matches of a pattern (obw_pattern_match's list): none when the element prefilter says
  * so, the screen's own when it decides them, else Open Babel's where the screen allows. */
 static int pattern_matches(int **out, const eng_mol *e, const smarts_req *req,
-			   const smarts_screen *scr, const obw_pattern *pat, const int *taken)
+			   const smarts_screen *scr, const obw_pattern *pat, const int *taken,
+			   const int *first_taken)
 {
 	*out = NULL;
 	if (!smarts_may_match(req, &e->elements))
 		return 0;
-	int n = smarts_screen_matches(out, scr, &e->screen, taken);
+	int n = smarts_screen_matches(out, scr, &e->screen, taken, first_taken);
 	if (n >= 0)
 		return n;
 	if (!smarts_screen_may_match(scr, &e->screen))
@@ -99,7 +100,7 @@ static int claim_groups(eng_mol *e, const pred_worker *w)
 		int *hits = NULL;
 		/* a match holding a claimed atom is of no use: the screen leaves it out */
 		int n = pattern_matches(&hits, e, &w->subst_req[g], w->subst_scr[g],
-					w->subst_pat[g], e->group);
+					w->subst_pat[g], e->group, NULL);
 		if (n <= 0) {
 			if (n < 0)
 				return n;
@@ -154,27 +155,27 @@ static int add_site(eng_mol *e, int row, const int *mt, int k, int centre)
 static int find_sites(eng_mol *e, const pred_worker *w)
 {
 	const pred_model *m = w->m;
-	for (size_t r = 0; r < m->n_sites; r++) {
-		int *hits = NULL;
+	/* per kind and atom: the row of its site, -1 none (a match rooted there is not used) */
+	int *sited = malloc((2 * e->nat + 1) * sizeof *sited), rc = sited ? 0 : PRED_ENOMEM;
+	for (size_t a = 0; sited && a < 2 * e->nat; a++)
+		sited[a] = -1;
+	for (size_t r = 0; r < m->n_sites && !rc; r++) {
+		int *hits = NULL, *of_kind = sited + (m->sites[r].kind == PRED_ACID ? 0 : e->nat);
 		int n = pattern_matches(&hits, e, &w->site_req[r], w->site_scr[r], w->site_pat[r],
-					NULL);
-		if (n <= 0) {
-			if (n < 0)
-				return n;
-			continue;
-		}
-		int k = obw_pattern_atom_count(w->site_pat[r]);
-		int rc = 0;
+					NULL, of_kind);
+		rc = n < 0 ? n : 0;
+		int k = n > 0 ? obw_pattern_atom_count(w->site_pat[r]) : 0;
 		for (int i = 0; i < n && !rc; i++) {
 			const int *mt = hits + (size_t)i * k;
-			if (!has_site(e, mt[0], m->sites[r].kind, m))
-				rc = add_site(e, (int)r, mt, k, m->sites[r].centre);
+			if (has_site(e, mt[0], m->sites[r].kind, m))
+				continue;
+			rc = add_site(e, (int)r, mt, k, m->sites[r].centre);
+			of_kind[mt[0]] = (int)r;
 		}
 		free(hits);
-		if (rc)
-			return rc;
 	}
-	return 0;
+	free(sited);
+	return rc;
 }
 
 /* A correction is matched only when the molecule has a site it applies to. */
@@ -200,7 +201,7 @@ static int match_corrections(eng_mol *e, const pred_worker *w)
 			continue;
 		int *hits = NULL;
 		int n = pattern_matches(&hits, e, &w->corr_req[k], w->corr_scr[k], w->corr_pat[k],
-					NULL);
+					NULL, NULL);
 		if (n < 0)
 			return n;
 		int na = obw_pattern_atom_count(w->corr_pat[k]);

@@ -16,6 +16,8 @@ typedef struct search {
 	unsigned char *feasible; /* per pattern: 0 not yet, 1 no, 2 yes */
 	int *map;                /* pattern atom -> molecule atom, all patterns side by side */
 	const int *map_base;     /* s->map_base */
+	const int *first_taken;  /* atoms the first SMARTS atom may not take (own matches) */
+	int first_k;             /* the main pattern's atom that is the first SMARTS atom */
 } search;
 
 static int tv_and(int a, int b)
@@ -219,6 +221,8 @@ static void init_search(search *x, const smarts_screen *s, const sx_mol *m)
 	x->s = s;
 	x->m = m;
 	x->map_base = s->map_base;
+	x->first_taken = NULL;
+	x->first_k = -1;
 	/* layout: map (ints, aligned first), memo, used, feasible */
 	x->map = (int *)(void *)m->scratch;
 	x->memo = m->scratch + SX_MAX_ATOMS * sizeof(int);
@@ -291,7 +295,8 @@ static void collect(search *x, found *f, int k, int cur)
 	int from = x->map[pa->parent];
 	for (int j = m->adj_start[from]; j < m->adj_start[from + 1] && !f->undecided; j++) {
 		int atom = m->adj[j];
-		if (x->used[atom] || !(m->kind[atom] & pa->kinds))
+		if (x->used[atom] || !(m->kind[atom] & pa->kinds) ||
+		    (k == x->first_k && x->first_taken[atom] >= 0))
 			continue;
 		int v = tv_and(cur, eval(x, pa->bond, -1, &m->bonds[m->adj_bond[j]]));
 		if (v != SX_F)
@@ -381,7 +386,8 @@ static size_t order_matches(int *out, int *keys, const found *f, const smarts_sc
 	return kept;
 }
 
-int smarts_screen_matches(int **out, const smarts_screen *s, const sx_mol *m, const int *taken)
+int smarts_screen_matches(int **out, const smarts_screen *s, const sx_mol *m, const int *taken,
+			  const int *first_taken)
 {
 	*out = NULL;
 	if (!s || !m->nat || !m->scratch || !m->own_matches)
@@ -396,6 +402,11 @@ int smarts_screen_matches(int **out, const smarts_screen *s, const sx_mol *m, co
 	f.n = 0;
 	f.cap = sizeof f.local / sizeof f.local[0] / (size_t)n;
 	f.undecided = 0;
+	for (int k = 0; first_taken && k < n; k++)
+		if (s->smarts_order[k] == 0) {
+			x.first_taken = first_taken;
+			x.first_k = k;
+		}
 	/* a taken atom is used from the start (the main pattern's own marks, pats[0]) */
 	for (size_t a = 0; taken && a < m->nat; a++)
 		x.used[a] = taken[a] >= 0;
@@ -406,7 +417,10 @@ int smarts_screen_matches(int **out, const smarts_screen *s, const sx_mol *m, co
 		while (!((ks >> k) & 1u))
 			k++;
 		for (int i = m->kind_start[k]; i < m->kind_start[k + 1] && !f.undecided; i++) {
-			int a = m->kind_atoms[i], v = x.used[a] ? SX_F : atom_value(&x, pa, a);
+			int a = m->kind_atoms[i];
+			int v = x.used[a] || (x.first_k == 0 && first_taken[a] >= 0)
+					? SX_F
+					: atom_value(&x, pa, a);
 			if (v == SX_F)
 				continue;
 			x.map[0] = a;

@@ -124,7 +124,9 @@ int smarts_screen_may_match(const smarts_screen *s, const sx_mol *m);
  * neighbours; one match per first atom and atom set). -1 when undecided, unscreened or out
  * of memory: ask Open Babel. The caller frees *out (NULL when the count is 0 or -1).
  * taken: NULL, or per atom a value >= 0 for atoms the caller has no use for: the matches
- * that hold one are left out (the rest keep their order; uniqueness is by atom set). */
-int smarts_screen_matches(int **out, const smarts_screen *s, const sx_mol *m, const int *taken);
+ * that hold one are left out (the rest keep their order; uniqueness is by atom set).
+ * first_taken: the same for the pattern's first SMARTS atom only. */
+int smarts_screen_matches(int **out, const smarts_screen *s, const sx_mol *m, const int *taken,
+			  const int *first_taken);
 
 #endif

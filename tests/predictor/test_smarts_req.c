@@ -80,10 +80,10 @@ static void screen_mol_free(screen_mol *s)
 static screen_mol screens[2000];
 static size_t screen_rejects, own_lists;
 
-/* With every third atom taken, the own list is Open Babel's without the matches that hold
- * a taken atom. */
+/* With every third atom taken (first_only: for the first SMARTS atom only), the own list is
+ * Open Babel's without the matches that put a pattern atom on a taken atom. */
 static void check_taken(const char *smarts, const smarts_screen *scr, int k, const int *hits,
-			int na, size_t i)
+			int na, size_t i, int first_only)
 {
 	int taken[SX_MAX_ATOMS * 4], *own = NULL, kept = 0, same = 1;
 	size_t nat = screens[i].m.nat;
@@ -91,18 +91,19 @@ static void check_taken(const char *smarts, const smarts_screen *scr, int k, con
 		return;
 	for (size_t a = 0; a < nat; a++)
 		taken[a] = a % 3 == 0 ? 0 : -1;
-	int n = smarts_screen_matches(&own, scr, &screens[i].m, taken);
+	int n = smarts_screen_matches(&own, scr, &screens[i].m, first_only ? NULL : taken,
+				      first_only ? taken : NULL);
 	for (int h = 0; h < k && n >= 0; h++) {
 		int hit = 0;
-		for (int j = 0; j < na; j++)
+		for (int j = 0; j < (first_only ? 1 : na); j++)
 			hit |= taken[hits[h * na + j]] >= 0;
 		for (int j = 0; !hit && j < na && same; j++)
 			same = kept < n && own[kept * na + j] == hits[h * na + j];
 		kept += !hit;
 	}
 	if (n >= 0 && (!same || kept != n)) {
-		fprintf(stderr, "own matches of '%s' with taken atoms on molecule %zu differ\n",
-			smarts, i);
+		fprintf(stderr, "own matches of '%s' with taken atoms (%s) on molecule %zu differ\n",
+			smarts, first_only ? "first" : "all", i);
 		CHECK(0);
 	}
 	free(own);
@@ -113,9 +114,10 @@ static void check_own_matches(const char *smarts, const smarts_screen *scr, int 
 			      const int *hits, const obw_pattern *p, size_t i)
 {
 	int *own = NULL;
-	int n = smarts_screen_matches(&own, scr, &screens[i].m, NULL);
+	int n = smarts_screen_matches(&own, scr, &screens[i].m, NULL, NULL);
 	int na = obw_pattern_atom_count(p);
-	check_taken(smarts, scr, k, hits, na, i);
+	check_taken(smarts, scr, k, hits, na, i, 0);
+	check_taken(smarts, scr, k, hits, na, i, 1);
 	if (n >= 0) {
 		own_lists++;
 		int same = n == (k > 0 ? k : 0);
