@@ -151,7 +151,7 @@ static void free_screens(smarts_screen **s, size_t n)
 static int share_recursion(pred_worker *w)
 {
 	const pred_model *m = w->m;
-	sx_shared reg = {NULL, 0, 0};
+	sx_shared reg = {NULL, 0, 0, NULL};
 	int rc = 0;
 	for (size_t i = 0; i < m->n_sites && !rc; i++)
 		rc = smarts_screen_share(w->site_scr[i], &reg);

@@ -94,6 +94,7 @@ typedef struct sx_mol {
 typedef struct sx_shared {
 	char **texts;
 	int n, cap;
+	int *slots; /* open hash of the texts: index + 1, 0 empty; 2 * cap entries */
 } sx_shared;
 
 /* Gives the recursive parts and atoms of s their slots in reg (the same text, the same

@@ -429,20 +429,26 @@ void smarts_screen_free(smarts_screen *s)
 static const int kind_elements[] = {1, 5, 6, 7, 8, 9, 14, 15, 16, 17, 34, 35, 53};
 enum { N_KIND_ELEMENTS = sizeof kind_elements / sizeof kind_elements[0] };
 
+/* The bit of an atom's kind (sx_kind sets one). */
+static int kind_bit(uint32_t kind)
+{
+	int k = 0;
+	while (k < 31 && !((kind >> k) & 1u))
+		k++;
+	return k;
+}
+
 void sx_kind_lists(int *kind_start, int *kind_atoms, const uint32_t *kind, size_t nat)
 {
 	memset(kind_start, 0, 33 * sizeof *kind_start);
 	for (size_t a = 0; a < nat; a++)
-		for (int k = 0; k < 32; k++)
-			kind_start[k + 1] += (kind[a] >> k) & 1u;
+		kind_start[kind_bit(kind[a]) + 1]++;
 	for (int k = 0; k < 32; k++)
 		kind_start[k + 1] += kind_start[k];
 	int fill[32];
 	memcpy(fill, kind_start, sizeof fill);
 	for (size_t a = 0; a < nat; a++)
-		for (int k = 0; k < 32; k++)
-			if ((kind[a] >> k) & 1u)
-				kind_atoms[fill[k]++] = (int)a;
+		kind_atoms[fill[kind_bit(kind[a])]++] = (int)a;
 }
 
 uint32_t sx_kind(int element, int aromatic)
@@ -576,21 +582,52 @@ static int reroot(sx_pat *pt, int *smarts_order)
 	return 0;
 }
 
+static size_t key_hash(char kind, const char *text, size_t len)
+{
+	size_t h = (size_t)2166136261u ^ (unsigned char)kind; /* FNV-1a */
+	for (size_t i = 0; i < len; i++)
+		h = (h ^ (unsigned char)text[i]) * 16777619u;
+	return h;
+}
+
+static int same_key(const char *key, char kind, const char *text, size_t len)
+{
+	return key[0] == kind && !strncmp(key + 1, text, len) && !key[len + 1];
+}
+
+/* Doubles the registry (texts and hash); nonzero when out of memory. */
+static int shared_grow(sx_shared *reg)
+{
+	int cap = reg->cap ? 2 * reg->cap : 64;
+	char **texts = realloc(reg->texts, (size_t)cap * sizeof *texts);
+	int *slots = calloc(2 * (size_t)cap, sizeof *slots);
+	if (texts)
+		reg->texts = texts;
+	if (!texts || !slots) {
+		free(slots);
+		return 1;
+	}
+	for (int k = 0; k < reg->n; k++) {
+		size_t h = key_hash(reg->texts[k][0], reg->texts[k] + 1, strlen(reg->texts[k] + 1));
+		while (slots[h % (2 * (size_t)cap)])
+			h++;
+		slots[h % (2 * (size_t)cap)] = k + 1;
+	}
+	free(reg->slots);
+	reg->slots = slots;
+	reg->cap = cap;
+	return 0;
+}
+
 /* Slot of key (a kind letter, then len bytes of text) in reg; -1 when out of memory. */
 static int shared_slot(sx_shared *reg, char kind, const char *text, size_t len)
 {
-	for (int k = 0; k < reg->n; k++)
-		if (reg->texts[k][0] == kind && !strncmp(reg->texts[k] + 1, text, len) &&
-		    !reg->texts[k][len + 1])
-			return k;
-	if (reg->n == reg->cap) {
-		int cap = reg->cap ? 2 * reg->cap : 64;
-		char **grown = realloc(reg->texts, (size_t)cap * sizeof *grown);
-		if (!grown)
-			return -1;
-		reg->texts = grown;
-		reg->cap = cap;
-	}
+	if (reg->n == reg->cap && shared_grow(reg))
+		return -1;
+	size_t h = key_hash(kind, text, len), size = 2 * (size_t)reg->cap;
+	for (; reg->slots[h % size]; h++)
+		if (same_key(reg->texts[reg->slots[h % size] - 1], kind, text, len))
+			return reg->slots[h % size] - 1;
 	char *key = malloc(len + 2);
 	if (!key)
 		return -1;
@@ -598,6 +635,7 @@ static int shared_slot(sx_shared *reg, char kind, const char *text, size_t len)
 	memcpy(key + 1, text, len);
 	key[len + 1] = '\0';
 	reg->texts[reg->n] = key;
+	reg->slots[h % size] = reg->n + 1;
 	return reg->n++;
 }
 
@@ -627,7 +665,8 @@ void sx_shared_clear(sx_shared *reg)
 	for (int k = 0; k < reg->n; k++)
 		free(reg->texts[k]);
 	free(reg->texts);
-	*reg = (sx_shared){NULL, 0, 0};
+	free(reg->slots);
+	*reg = (sx_shared){NULL, 0, 0, NULL};
 }
 
 /* Reroots the main pattern, keeping its SMARTS atom order and parents (the order Open

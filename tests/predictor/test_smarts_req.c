@@ -221,7 +221,7 @@ int main(void)
 	CHECK(n > 500);
 	size_t n_pats = m->n_sites + m->n_substs + m->n_corrs;
 	smarts_screen **scr = calloc(n_pats, sizeof *scr);
-	sx_shared reg = {NULL, 0, 0};
+	sx_shared reg = {NULL, 0, 0, NULL};
 	for (size_t k = 0; k < n_pats; k++) {
 		scr[k] = smarts_screen_new(table_smarts(m, k));
 		CHECK(smarts_screen_share(scr[k], &reg) == 0);
