@@ -47,10 +47,13 @@ static int screen_view(eng_mol *e, const pred_worker *w)
 	e->ring_sizes = calloc(e->nat + 1, sizeof *e->ring_sizes);
 	e->kind = malloc((e->nat + 1) * sizeof *e->kind);
 	e->kind_lists = malloc((33 + e->nat) * sizeof *e->kind_lists);
-	/* the screen's scratch, then the values of the shared recursive parts (zero: unknown) */
-	e->scratch = calloc(own + (size_t)w->n_shared * e->nat, 1);
+	/* the screen's scratch, the values of the shared parts, which rows of them are clear */
+	size_t rows = (size_t)w->n_shared * e->nat;
+	e->scratch = malloc(own + rows + (size_t)w->n_shared + 1);
 	if (!e->ring_sizes || !e->kind || !e->kind_lists || !e->scratch)
 		return PRED_ENOMEM;
+	smarts_screen_scratch_init(e->scratch, e->nat);
+	memset(e->scratch + own + rows, 0, (size_t)w->n_shared);
 	uint32_t kinds = 0;
 	int has_h = 0;
 	for (size_t a = 0; a < e->nat; a++) {
@@ -69,7 +72,8 @@ static int screen_view(eng_mol *e, const pred_worker *w)
 			     e->adj_start, e->adj,		e->adj_bond,
 			     ob_bonds,	   e->ring_sizes,	e->kind,
 			     e->kind_lists, e->kind_lists + 33, kinds,
-			     lists,	   e->scratch,		e->scratch + own};
+			     lists,	   e->scratch,		e->scratch + own,
+			     e->scratch + own + rows};
 	return 0;
 }
 

@@ -101,12 +101,23 @@ static int eval(search *x, int k, int atom, const obw_bond *bond)
 	}
 }
 
+/* The molecule's shared values of slot k, cleared on their first use in the molecule. */
+static unsigned char *shared_row(const sx_mol *m, int k)
+{
+	unsigned char *row = m->shared + (size_t)k * m->nat;
+	if (!m->shared_ready[k]) {
+		memset(row, 0, m->nat);
+		m->shared_ready[k] = 1;
+	}
+	return row;
+}
+
 /* Value of pattern atom pa's expression on atom, shared across screens when it can be. */
 static int atom_value(search *x, const sx_patom *pa, int atom)
 {
 	if (pa->shared < 0 || !x->m->shared)
 		return eval(x, pa->expr, atom, NULL);
-	unsigned char *slot = &x->m->shared[(size_t)pa->shared * x->m->nat + (size_t)atom];
+	unsigned char *slot = shared_row(x->m, pa->shared) + atom;
 	if (!*slot)
 		*slot = (unsigned char)(1 + eval(x, pa->expr, atom, NULL));
 	return *slot - 1;
@@ -203,7 +214,7 @@ static int recursive_value(search *x, int pat, int atom)
 {
 	int shared = x->s->pats[pat].shared;
 	unsigned char *slot = shared >= 0 && x->m->shared
-				      ? &x->m->shared[(size_t)shared * x->m->nat + (size_t)atom]
+				      ? shared_row(x->m, shared) + atom
 				      : &x->memo[(size_t)pat * x->m->nat + (size_t)atom];
 	if (!*slot)
 		*slot = (unsigned char)(1 + (feasible(x, pat) ? rooted(x, pat, atom, SX_T) : SX_F));
@@ -213,6 +224,14 @@ static int recursive_value(search *x, int pat, int atom)
 size_t smarts_screen_scratch(size_t nat)
 {
 	return 2 * (size_t)SX_MAX_PATS * nat + SX_MAX_PATS + SX_MAX_ATOMS * sizeof(int) + 16;
+}
+
+void smarts_screen_scratch_init(unsigned char *scratch, size_t nat)
+{
+	/* the per-pattern used marks (see init_search's layout) start clear and are left clear
+	 * by every search */
+	memset(scratch + SX_MAX_ATOMS * sizeof(int) + (size_t)SX_MAX_PATS * nat, 0,
+	       (size_t)SX_MAX_PATS * nat);
 }
 
 /* Lays the search state over the molecule's scratch memory and clears it. */

@@ -85,8 +85,10 @@ typedef struct sx_mol {
 	uint32_t kinds;             /* union of kind[] */
 	int own_matches; /* the screen may list matches (no H atom in the graph, ob_bonds set) */
 	unsigned char *scratch;     /* smarts_screen_scratch(nat) bytes, owned by the caller */
-	unsigned char *shared;      /* NULL, or shared slots x nat values of the recursive parts
-				       (0 = not yet known), zeroed by the caller per molecule */
+	unsigned char *shared;      /* NULL, or shared slots x nat values (0 = not yet known) of
+				       the shared parts; a slot's row is cleared on first use */
+	unsigned char *shared_ready; /* per shared slot: its row is cleared; the caller zeroes
+					these (not the rows) per molecule */
 } sx_mol;
 
 /* Distinct recursive parts and atom tokens of a set of screens: each is valued once per
@@ -107,8 +109,10 @@ void sx_shared_clear(sx_shared *reg);
  * index order, for sx_mol. */
 void sx_kind_lists(int *kind_start, int *kind_atoms, const uint32_t *kind, size_t nat);
 
-/* Bytes of scratch the screen needs for a molecule of nat atoms. */
+/* Bytes of scratch the screen needs for a molecule of nat atoms, and what must be zero in
+ * it before the first search (the rest the screen clears as it goes). */
 size_t smarts_screen_scratch(size_t nat);
+void smarts_screen_scratch_init(unsigned char *scratch, size_t nat);
 
 /* Compiles smarts; NULL when it uses anything the screen does not read (never screened). */
 smarts_screen *smarts_screen_new(const char *smarts);

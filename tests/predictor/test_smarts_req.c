@@ -32,7 +32,10 @@ static void screen_mol_init(screen_mol *s, obw_mol *mol)
 	s->adj_bond = malloc((2 * nb + 1) * sizeof(int));
 	s->rings = calloc(na + 1, sizeof(uint32_t));
 	s->kind = calloc(na + 1, sizeof(uint32_t));
-	s->scratch = calloc(smarts_screen_scratch(na), 1);
+	/* dirty scratch, made ready the way the engine does it */
+	s->scratch = malloc(smarts_screen_scratch(na));
+	memset(s->scratch, 0x5a, smarts_screen_scratch(na));
+	smarts_screen_scratch_init(s->scratch, na);
 	int *fill = calloc(na + 1, sizeof(int));
 	uint32_t kinds = 0;
 	int has_h = 0;
@@ -62,7 +65,7 @@ static void screen_mol_init(screen_mol *s, obw_mol *mol)
 	int own = !has_h && obw_mol_atom_bonds(mol, &ob_bonds) == 2 * nb;
 	s->m = (sx_mol){atoms,	   bonds,	      na,    s->adj_start, s->adj, s->adj_bond,
 			ob_bonds,  s->rings,	      s->kind, s->kind_lists, s->kind_lists + 33,
-			kinds,	   own,		      s->scratch, NULL};
+			kinds,	   own,		      s->scratch, NULL, NULL};
 }
 
 static void screen_mol_free(screen_mol *s)
@@ -75,6 +78,7 @@ static void screen_mol_free(screen_mol *s)
 	free(s->kind_lists);
 	free(s->scratch);
 	free(s->m.shared);
+	free(s->m.shared_ready);
 }
 
 static screen_mol screens[2000];
@@ -229,7 +233,10 @@ int main(void)
 	CHECK(reg.n > 10); /* the tables share recursive parts */
 	for (size_t i = 0; i < n; i++) {
 		screen_mol_init(&screens[i], mols[i]);
-		screens[i].m.shared = calloc((size_t)reg.n * screens[i].m.nat + 1, 1);
+		/* rows left dirty: the screen must clear a row before its first use */
+		screens[i].m.shared = malloc((size_t)reg.n * screens[i].m.nat + 1);
+		memset(screens[i].m.shared, 0x5a, (size_t)reg.n * screens[i].m.nat + 1);
+		screens[i].m.shared_ready = calloc((size_t)reg.n + 1, 1);
 	}
 	for (size_t k = 0; k < n_pats; k++)
 		check_pattern(table_smarts(m, k), scr[k], mols, n);
