@@ -26,7 +26,7 @@ int smarts_may_match(const smarts_req *r, const smarts_req *mol);
 struct pred_worker {
 	const pred_model *m;
 	obw_ctx *ctx;
-	obw_pattern **site_pat;  /* one per m->sites row */
+	obw_pattern **site_pat;  /* one per m->sites row, compiled on first use (perceive.c) */
 	obw_pattern **subst_pat; /* one per m->substs row */
 	obw_pattern **corr_pat;  /* one per m->corrs row */
 	smarts_req *site_req, *subst_req, *corr_req;

@@ -77,40 +77,55 @@ static int screen_view(eng_mol *e, const pred_worker *w)
 	return 0;
 }
 
-/* Matches of a pattern (obw_pattern_match's list): none when the element prefilter says
- * so, the screen's own when it decides them, else Open Babel's where the screen allows. */
-static int pattern_matches(int **out, const eng_mol *e, const smarts_req *req,
-			   const smarts_screen *scr, const obw_pattern *pat, const int *taken,
-			   const int *first_taken)
+/* One table row's pattern: prefilter, screen, and Open Babel's compiled pattern, which the
+ * worker compiles on first use (the screen lists the matches of most rows itself). */
+typedef struct row_pat {
+	const smarts_req *req;
+	const smarts_screen *scr;
+	obw_pattern **pat;
+	const char *smarts;
+} row_pat;
+
+/* Matches of a row (obw_pattern_match's list, *na atoms each): none when the element
+ * prefilter says so, the screen's own when it decides them, else Open Babel's where the
+ * screen allows. */
+static int pattern_matches(int **out, int *na, const eng_mol *e, const row_pat *rp,
+			   const int *taken, const int *first_taken)
 {
 	*out = NULL;
-	if (!smarts_may_match(req, &e->elements))
+	*na = 0;
+	if (!smarts_may_match(rp->req, &e->elements))
 		return 0;
-	int n = smarts_screen_matches(out, scr, &e->screen, taken, first_taken);
-	if (n >= 0)
+	int n = smarts_screen_matches(out, rp->scr, &e->screen, taken, first_taken);
+	if (n >= 0) {
+		*na = rp->scr->pats[0].n_atoms;
 		return n;
-	if (!smarts_screen_may_match(scr, &e->screen))
+	}
+	if (!smarts_screen_may_match(rp->scr, &e->screen))
 		return 0;
-	return obw_pattern_match(out, pat, e->mol);
+	if (!*rp->pat && !(*rp->pat = obw_pattern_parse(rp->smarts, NULL, 0)))
+		return PRED_ENOMEM; /* the loader has compiled this pattern once already */
+	*na = obw_pattern_atom_count(*rp->pat);
+	return obw_pattern_match(out, *rp->pat, e->mol);
 }
 
 /* Substituent groups claim their atoms in table order; an atom belongs to one group. */
-static int claim_groups(eng_mol *e, const pred_worker *w)
+static int claim_groups(eng_mol *e, pred_worker *w)
 {
 	const pred_model *m = w->m;
 	for (size_t a = 0; a < e->nat; a++)
 		e->group[a] = e->group_root[a] = -1;
 	for (size_t g = 0; g < m->n_substs; g++) {
-		int *hits = NULL;
+		int *hits = NULL, k;
+		row_pat rp = {&w->subst_req[g], w->subst_scr[g], &w->subst_pat[g],
+			      m->substs[g].smarts};
 		/* a match holding a claimed atom is of no use: the screen leaves it out */
-		int n = pattern_matches(&hits, e, &w->subst_req[g], w->subst_scr[g],
-					w->subst_pat[g], e->group, NULL);
+		int n = pattern_matches(&hits, &k, e, &rp, e->group, NULL);
 		if (n <= 0) {
 			if (n < 0)
 				return n;
 			continue;
 		}
-		int k = obw_pattern_atom_count(w->subst_pat[g]);
 		for (int i = 0; i < n; i++) {
 			const int *mt = hits + (size_t)i * k;
 			int free_all = 1;
@@ -156,7 +171,7 @@ static int add_site(eng_mol *e, int row, const int *mt, int k, int centre)
 }
 
 /* Site rows in table order; the first row matching an atom claims it for its kind. */
-static int find_sites(eng_mol *e, const pred_worker *w)
+static int find_sites(eng_mol *e, pred_worker *w)
 {
 	const pred_model *m = w->m;
 	/* per kind and atom: the row of its site, -1 none (a match rooted there is not used) */
@@ -164,11 +179,10 @@ static int find_sites(eng_mol *e, const pred_worker *w)
 	for (size_t a = 0; sited && a < 2 * e->nat; a++)
 		sited[a] = -1;
 	for (size_t r = 0; r < m->n_sites && !rc; r++) {
-		int *hits = NULL, *of_kind = sited + (m->sites[r].kind == PRED_ACID ? 0 : e->nat);
-		int n = pattern_matches(&hits, e, &w->site_req[r], w->site_scr[r], w->site_pat[r],
-					NULL, of_kind);
+		int *hits = NULL, *of_kind = sited + (m->sites[r].kind == PRED_ACID ? 0 : e->nat), k;
+		row_pat rp = {&w->site_req[r], w->site_scr[r], &w->site_pat[r], m->sites[r].smarts};
+		int n = pattern_matches(&hits, &k, e, &rp, NULL, of_kind);
 		rc = n < 0 ? n : 0;
-		int k = n > 0 ? obw_pattern_atom_count(w->site_pat[r]) : 0;
 		for (int i = 0; i < n && !rc; i++) {
 			const int *mt = hits + (size_t)i * k;
 			if (has_site(e, mt[0], m->sites[r].kind, m))
@@ -192,7 +206,7 @@ static int corr_wanted(const eng_mol *e, const pred_worker *w, size_t k)
 }
 
 /* First atoms of every correction pattern's matches, once per molecule. */
-static int match_corrections(eng_mol *e, const pred_worker *w)
+static int match_corrections(eng_mol *e, pred_worker *w)
 {
 	const pred_model *m = w->m;
 	e->corr_start = calloc(m->n_corrs + 1, sizeof *e->corr_start);
@@ -203,12 +217,11 @@ static int match_corrections(eng_mol *e, const pred_worker *w)
 		e->corr_start[k + 1] = (int)used;
 		if (!corr_wanted(e, w, k))
 			continue;
-		int *hits = NULL;
-		int n = pattern_matches(&hits, e, &w->corr_req[k], w->corr_scr[k], w->corr_pat[k],
-					NULL, NULL);
+		int *hits = NULL, na;
+		row_pat rp = {&w->corr_req[k], w->corr_scr[k], &w->corr_pat[k], m->corrs[k].smarts};
+		int n = pattern_matches(&hits, &na, e, &rp, NULL, NULL);
 		if (n < 0)
 			return n;
-		int na = obw_pattern_atom_count(w->corr_pat[k]);
 		for (int i = 0; i < n; i++) {
 			if (used == cap) {
 				cap = cap ? 2 * cap : 16;

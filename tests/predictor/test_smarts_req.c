@@ -149,6 +149,12 @@ static void check_pattern(const char *smarts, smarts_screen *scr, obw_mol *const
 	smarts_req req;
 	smarts_requirements(&req, smarts);
 	CHECK(scr != NULL); /* every pattern of the tables is screened */
+	if (!scr) {
+		obw_pattern_free(p);
+		return;
+	}
+	/* the engine takes the screen's atom count for the lists the screen makes */
+	CHECK_INT_EQ(scr->pats[0].n_atoms, obw_pattern_atom_count(p));
 	for (size_t i = 0; i < n; i++) {
 		int *hits = NULL;
 		int k = obw_pattern_match(&hits, p, mols[i]);
