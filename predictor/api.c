@@ -48,26 +48,12 @@ void pred_options_init(pred_options *opt)
 	opt->curve_step = 0.25;
 }
 
-static int compile_all(obw_pattern ***out, size_t n, const char *(*smarts)(const pred_model *,
-							 size_t),
-		       const pred_model *m, pred_error *err)
+/* Slots for Open Babel's compiled patterns, filled on first use (perceive.c): the loader
+ * has checked that every pattern compiles. */
+static int pattern_slots(obw_pattern ***out, size_t n)
 {
 	*out = calloc(n + 1, sizeof **out);
-	if (!*out)
-		return PRED_ENOMEM;
-	for (size_t i = 0; i < n; i++) {
-		char msg[200] = "";
-		(*out)[i] = obw_pattern_parse(smarts(m, i), msg, sizeof msg);
-		if (!(*out)[i]) {
-			if (err) {
-				err->code = PRED_EDATA;
-				snprintf(err->msg, sizeof err->msg, "invalid SMARTS '%s': %s",
-					 smarts(m, i), msg);
-			}
-			return PRED_EDATA;
-		}
-	}
-	return 0;
+	return *out ? 0 : PRED_ENOMEM;
 }
 
 static const char *site_smarts(const pred_model *m, size_t i)
@@ -147,6 +133,23 @@ static void free_screens(smarts_screen **s, size_t n)
 	free(s);
 }
 
+/* One value per molecule and atom for each distinct recursive part of all the screens. */
+static int share_recursion(pred_worker *w)
+{
+	const pred_model *m = w->m;
+	sx_shared reg = {NULL, 0, 0, NULL};
+	int rc = 0;
+	for (size_t i = 0; i < m->n_sites && !rc; i++)
+		rc = smarts_screen_share(w->site_scr[i], &reg);
+	for (size_t i = 0; i < m->n_substs && !rc; i++)
+		rc = smarts_screen_share(w->subst_scr[i], &reg);
+	for (size_t i = 0; i < m->n_corrs && !rc; i++)
+		rc = smarts_screen_share(w->corr_scr[i], &reg);
+	w->n_shared = reg.n;
+	sx_shared_clear(&reg);
+	return rc ? PRED_ENOMEM : 0;
+}
+
 int pred_worker_new(pred_worker **out, const pred_model *m, pred_error *err)
 {
 	*out = NULL;
@@ -157,11 +160,11 @@ int pred_worker_new(pred_worker **out, const pred_model *m, pred_error *err)
 	w->ctx = obw_ctx_new();
 	int rc = w->ctx ? 0 : PRED_ENOMEM;
 	if (!rc)
-		rc = compile_all(&w->site_pat, m->n_sites, site_smarts, m, err);
+		rc = pattern_slots(&w->site_pat, m->n_sites);
 	if (!rc)
-		rc = compile_all(&w->subst_pat, m->n_substs, subst_smarts, m, err);
+		rc = pattern_slots(&w->subst_pat, m->n_substs);
 	if (!rc)
-		rc = compile_all(&w->corr_pat, m->n_corrs, corr_smarts, m, err);
+		rc = pattern_slots(&w->corr_pat, m->n_corrs);
 	if (!rc)
 		rc = requirements(&w->site_req, m->n_sites, site_smarts, m);
 	if (!rc)
@@ -175,8 +178,14 @@ int pred_worker_new(pred_worker **out, const pred_model *m, pred_error *err)
 	if (!rc)
 		rc = screens(&w->corr_scr, m->n_corrs, corr_smarts, m);
 	if (!rc)
+		rc = share_recursion(w);
+	if (!rc)
 		rc = corr_table(w);
 	if (rc) {
+		if (err) {
+			err->code = rc;
+			snprintf(err->msg, sizeof err->msg, "out of memory preparing a worker");
+		}
 		pred_worker_free(w);
 		return rc;
 	}

@@ -26,11 +26,12 @@ int smarts_may_match(const smarts_req *r, const smarts_req *mol);
 struct pred_worker {
 	const pred_model *m;
 	obw_ctx *ctx;
-	obw_pattern **site_pat;  /* one per m->sites row */
+	obw_pattern **site_pat;  /* one per m->sites row, compiled on first use (perceive.c) */
 	obw_pattern **subst_pat; /* one per m->substs row */
 	obw_pattern **corr_pat;  /* one per m->corrs row */
 	smarts_req *site_req, *subst_req, *corr_req;
 	smarts_screen **site_scr, **subst_scr, **corr_scr; /* NULL entries: never screened */
+	int n_shared; /* distinct recursive parts of all the screens (smarts_screen_share) */
 	unsigned char *corr_ok; /* corr_ok[k * n_sites + r]: correction k applies to site row r */
 };
 
@@ -55,6 +56,7 @@ typedef struct eng_mol {
 	uint32_t *ring_sizes; /* per atom, bit k: in an SSSR ring of size k */
 	uint32_t *kind;       /* sx_kind of each atom */
 	unsigned char *scratch; /* the screen's working memory */
+	int *kind_lists;        /* the screen's atoms by kind (sx_kind_lists) */
 	sx_mol screen;  /* the graph as smarts_screen reads it */
 	int *group;     /* substituent row claiming each atom, -1 none */
 	int *group_root; /* root atom of the claim each atom belongs to, -1 none */

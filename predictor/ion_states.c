@@ -64,31 +64,35 @@ static void choose_cluster(ion_work *w, double ph)
 	}
 }
 
+/* State s is state t = s without its highest site c, plus c: its weight adds c's own term
+ * and c's interactions with the sites of t, in the order a site-by-site sum over s would
+ * add them (so the values are the same to the last bit). */
 static void enumerate(ion_work *w)
 {
 	const pred_site *st = w->r->sites;
-	for (size_t s = 0; s < w->ns; s++) {
-		double lw = 0;
-		int nrem = 0, q = 0;
-		for (size_t c = 0; c < w->nc; c++) {
-			double pka = w->pka[w->cl[c]];
-			int on = (int)((s >> c) & 1u);
-			if (st[w->cl[c]].kind == PRED_ACID) {
-				lw -= on ? pka : 0;
-				nrem += on;
-			} else {
-				lw += on ? pka : 0;
-				nrem += !on;
-			}
-			q += on ? w->q_on[w->cl[c]] : 0;
-			for (size_t d = 0; on && d < c; d++)
-				if ((s >> d) & 1u)
-					lw -= w->q_on[w->cl[c]] * w->q_on[w->cl[d]] *
-					      w->W[(size_t)w->cl[c] * w->n + (size_t)w->cl[d]];
+	int nrem0 = 0;
+	for (size_t c = 0; c < w->nc; c++)
+		nrem0 += st[w->cl[c]].kind != PRED_ACID;
+	w->logw0[0] = 0;
+	w->nrem[0] = nrem0;
+	w->charge[0] = w->fixed;
+	for (size_t c = 0; c < w->nc; c++) {
+		size_t top = (size_t)1 << c;
+		int sc = w->cl[c], acid = st[sc].kind == PRED_ACID;
+		for (size_t t = 0; t < top; t++) {
+			double lw = w->logw0[t];
+			if (acid)
+				lw -= w->pka[sc];
+			else
+				lw += w->pka[sc];
+			for (size_t d = 0; d < c; d++)
+				if ((t >> d) & 1u)
+					lw -= w->q_on[sc] * w->q_on[w->cl[d]] *
+					      w->W[(size_t)sc * w->n + (size_t)w->cl[d]];
+			w->logw0[top | t] = lw;
+			w->nrem[top | t] = w->nrem[t] + (acid ? 1 : -1);
+			w->charge[top | t] = w->charge[t] + w->q_on[sc];
 		}
-		w->logw0[s] = lw;
-		w->nrem[s] = nrem;
-		w->charge[s] = q + w->fixed;
 	}
 }
 
@@ -188,16 +192,25 @@ double ion_work_eval(ion_work *w, double ph)
 		w->frac[s] = w->logw0[s] + w->nrem[s] * ph;
 		mx = w->frac[s] > mx ? w->frac[s] : mx;
 	}
+	/* exp() of an argument below -745.2 is exactly 0: such states are set to 0 without the
+	 * call (the same bits) */
 	for (size_t s = 0; s < w->ns; s++) {
-		w->frac[s] = exp(LN10 * (w->frac[s] - mx));
+		double d = w->frac[s] - mx;
+		w->frac[s] = d < -330 ? 0 : exp(LN10 * d);
 		sum += w->frac[s];
 	}
 	memset(w->qbar, 0, w->n * sizeof *w->qbar);
-	for (size_t s = 0; s < w->ns; s++) {
+	for (size_t s = 0; s < w->ns; s++)
 		w->frac[s] /= sum;
-		for (size_t c = 0; c < w->nc; c++)
-			if ((s >> c) & 1u)
-				w->qbar[w->cl[c]] += w->q_on[w->cl[c]] * w->frac[s];
+	/* site by site over the runs of states that hold it, in state order (the same sums) */
+	for (size_t c = 0; c < w->nc; c++) {
+		size_t step = (size_t)1 << c;
+		int q = w->q_on[w->cl[c]];
+		double acc = 0;
+		for (size_t run = step; run < w->ns; run += 2 * step)
+			for (size_t s = run; s < run + step; s++)
+				acc += q * w->frac[s];
+		w->qbar[w->cl[c]] = acc;
 	}
 	eval_extras(w, ph);
 	for (size_t i = 0; i < w->n; i++)

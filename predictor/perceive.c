@@ -41,46 +41,91 @@ static int build_graph(eng_mol *e)
 }
 
 /* The screen's view of the molecule: the CSR graph plus the SSSR ring sizes of each atom. */
-static int screen_view(eng_mol *e)
+static int screen_view(eng_mol *e, const pred_worker *w)
 {
+	size_t own = smarts_screen_scratch(e->nat);
 	e->ring_sizes = calloc(e->nat + 1, sizeof *e->ring_sizes);
 	e->kind = malloc((e->nat + 1) * sizeof *e->kind);
-	e->scratch = calloc(smarts_screen_scratch(e->nat), 1);
-	if (!e->ring_sizes || !e->kind || !e->scratch)
+	e->kind_lists = malloc((33 + e->nat) * sizeof *e->kind_lists);
+	/* the screen's scratch, the values of the shared parts, which rows of them are clear */
+	size_t rows = (size_t)w->n_shared * e->nat;
+	e->scratch = malloc(own + rows + (size_t)w->n_shared + 1);
+	if (!e->ring_sizes || !e->kind || !e->kind_lists || !e->scratch)
 		return PRED_ENOMEM;
+	smarts_screen_scratch_init(e->scratch, e->nat);
+	memset(e->scratch + own + rows, 0, (size_t)w->n_shared);
 	uint32_t kinds = 0;
-	for (size_t a = 0; a < e->nat; a++)
+	int has_h = 0;
+	for (size_t a = 0; a < e->nat; a++) {
 		kinds |= e->kind[a] = sx_kind(e->atoms[a].element, e->atoms[a].aromatic);
+		has_h |= e->atoms[a].element == 1;
+	}
 	for (size_t k = 0; k < e->rings.n_rings; k++) {
 		int size = e->rings.sizes[k];
 		for (int i = 0; i < size && size < 32; i++)
 			e->ring_sizes[e->rings.atoms[e->rings.offsets[k] + i]] |= (uint32_t)1 << size;
 	}
-	e->screen = (sx_mol){e->atoms, e->bonds,      e->nat, e->adj_start, e->adj,
-			     e->adj_bond, e->ring_sizes, e->kind, kinds, e->scratch};
+	sx_kind_lists(e->kind_lists, e->kind_lists + 33, e->kind, e->nat);
+	const int *ob_bonds = NULL;
+	int lists = !has_h && obw_mol_atom_bonds(e->mol, &ob_bonds) == 2 * e->nbonds;
+	e->screen = (sx_mol){e->atoms,     e->bonds,		e->nat,
+			     e->adj_start, e->adj,		e->adj_bond,
+			     ob_bonds,	   e->ring_sizes,	e->kind,
+			     e->kind_lists, e->kind_lists + 33, kinds,
+			     lists,	   e->scratch,		e->scratch + own,
+			     e->scratch + own + rows};
 	return 0;
 }
 
-/* The element prefilter, then the graph screen: zero when pattern p cannot match. */
-static int may_match(const eng_mol *e, const smarts_req *req, const smarts_screen *scr)
+/* One table row's pattern: prefilter, screen, and Open Babel's compiled pattern, which the
+ * worker compiles on first use (the screen lists the matches of most rows itself). */
+typedef struct row_pat {
+	const smarts_req *req;
+	const smarts_screen *scr;
+	obw_pattern **pat;
+	const char *smarts;
+} row_pat;
+
+/* Matches of a row (obw_pattern_match's list, *na atoms each): none when the element
+ * prefilter says so, the screen's own when it decides them, else Open Babel's where the
+ * screen allows. */
+static int pattern_matches(int **out, int *na, const eng_mol *e, const row_pat *rp,
+			   const int *taken, const int *first_taken)
 {
-	return smarts_may_match(req, &e->elements) && smarts_screen_may_match(scr, &e->screen);
+	*out = NULL;
+	*na = 0;
+	if (!smarts_may_match(rp->req, &e->elements))
+		return 0;
+	int n = smarts_screen_matches(out, rp->scr, &e->screen, taken, first_taken);
+	if (n >= 0) {
+		*na = rp->scr->pats[0].n_atoms;
+		return n;
+	}
+	if (!smarts_screen_may_match(rp->scr, &e->screen))
+		return 0;
+	if (!*rp->pat && !(*rp->pat = obw_pattern_parse(rp->smarts, NULL, 0)))
+		return PRED_ENOMEM; /* the loader has compiled this pattern once already */
+	*na = obw_pattern_atom_count(*rp->pat);
+	return obw_pattern_match(out, *rp->pat, e->mol);
 }
 
 /* Substituent groups claim their atoms in table order; an atom belongs to one group. */
-static int claim_groups(eng_mol *e, const pred_worker *w)
+static int claim_groups(eng_mol *e, pred_worker *w)
 {
 	const pred_model *m = w->m;
 	for (size_t a = 0; a < e->nat; a++)
 		e->group[a] = e->group_root[a] = -1;
 	for (size_t g = 0; g < m->n_substs; g++) {
-		if (!may_match(e, &w->subst_req[g], w->subst_scr[g]))
+		int *hits = NULL, k;
+		row_pat rp = {&w->subst_req[g], w->subst_scr[g], &w->subst_pat[g],
+			      m->substs[g].smarts};
+		/* a match holding a claimed atom is of no use: the screen leaves it out */
+		int n = pattern_matches(&hits, &k, e, &rp, e->group, NULL);
+		if (n <= 0) {
+			if (n < 0)
+				return n;
 			continue;
-		int *hits = NULL;
-		int n = obw_pattern_match(&hits, w->subst_pat[g], e->mol);
-		if (n < 0)
-			return n;
-		int k = obw_pattern_atom_count(w->subst_pat[g]);
+		}
 		for (int i = 0; i < n; i++) {
 			const int *mt = hits + (size_t)i * k;
 			int free_all = 1;
@@ -126,28 +171,29 @@ static int add_site(eng_mol *e, int row, const int *mt, int k, int centre)
 }
 
 /* Site rows in table order; the first row matching an atom claims it for its kind. */
-static int find_sites(eng_mol *e, const pred_worker *w)
+static int find_sites(eng_mol *e, pred_worker *w)
 {
 	const pred_model *m = w->m;
-	for (size_t r = 0; r < m->n_sites; r++) {
-		if (!may_match(e, &w->site_req[r], w->site_scr[r]))
-			continue;
-		int *hits = NULL;
-		int n = obw_pattern_match(&hits, w->site_pat[r], e->mol);
-		if (n < 0)
-			return n;
-		int k = obw_pattern_atom_count(w->site_pat[r]);
-		int rc = 0;
+	/* per kind and atom: the row of its site, -1 none (a match rooted there is not used) */
+	int *sited = malloc((2 * e->nat + 1) * sizeof *sited), rc = sited ? 0 : PRED_ENOMEM;
+	for (size_t a = 0; sited && a < 2 * e->nat; a++)
+		sited[a] = -1;
+	for (size_t r = 0; r < m->n_sites && !rc; r++) {
+		int *hits = NULL, *of_kind = sited + (m->sites[r].kind == PRED_ACID ? 0 : e->nat), k;
+		row_pat rp = {&w->site_req[r], w->site_scr[r], &w->site_pat[r], m->sites[r].smarts};
+		int n = pattern_matches(&hits, &k, e, &rp, NULL, of_kind);
+		rc = n < 0 ? n : 0;
 		for (int i = 0; i < n && !rc; i++) {
 			const int *mt = hits + (size_t)i * k;
-			if (!has_site(e, mt[0], m->sites[r].kind, m))
-				rc = add_site(e, (int)r, mt, k, m->sites[r].centre);
+			if (has_site(e, mt[0], m->sites[r].kind, m))
+				continue;
+			rc = add_site(e, (int)r, mt, k, m->sites[r].centre);
+			of_kind[mt[0]] = (int)r;
 		}
 		free(hits);
-		if (rc)
-			return rc;
 	}
-	return 0;
+	free(sited);
+	return rc;
 }
 
 /* A correction is matched only when the molecule has a site it applies to. */
@@ -160,7 +206,7 @@ static int corr_wanted(const eng_mol *e, const pred_worker *w, size_t k)
 }
 
 /* First atoms of every correction pattern's matches, once per molecule. */
-static int match_corrections(eng_mol *e, const pred_worker *w)
+static int match_corrections(eng_mol *e, pred_worker *w)
 {
 	const pred_model *m = w->m;
 	e->corr_start = calloc(m->n_corrs + 1, sizeof *e->corr_start);
@@ -169,13 +215,13 @@ static int match_corrections(eng_mol *e, const pred_worker *w)
 	size_t used = 0, cap = 0;
 	for (size_t k = 0; k < m->n_corrs; k++) {
 		e->corr_start[k + 1] = (int)used;
-		if (!corr_wanted(e, w, k) || !may_match(e, &w->corr_req[k], w->corr_scr[k]))
+		if (!corr_wanted(e, w, k))
 			continue;
-		int *hits = NULL;
-		int n = obw_pattern_match(&hits, w->corr_pat[k], e->mol);
+		int *hits = NULL, na;
+		row_pat rp = {&w->corr_req[k], w->corr_scr[k], &w->corr_pat[k], m->corrs[k].smarts};
+		int n = pattern_matches(&hits, &na, e, &rp, NULL, NULL);
 		if (n < 0)
 			return n;
-		int na = obw_pattern_atom_count(w->corr_pat[k]);
 		for (int i = 0; i < n; i++) {
 			if (used == cap) {
 				cap = cap ? 2 * cap : 16;
@@ -238,7 +284,7 @@ int eng_perceive(eng_mol *e, pred_worker *w, obw_mol *mol, pred_error *err)
 	e->group_root = malloc((e->nat + 1) * sizeof *e->group_root);
 	int rc = e->group && e->group_root ? build_graph(e) : PRED_ENOMEM;
 	if (!rc)
-		rc = screen_view(e);
+		rc = screen_view(e, w);
 	/* sites first: a molecule without one needs no substituent perception */
 	if (!rc)
 		rc = find_sites(e, w);
@@ -274,6 +320,7 @@ void eng_free(eng_mol *e)
 	free(e->adj_bond);
 	free(e->ring_sizes);
 	free(e->kind);
+	free(e->kind_lists);
 	free(e->scratch);
 	free(e->adj_start);
 	free(e->group);

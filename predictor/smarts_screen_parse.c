@@ -12,6 +12,7 @@ typedef struct parser {
 	smarts_screen *s;
 	const char *p, *end;
 	int bad;
+	const char *base; /* start of the whole SMARTS */
 } parser;
 
 static int node(parser *ps, int op, int prim, int value, int a, int b)
@@ -100,6 +101,14 @@ static int recursive(parser *ps)
 		return 0;
 	}
 	int sub = parse_pattern(ps, ps->p + 2, q - 1);
+	size_t len = (size_t)(q - 1 - (ps->p + 2));
+	char *text = ps->bad ? NULL : malloc(len + 1);
+	if (text) {
+		memcpy(text, ps->p + 2, len);
+		text[len] = '\0';
+		ps->s->pats[sub].text = text;
+	}
+	ps->bad |= !text;
 	ps->p = q;
 	return prim(ps, SXP_RECURSIVE, sub);
 }
@@ -263,7 +272,7 @@ static int bond_expr(parser *ps)
 	return lo;
 }
 
-static int add_atom(parser *ps, sx_pat *pt, int expr, int parent, int bond)
+static int add_atom(parser *ps, sx_pat *pt, int expr, int parent, int bond, const char *tok)
 {
 	sx_patom *grown = realloc(pt->atoms, (size_t)(pt->n_atoms + 1) * sizeof *grown);
 	if (!grown) {
@@ -271,7 +280,8 @@ static int add_atom(parser *ps, sx_pat *pt, int expr, int parent, int bond)
 		return -1;
 	}
 	pt->atoms = grown;
-	pt->atoms[pt->n_atoms] = (sx_patom){0, expr, parent, bond};
+	pt->atoms[pt->n_atoms] =
+	    (sx_patom){0, expr, parent, bond, (int)(tok - ps->base), (int)(ps->p - tok), -1};
 	return pt->n_atoms++;
 }
 
@@ -296,6 +306,7 @@ static int new_pat(parser *ps)
 	}
 	s->pats = grown;
 	memset(&s->pats[s->n_pats], 0, sizeof s->pats[0]);
+	s->pats[s->n_pats].shared = -1;
 	return s->n_pats++;
 }
 
@@ -333,23 +344,26 @@ static void ring_digit(parser *ps, int pi, chain *ch)
 	ch->bond = -1;
 }
 
-static void chain_atom(parser *ps, int pi, chain *ch, int expr)
+/* tok: where the atom's token began (it ends at ps->p) */
+static void chain_atom(parser *ps, int pi, chain *ch, int expr, const char *tok)
 {
 	int bond = ch->bond;
 	if (ch->prev >= 0 && bond < 0)
 		bond = prim(ps, SXB_DEFAULT, 0);
 	if (ps->bad)
 		return;
-	ch->prev = add_atom(ps, &ps->s->pats[pi], expr, ch->prev, ch->prev >= 0 ? bond : -1);
+	ch->prev =
+	    add_atom(ps, &ps->s->pats[pi], expr, ch->prev, ch->prev >= 0 ? bond : -1, tok);
 	ch->bond = -1;
 }
 
 static void chain_step(parser *ps, int pi, chain *ch)
 {
 	char c = *ps->p;
+	const char *tok = ps->p;
 	if (c == '[') {
 		ps->p++;
-		chain_atom(ps, pi, ch, bracket_atom(ps));
+		chain_atom(ps, pi, ch, bracket_atom(ps), tok);
 	} else if (c == '(') {
 		if (ch->depth >= SX_MAX_BRANCH || ch->prev < 0)
 			ps->bad = 1;
@@ -368,7 +382,7 @@ static void chain_step(parser *ps, int pi, chain *ch)
 		ch->bond = bond_expr(ps);
 	} else if (c == '*' || c == 'a' || c == 'A' || (c && strchr("cnospb", c)) ||
 		   (isupper((unsigned char)c) && c != 'H')) {
-		chain_atom(ps, pi, ch, atom_prim(ps, 0, 0));
+		chain_atom(ps, pi, ch, atom_prim(ps, 0, 0), tok);
 	} else {
 		ps->bad = 1; /* '.', '/', '\\', ... */
 	}
@@ -402,14 +416,40 @@ void smarts_screen_free(smarts_screen *s)
 	for (int i = 0; i < s->n_pats; i++) {
 		free(s->pats[i].atoms);
 		free(s->pats[i].closures);
+		free(s->pats[i].text);
 	}
 	free(s->pats);
 	free(s->nodes);
+	free(s->smarts_order);
+	free(s->smarts_parent);
+	free(s->smarts);
 	free(s);
 }
 
 static const int kind_elements[] = {1, 5, 6, 7, 8, 9, 14, 15, 16, 17, 34, 35, 53};
 enum { N_KIND_ELEMENTS = sizeof kind_elements / sizeof kind_elements[0] };
+
+/* The bit of an atom's kind (sx_kind sets one). */
+static int kind_bit(uint32_t kind)
+{
+	int k = 0;
+	while (k < 31 && !((kind >> k) & 1u))
+		k++;
+	return k;
+}
+
+void sx_kind_lists(int *kind_start, int *kind_atoms, const uint32_t *kind, size_t nat)
+{
+	memset(kind_start, 0, 33 * sizeof *kind_start);
+	for (size_t a = 0; a < nat; a++)
+		kind_start[kind_bit(kind[a]) + 1]++;
+	for (int k = 0; k < 32; k++)
+		kind_start[k + 1] += kind_start[k];
+	int fill[32];
+	memcpy(fill, kind_start, sizeof fill);
+	for (size_t a = 0; a < nat; a++)
+		kind_atoms[fill[kind_bit(kind[a])]++] = (int)a;
+}
 
 uint32_t sx_kind(int element, int aromatic)
 {
@@ -475,9 +515,11 @@ static int root_cost(const sx_patom *pa)
  * the walk, every other bond a ring closure. Whether a pattern may match does not depend on
  * the atom it is searched from; a recursive part keeps its first atom, which is the atom it
  * is about. Returns nonzero when out of memory (the pattern is then left as it was). */
-static int reroot(sx_pat *pt)
+static int reroot(sx_pat *pt, int *smarts_order)
 {
 	int n = pt->n_atoms, ne = n - 1 + pt->n_closures, best = 0, cnt = 1, nc = 0;
+	for (int i = 0; i < n; i++)
+		smarts_order[i] = i;
 	for (int i = 1; i < n; i++)
 		best = root_cost(&pt->atoms[i]) < root_cost(&pt->atoms[best]) ? i : best;
 	if (best == 0)
@@ -514,8 +556,9 @@ static int reroot(sx_pat *pt)
 	for (int k = 0; k < n && cnt == n; k++) {
 		int old = order[k], e = k ? from[old] : -1;
 		int bond = e < 0 ? -1 : e < n - 1 ? pt->atoms[ea[e]].bond : pt->closures[e - n + 1].bond;
-		atoms[k] = (sx_patom){pt->atoms[old].kinds, pt->atoms[old].expr,
-				      e < 0 ? -1 : pos[ea[e] == old ? eb[e] : ea[e]], bond};
+		atoms[k] = pt->atoms[old];
+		atoms[k].parent = e < 0 ? -1 : pos[ea[e] == old ? eb[e] : ea[e]];
+		atoms[k].bond = bond;
 	}
 	for (int e = 0; e < ne && cnt == n; e++) {
 		int a = pos[ea[e]], b = pos[eb[e]];
@@ -524,6 +567,7 @@ static int reroot(sx_pat *pt)
 			cl[nc++] = (sx_closure){a < b ? a : b, a < b ? b : a, bond};
 	}
 	if (cnt == n) {
+		memcpy(smarts_order, order, (size_t)n * sizeof *order);
 		free(pt->atoms);
 		free(pt->closures);
 		pt->atoms = atoms;
@@ -538,20 +582,42 @@ static int reroot(sx_pat *pt)
 	return 0;
 }
 
+/* Reroots the main pattern, keeping its SMARTS atom order and parents (the order Open
+ * Babel lists matches in). Nonzero when out of memory. */
+static int reroot_main(smarts_screen *s)
+{
+	int n = s->pats[0].n_atoms;
+	s->smarts_order = malloc((size_t)n * sizeof *s->smarts_order);
+	s->smarts_parent = malloc((size_t)n * sizeof *s->smarts_parent);
+	if (!s->smarts_order || !s->smarts_parent)
+		return 1;
+	for (int i = 0; i < n; i++)
+		s->smarts_parent[i] = s->pats[0].atoms[i].parent;
+	return reroot(&s->pats[0], s->smarts_order);
+}
+
 smarts_screen *smarts_screen_new(const char *smarts)
 {
 	smarts_screen *s = calloc(1, sizeof *s);
 	if (!s || !smarts)
 		return s ? (free(s), NULL) : NULL;
-	parser ps = {s, smarts, smarts + strlen(smarts), 0};
-	parse_pattern(&ps, ps.p, ps.end);
+	size_t len = strlen(smarts);
+	parser ps = {s, smarts, smarts + len, 0, smarts};
+	if ((s->smarts = malloc(len + 1)))
+		memcpy(s->smarts, smarts, len + 1);
+	ps.bad = !s->smarts;
+	if (!ps.bad)
+		parse_pattern(&ps, ps.p, ps.end);
 	if (!ps.bad) {
 		atom_kinds(s);
-		ps.bad = reroot(&s->pats[0]);
+		ps.bad = reroot_main(s);
 	}
 	int atoms = 0;
-	for (int p = 0; p < s->n_pats; p++)
+	for (int p = 0; p < s->n_pats && p < SX_MAX_PATS; p++) {
+		s->map_base[p] = atoms;
 		atoms += s->pats[p].n_atoms;
+	}
+	s->own_memo = s->n_pats > 1;
 	if (ps.bad || s->n_pats > SX_MAX_PATS || atoms > SX_MAX_ATOMS) {
 		smarts_screen_free(s);
 		return NULL;

@@ -247,6 +247,10 @@ static void rebuild_cache(obw_mol *m, bool reset = true)
 		v.in_ring = b->IsInRing() ? 1 : 0;
 		m->bonds.push_back(v);
 	}
+	m->atom_bonds.clear();
+	FOR_ATOMS_OF_MOL (a, mol)
+		FOR_BONDS_OF_ATOM (b, &*a)
+			m->atom_bonds.push_back((int)b->GetIdx());
 	build_rings(m);
 	smallest_ring_sizes(m);
 	build_tetra(m);
@@ -500,6 +504,12 @@ extern "C" size_t obw_mol_bonds(const obw_mol *m, const obw_bond **out)
 	return m->bonds.size();
 }
 
+extern "C" size_t obw_mol_atom_bonds(const obw_mol *m, const int **out)
+{
+	*out = m->atom_bonds.data();
+	return m->atom_bonds.size();
+}
+
 extern "C" size_t obw_mol_tetra(const obw_mol *m, const obw_tetra **out)
 {
 	*out = m->tetra.data();
@@ -555,37 +565,37 @@ extern "C" int obw_mol_symmetry(obw_mol *m, int *cls, size_t n, char *msg, size_
 
 /* ---- editing -------------------------------------------------------------------------- */
 
+static int find_root(std::vector<int> &up, int a)
+{
+	while (up[(size_t)a] != a)
+		a = up[(size_t)a] = up[(size_t)up[(size_t)a]];
+	return a;
+}
+
+/* Union-find over the bonds; a component's number is the order of its lowest atom. */
 extern "C" size_t obw_mol_components(const obw_mol *m, int *comp, size_t n)
 {
 	size_t na = m->atoms.size();
 	if (n < na)
 		return 0;
-	for (size_t i = 0; i < na; i++)
-		comp[i] = -1;
-	std::vector<std::vector<int>> adj(na);
-	for (const obw_bond &b : m->bonds) {
-		adj[(size_t)b.a].push_back(b.b);
-		adj[(size_t)b.b].push_back(b.a);
-	}
-	int count = 0;
-	std::vector<int> stack;
-	for (size_t s = 0; s < na; s++) {
-		if (comp[s] >= 0)
-			continue;
-		comp[s] = count;
-		stack.assign(1, (int)s);
-		while (!stack.empty()) {
-			int a = stack.back();
-			stack.pop_back();
-			for (int nb : adj[(size_t)a])
-				if (comp[nb] < 0) {
-					comp[nb] = count;
-					stack.push_back(nb);
-				}
+	try {
+		std::vector<int> up(na);
+		for (size_t i = 0; i < na; i++)
+			up[i] = (int)i;
+		for (const obw_bond &b : m->bonds) {
+			int x = find_root(up, b.a), y = find_root(up, b.b);
+			if (x != y)
+				up[(size_t)(x > y ? x : y)] = x < y ? x : y;
 		}
-		count++;
+		int count = 0;
+		for (size_t i = 0; i < na; i++) {
+			int r = find_root(up, (int)i);
+			comp[i] = (size_t)r == i ? count++ : comp[r];
+		}
+		return (size_t)count;
+	} catch (...) {
+		return 0;
 	}
-	return (size_t)count;
 }
 
 extern "C" int obw_mol_keep_atoms(obw_mol *m, const unsigned char *keep, size_t n, char *msg,

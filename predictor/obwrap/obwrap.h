@@ -64,6 +64,10 @@ typedef struct obw_bond {
 /** Borrowed arrays, valid until the molecule is changed or freed. Return the count. */
 size_t obw_mol_atoms(const obw_mol *m, const obw_atom **out);
 size_t obw_mol_bonds(const obw_mol *m, const obw_bond **out);
+/** Each atom's bonds (indices into obw_mol_bonds) in Open Babel's own neighbour order (the
+ *  order its SMARTS matcher walks), atom after atom; borrowed like obw_mol_atoms. Returns
+ *  the count, twice the bonds. */
+size_t obw_mol_atom_bonds(const obw_mol *m, const int **out);
 
 /** Smallest set of smallest rings: *n_rings rings; ring k has sizes[k] atoms listed in
  *  ring order in atoms[offsets[k] .. offsets[k]+sizes[k]). Borrowed, like obw_mol_atoms. */

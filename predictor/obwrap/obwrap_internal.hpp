@@ -32,6 +32,7 @@ struct obw_mol {
 	std::vector<int> orig; /* input index of each OB atom (idx - 1) */
 	std::vector<obw_atom> atoms;
 	std::vector<obw_bond> bonds;
+	std::vector<int> atom_bonds; /* each atom's bond indices in Open Babel's order */
 	std::vector<int> ring_sizes, ring_offsets, ring_atoms;
 	std::vector<obw_tetra> tetra;   /* specified tetrahedral centres */
 	size_t n_cistrans = 0;          /* specified cis/trans double bonds */

@@ -16,6 +16,7 @@ typedef struct screen_mol {
 	sx_mol m;
 	int *adj_start, *adj, *adj_bond;
 	uint32_t *rings, *kind;
+	int *kind_lists;
 	unsigned char *scratch;
 } screen_mol;
 
@@ -31,9 +32,13 @@ static void screen_mol_init(screen_mol *s, obw_mol *mol)
 	s->adj_bond = malloc((2 * nb + 1) * sizeof(int));
 	s->rings = calloc(na + 1, sizeof(uint32_t));
 	s->kind = calloc(na + 1, sizeof(uint32_t));
-	s->scratch = calloc(smarts_screen_scratch(na), 1);
+	/* dirty scratch, made ready the way the engine does it */
+	s->scratch = malloc(smarts_screen_scratch(na));
+	memset(s->scratch, 0x5a, smarts_screen_scratch(na));
+	smarts_screen_scratch_init(s->scratch, na);
 	int *fill = calloc(na + 1, sizeof(int));
 	uint32_t kinds = 0;
+	int has_h = 0;
 	for (size_t i = 0; i < nb; i++) {
 		s->adj_start[bonds[i].a + 1]++;
 		s->adj_start[bonds[i].b + 1]++;
@@ -41,6 +46,7 @@ static void screen_mol_init(screen_mol *s, obw_mol *mol)
 	for (size_t a = 0; a < na; a++) {
 		s->adj_start[a + 1] += s->adj_start[a];
 		kinds |= s->kind[a] = sx_kind(atoms[a].element, atoms[a].aromatic);
+		has_h |= atoms[a].element == 1;
 	}
 	for (size_t i = 0; i < nb; i++) {
 		int a = bonds[i].a, b = bonds[i].b;
@@ -53,8 +59,13 @@ static void screen_mol_init(screen_mol *s, obw_mol *mol)
 		for (int i = 0; i < r.sizes[k] && r.sizes[k] < 32; i++)
 			s->rings[r.atoms[r.offsets[k] + i]] |= (uint32_t)1 << r.sizes[k];
 	free(fill);
-	s->m = (sx_mol){atoms,    bonds,   na,      s->adj_start, s->adj, s->adj_bond,
-			s->rings, s->kind, kinds, s->scratch};
+	s->kind_lists = malloc((33 + na) * sizeof(int));
+	sx_kind_lists(s->kind_lists, s->kind_lists + 33, s->kind, na);
+	const int *ob_bonds = NULL;
+	int own = !has_h && obw_mol_atom_bonds(mol, &ob_bonds) == 2 * nb;
+	s->m = (sx_mol){atoms,	   bonds,	      na,    s->adj_start, s->adj, s->adj_bond,
+			ob_bonds,  s->rings,	      s->kind, s->kind_lists, s->kind_lists + 33,
+			kinds,	   own,		      s->scratch, NULL, NULL};
 }
 
 static void screen_mol_free(screen_mol *s)
@@ -64,13 +75,71 @@ static void screen_mol_free(screen_mol *s)
 	free(s->adj_bond);
 	free(s->rings);
 	free(s->kind);
+	free(s->kind_lists);
 	free(s->scratch);
+	free(s->m.shared);
+	free(s->m.shared_ready);
 }
 
 static screen_mol screens[2000];
-static size_t screen_rejects;
+static size_t screen_rejects, own_lists;
 
-static void check_pattern(const char *smarts, obw_mol *const *mols, size_t n)
+/* With every third atom taken (first_only: for the first SMARTS atom only), the own list is
+ * Open Babel's without the matches that put a pattern atom on a taken atom. */
+static void check_taken(const char *smarts, const smarts_screen *scr, int k, const int *hits,
+			int na, size_t i, int first_only)
+{
+	int taken[SX_MAX_ATOMS * 4], *own = NULL, kept = 0, same = 1;
+	size_t nat = screens[i].m.nat;
+	if (nat > sizeof taken / sizeof taken[0])
+		return;
+	for (size_t a = 0; a < nat; a++)
+		taken[a] = a % 3 == 0 ? 0 : -1;
+	int n = smarts_screen_matches(&own, scr, &screens[i].m, first_only ? NULL : taken,
+				      first_only ? taken : NULL);
+	for (int h = 0; h < k && n >= 0; h++) {
+		int hit = 0;
+		for (int j = 0; j < (first_only ? 1 : na); j++)
+			hit |= taken[hits[h * na + j]] >= 0;
+		for (int j = 0; !hit && j < na && same; j++)
+			same = kept < n && own[kept * na + j] == hits[h * na + j];
+		kept += !hit;
+	}
+	if (n >= 0 && (!same || kept != n)) {
+		fprintf(stderr, "own matches of '%s' with taken atoms (%s) on molecule %zu differ\n",
+			smarts, first_only ? "first" : "all", i);
+		CHECK(0);
+	}
+	free(own);
+}
+
+/* Where the screen lists the matches itself, the list is Open Babel's, order included. */
+static void check_own_matches(const char *smarts, const smarts_screen *scr, int k,
+			      const int *hits, const obw_pattern *p, size_t i)
+{
+	int *own = NULL;
+	int n = smarts_screen_matches(&own, scr, &screens[i].m, NULL, NULL);
+	int na = obw_pattern_atom_count(p);
+	check_taken(smarts, scr, k, hits, na, i, 0);
+	check_taken(smarts, scr, k, hits, na, i, 1);
+	if (n >= 0) {
+		own_lists++;
+		int same = n == (k > 0 ? k : 0);
+		for (int j = 0; same && j < n * na; j++)
+			same = own[j] == hits[j];
+		if (!same) {
+			fprintf(stderr, "own matches of '%s' on molecule %zu differ (%d, open babel %d)\n",
+				smarts, i, n, k);
+			CHECK(0);
+		}
+	}
+	free(own);
+}
+
+/* scr: the pattern's screen, its recursive parts' values shared with every other pattern's
+ * (smarts_screen_share) across the whole run over the molecules */
+static void check_pattern(const char *smarts, smarts_screen *scr, obw_mol *const *mols,
+			  size_t n)
 {
 	char msg[200];
 	obw_pattern *p = obw_pattern_parse(smarts, msg, sizeof msg);
@@ -79,11 +148,17 @@ static void check_pattern(const char *smarts, obw_mol *const *mols, size_t n)
 		return;
 	smarts_req req;
 	smarts_requirements(&req, smarts);
-	smarts_screen *scr = smarts_screen_new(smarts);
 	CHECK(scr != NULL); /* every pattern of the tables is screened */
+	if (!scr) {
+		obw_pattern_free(p);
+		return;
+	}
+	/* the engine takes the screen's atom count for the lists the screen makes */
+	CHECK_INT_EQ(scr->pats[0].n_atoms, obw_pattern_atom_count(p));
 	for (size_t i = 0; i < n; i++) {
 		int *hits = NULL;
 		int k = obw_pattern_match(&hits, p, mols[i]);
+		check_own_matches(smarts, scr, k, hits, p, i);
 		free(hits);
 		int may = smarts_screen_may_match(scr, &screens[i].m);
 		if (k > 0 && !may) {
@@ -102,8 +177,15 @@ static void check_pattern(const char *smarts, obw_mol *const *mols, size_t n)
 			CHECK(0);
 		}
 	}
-	smarts_screen_free(scr);
 	obw_pattern_free(p);
+}
+
+static const char *table_smarts(const pred_model *m, size_t i)
+{
+	if (i < m->n_sites)
+		return m->sites[i].smarts;
+	i -= m->n_sites;
+	return i < m->n_substs ? m->substs[i].smarts : m->corrs[i - m->n_substs].smarts;
 }
 
 static size_t read_smiles(obw_mol **mols, size_t cap, obw_ctx *ctx, const char *path)
@@ -147,16 +229,31 @@ int main(void)
 		n += read_smiles(mols + n, 2000 - n, ctx, path);
 	}
 	CHECK(n > 500);
-	for (size_t i = 0; i < n; i++)
+	size_t n_pats = m->n_sites + m->n_substs + m->n_corrs;
+	smarts_screen **scr = calloc(n_pats, sizeof *scr);
+	sx_shared reg = {NULL, 0, 0, NULL};
+	for (size_t k = 0; k < n_pats; k++) {
+		scr[k] = smarts_screen_new(table_smarts(m, k));
+		CHECK(smarts_screen_share(scr[k], &reg) == 0);
+	}
+	CHECK(reg.n > 10); /* the tables share recursive parts */
+	for (size_t i = 0; i < n; i++) {
 		screen_mol_init(&screens[i], mols[i]);
-	for (size_t i = 0; i < m->n_sites; i++)
-		check_pattern(m->sites[i].smarts, mols, n);
-	for (size_t i = 0; i < m->n_substs; i++)
-		check_pattern(m->substs[i].smarts, mols, n);
-	for (size_t i = 0; i < m->n_corrs; i++)
-		check_pattern(m->corrs[i].smarts, mols, n);
+		/* rows left dirty: the screen must clear a row before its first use */
+		screens[i].m.shared = malloc((size_t)reg.n * screens[i].m.nat + 1);
+		memset(screens[i].m.shared, 0x5a, (size_t)reg.n * screens[i].m.nat + 1);
+		screens[i].m.shared_ready = calloc((size_t)reg.n + 1, 1);
+	}
+	for (size_t k = 0; k < n_pats; k++)
+		check_pattern(table_smarts(m, k), scr[k], mols, n);
+	for (size_t k = 0; k < n_pats; k++)
+		smarts_screen_free(scr[k]);
+	free(scr);
+	sx_shared_clear(&reg);
 	/* the screen earns its place: most pattern and molecule pairs cannot match */
 	CHECK(screen_rejects > n * (m->n_sites + m->n_substs + m->n_corrs) / 2);
+	/* and lists the matches itself for most pairs (Open Babel is then not asked) */
+	CHECK(own_lists > n * (m->n_sites + m->n_substs + m->n_corrs) / 2);
 	/* a carboxylic acid pattern on ethanol passes the element prefilter, not the screen;
 	 * it matches acetic acid (common practice) */
 	smarts_screen *acid = smarts_screen_new("[OX2H1][CX3]=O");
