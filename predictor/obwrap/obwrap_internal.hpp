@@ -1,5 +1,5 @@
 // SPDX-License-Identifier: MIT
-// obwrap_internal.hpp: the wrapper's own C++ types, shared by obwrap.cpp and obwrap_smiles.cpp.
+// obwrap_internal.hpp: the wrapper's own C++ types, shared by the wrapper's .cpp files.
 #ifndef PKAD_OBWRAP_INTERNAL_HPP
 #define PKAD_OBWRAP_INTERNAL_HPP
 
@@ -50,6 +50,13 @@ void obw_set_msg(char *msg, size_t msgn, const char *fmt, ...)
 /* Makes the calling thread's Open Babel typers ready under the locale lock (obwrap.cpp);
  * cheap after the first call in a thread. Every entry point that can perceive calls it. */
 void obw_thread_ready(void);
+/* A short, printable excerpt of user text for messages (obwrap.cpp). */
+std::string obw_excerpt(const std::string &s);
+/* Views of the current graph; reset forgets the toolkit's perception first, as after edits
+ * (obwrap_graph.cpp). */
+void obw_rebuild_cache(obw_mol *m, bool reset = true);
+/* Folds ordinary explicit hydrogens into their heavy atom; returns how many. */
+size_t obw_fold_hydrogens(obw_mol *m);
 /* malloc'd copy of s, NULL when out of memory. */
 char *obw_dup_string(const std::string &s);
 
