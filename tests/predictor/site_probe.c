@@ -3,6 +3,7 @@
  * through the public API with the worker set by probe_use. */
 #include <math.h>
 #include <stdio.h>
+#include <stdlib.h>
 #include <string.h>
 
 #include "site_probe.h"
@@ -12,6 +13,28 @@ static pred_worker *worker;
 void probe_use(pred_worker *w)
 {
 	worker = w;
+}
+
+int probe_setup(pred_model **model, pred_worker **w)
+{
+	const char *src = getenv("PKAD_SOURCE_DIR");
+	char dir[1024];
+	snprintf(dir, sizeof dir, "%s/fragments", src ? src : ".");
+	pred_error err = {0};
+	if (pred_global_init(&err) || pred_model_load(model, dir, &err) ||
+	    pred_worker_new(w, *model, &err)) {
+		fprintf(stderr, "setup: %s\n", err.msg);
+		return 1;
+	}
+	probe_use(*w);
+	return 0;
+}
+
+void probe_teardown(pred_model *model, pred_worker *w)
+{
+	pred_worker_free(w);
+	pred_model_free(model);
+	worker = NULL;
 }
 
 /* pKa (and uncertainty, when unc is not NULL) of the first site of this group and kind;

@@ -9,6 +9,10 @@
 
 /* The worker the helpers below predict with. */
 void probe_use(pred_worker *w);
+/* Loads the model of $PKAD_SOURCE_DIR/fragments, makes a worker and uses it; 1 (with a message
+ * on stderr) when that fails. */
+int probe_setup(pred_model **model, pred_worker **w);
+void probe_teardown(pred_model *model, pred_worker *w);
 
 /* pKa (and uncertainty, when unc is not NULL) of the first site of this group and kind;
  * NAN when the molecule has none. */

@@ -129,16 +129,8 @@ static void test_acid_terms__fused_azole_nh_counts_ring_substituents_once(void)
 
 int main(void)
 {
-	const char *src = getenv("PKAD_SOURCE_DIR");
-	char dir[1024];
-	snprintf(dir, sizeof dir, "%s/fragments", src ? src : ".");
-	pred_error err = {0};
-	if (pred_global_init(&err) || pred_model_load(&model, dir, &err) ||
-	    pred_worker_new(&worker, model, &err)) {
-		fprintf(stderr, "setup: %s\n", err.msg);
+	if (probe_setup(&model, &worker))
 		return 1;
-	}
-	probe_use(worker);
 	RUN(test_acid_terms__n_aryl_hydroxamic_acid_is_more_acidic);
 	RUN(test_acid_terms__nitroso_naphthol_is_a_weaker_acid);
 	RUN(test_acid_terms__mannich_phenol_ionises_as_zwitterion);
@@ -146,7 +138,6 @@ int main(void)
 	RUN(test_acid_terms__pyridone_carbonyl_is_no_substituent);
 	RUN(test_acid_terms__aryl_phosphate_second_step_is_lower);
 	RUN(test_acid_terms__fused_azole_nh_counts_ring_substituents_once);
-	pred_worker_free(worker);
-	pred_model_free(model);
+	probe_teardown(model, worker);
 	return harness_done();
 }

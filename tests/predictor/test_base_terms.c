@@ -303,16 +303,8 @@ static void test_base_terms__ring_substituents_of_a_benzylamine(void)
 
 int main(void)
 {
-	const char *src = getenv("PKAD_SOURCE_DIR");
-	char dir[1024];
-	snprintf(dir, sizeof dir, "%s/fragments", src ? src : ".");
-	pred_error err = {0};
-	if (pred_global_init(&err) || pred_model_load(&model, dir, &err) ||
-	    pred_worker_new(&worker, model, &err)) {
-		fprintf(stderr, "setup: %s\n", err.msg);
+	if (probe_setup(&model, &worker))
 		return 1;
-	}
-	probe_use(worker);
 	RUN(test_base_terms__azinones_protonate_on_the_chalcogen);
 	RUN(test_base_terms__nitro_on_n_or_o_is_no_base);
 	RUN(test_base_terms__acyl_nitro_cyano_guanidines);
@@ -329,7 +321,6 @@ int main(void)
 	RUN(test_base_terms__dabco_counts_its_three_rings);
 	RUN(test_base_terms__tertiary_ammonium_rises_with_its_beta_carbons);
 	RUN(test_base_terms__ring_substituents_of_a_benzylamine);
-	pred_worker_free(worker);
-	pred_model_free(model);
+	probe_teardown(model, worker);
 	return harness_done();
 }

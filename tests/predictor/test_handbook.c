@@ -351,16 +351,9 @@ static void test_handbook__uncertainty_widens_with_size(void)
 
 int main(void)
 {
-	const char *src = getenv("PKAD_SOURCE_DIR");
-	char dir[1024];
-	snprintf(dir, sizeof dir, "%s/fragments", src ? src : ".");
-	pred_error err = {0};
-	if (pred_global_init(&err) || pred_model_load(&model, dir, &err) ||
-	    pred_worker_new(&worker, model, &err)) {
-		fprintf(stderr, "setup: %s\n", err.msg);
+	if (probe_setup(&model, &worker))
 		return 1;
-	}
-	probe_use(worker);
+	const char *src = getenv("PKAD_SOURCE_DIR");
 	int acids = score_file(src ? src : ".", "handbook-acids.csv");
 	int bases = score_file(src ? src : ".", "handbook-bases.csv");
 	int additions = score_file(src ? src : ".", "handbook-additions.csv");
@@ -371,7 +364,6 @@ int main(void)
 	RUN(test_handbook__phenols_follow_common_practice);
 	RUN(test_handbook__oxygen_bases_are_negative);
 	RUN(test_handbook__uncertainty_widens_with_size);
-	pred_worker_free(worker);
-	pred_model_free(model);
+	probe_teardown(model, worker);
 	return harness_done();
 }
