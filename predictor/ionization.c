@@ -66,13 +66,14 @@ static int is_ampholyte(const ion_work *w)
 }
 
 /* Isoelectric point: the root of net charge = 0 within pH 0..14, by bisection (the charge
- * falls monotonically with pH). Only for ampholytes. */
+ * falls monotonically with pH) to 1e-9 pH units (34 halvings; the value is given to 0.01).
+ * Only for ampholytes. */
 static void fill_isoelectric(pred_result *r, ion_work *w)
 {
 	double lo = 0, hi = ION_CURVE_MAX;
 	if (!is_ampholyte(w) || ion_work_eval(w, lo) <= 0 || ion_work_eval(w, hi) >= 0)
 		return;
-	for (int it = 0; it < 60; it++) {
+	while (hi - lo > 1e-9) {
 		double mid = 0.5 * (lo + hi);
 		if (ion_work_eval(w, mid) > 0)
 			lo = mid;
