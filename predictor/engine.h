@@ -118,6 +118,9 @@ typedef struct term_list {
 /* Adds a term; value = param value * feature (param >= 0) or feature (param < 0). */
 void terms_add(term_list *tl, const pred_model *m, const char *term, int param, double feature,
 	       const char *fmt, ...);
+/* terms_add with a fixed detail text (no formatting). */
+void terms_add_text(term_list *tl, const pred_model *m, const char *term, int param,
+		    double feature, const char *text);
 double terms_sum(const term_list *tl);
 
 /* Hammett ring, Taft walk and corrections of site s. */
