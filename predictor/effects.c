@@ -461,10 +461,9 @@ static void correction_effects(term_list *tl, const eng_mol *e, const pred_worke
 			       const eng_site *s)
 {
 	const pred_model *m = w->m;
-	for (size_t k = 0; k < m->n_corrs; k++) {
+	for (int j = w->row_corr_start[s->row]; j < w->row_corr_start[s->row + 1]; j++) {
+		int k = w->row_corrs[j];
 		const frag_corr *c = &m->corrs[k];
-		if (!w->corr_ok[k * m->n_sites + (size_t)s->row])
-			continue;
 		int hits = 0;
 		for (int i = e->corr_start[k]; i < e->corr_start[k + 1]; i++) {
 			if (e->corr_atom[i] != s->atom)

@@ -33,6 +33,8 @@ struct pred_worker {
 	smarts_screen **site_scr, **subst_scr, **corr_scr; /* NULL entries: never screened */
 	int n_shared; /* distinct recursive parts of all the screens (smarts_screen_share) */
 	unsigned char *corr_ok; /* corr_ok[k * n_sites + r]: correction k applies to site row r */
+	int *row_corr_start, *row_corrs; /* the corrections of row r, in table order:
+					  * row_corrs[row_corr_start[r] .. row_corr_start[r + 1]) */
 };
 
 /* The perceived molecule: graph, substituent claims and the sites found. */
