@@ -14,8 +14,9 @@ enum { DP_PKA = 2, DP_FRACTION = 4, DP_CHARGE = 3, DP_PH = 2 };
 static double ten_to(int decimals)
 {
 	static const double tens[] = {1e0, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6};
-	return decimals >= 0 && decimals < (int)(sizeof tens / sizeof *tens) ? tens[decimals]
-									       : pow(10.0, decimals);
+	if (decimals >= 0 && decimals < (int)(sizeof tens / sizeof *tens))
+		return tens[decimals];
+	return pow(10.0, decimals);
 }
 
 static double round_to(double x, int decimals)
