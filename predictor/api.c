@@ -114,6 +114,10 @@ static int corr_table(pred_worker *w)
 				w->row_corrs[n++] = (int)k;
 		w->row_corr_start[r + 1] = (int)n;
 	}
+	w->pair_corrs = malloc((m->n_corrs + 1) * sizeof *w->pair_corrs);
+	if (!w->pair_corrs)
+		return PRED_ENOMEM;
+	w->n_pair_corrs = eng_pair_rows(w->pair_corrs, m);
 	return 0;
 }
 
@@ -231,6 +235,7 @@ void pred_worker_free(pred_worker *w)
 	free(w->corr_ok);
 	free(w->row_corr_start);
 	free(w->row_corrs);
+	free(w->pair_corrs);
 	free_screens(w->site_scr, w->m->n_sites);
 	free_screens(w->subst_scr, w->m->n_substs);
 	free_screens(w->corr_scr, w->m->n_corrs);
