@@ -95,10 +95,29 @@ static int corr_table(pred_worker *w)
 	w->corr_ok = calloc(m->n_corrs * m->n_sites + 1, 1);
 	if (!w->corr_ok)
 		return PRED_ENOMEM;
+	size_t n = 0;
 	for (size_t k = 0; k < m->n_corrs; k++)
-		for (size_t r = 0; r < m->n_sites; r++)
+		for (size_t r = 0; r < m->n_sites; r++) {
 			w->corr_ok[k * m->n_sites + r] =
 			    (unsigned char)corr_applies(&m->corrs[k], &m->sites[r]);
+			n += w->corr_ok[k * m->n_sites + r];
+		}
+	/* the same table by site row, as lists of corrections in table order */
+	w->row_corr_start = calloc(m->n_sites + 1, sizeof *w->row_corr_start);
+	w->row_corrs = malloc((n + 1) * sizeof *w->row_corrs);
+	if (!w->row_corr_start || !w->row_corrs)
+		return PRED_ENOMEM;
+	n = 0;
+	for (size_t r = 0; r < m->n_sites; r++) {
+		for (size_t k = 0; k < m->n_corrs; k++)
+			if (w->corr_ok[k * m->n_sites + r])
+				w->row_corrs[n++] = (int)k;
+		w->row_corr_start[r + 1] = (int)n;
+	}
+	w->pair_corrs = malloc((m->n_corrs + 1) * sizeof *w->pair_corrs);
+	if (!w->pair_corrs)
+		return PRED_ENOMEM;
+	w->n_pair_corrs = eng_pair_rows(w->pair_corrs, m);
 	return 0;
 }
 
@@ -214,6 +233,9 @@ void pred_worker_free(pred_worker *w)
 	free(w->subst_req);
 	free(w->corr_req);
 	free(w->corr_ok);
+	free(w->row_corr_start);
+	free(w->row_corrs);
+	free(w->pair_corrs);
 	free_screens(w->site_scr, w->m->n_sites);
 	free_screens(w->subst_scr, w->m->n_substs);
 	free_screens(w->corr_scr, w->m->n_corrs);

@@ -10,21 +10,43 @@
 
 enum { WALK_DEPTH = 6 };
 
-void terms_add(term_list *tl, const pred_model *m, const char *term, int param, double feature,
-	       const char *fmt, ...)
+/* The next free slot of tl with its scaling filled in, NULL when the list is full. */
+static char *term_slot(term_list *tl, const pred_model *m, const char *term, int param,
+		       double feature)
 {
 	if (tl->n == TERMS_MAX)
-		return;
+		return NULL;
 	size_t i = tl->n++;
-	va_list ap;
-	va_start(ap, fmt);
-	vsnprintf(tl->detail[i], sizeof tl->detail[i], fmt, ap);
-	va_end(ap);
 	tl->t[i].term = term;
 	tl->t[i].detail = tl->detail[i];
 	tl->t[i].value = param >= 0 ? m->params[param].value * feature : feature;
 	tl->param[i] = param;
 	tl->feature[i] = feature;
+	return tl->detail[i];
+}
+
+void terms_add(term_list *tl, const pred_model *m, const char *term, int param, double feature,
+	       const char *fmt, ...)
+{
+	char *detail = term_slot(tl, m, term, param, feature);
+	if (!detail)
+		return;
+	va_list ap;
+	va_start(ap, fmt);
+	vsnprintf(detail, sizeof tl->detail[0], fmt, ap);
+	va_end(ap);
+}
+
+void terms_add_text(term_list *tl, const pred_model *m, const char *term, int param,
+		    double feature, const char *text)
+{
+	char *detail = term_slot(tl, m, term, param, feature);
+	if (!detail)
+		return;
+	/* cut as vsnprintf cuts "%s" (the list is hot: a parent and most corrections) */
+	size_t n = strnlen(text, sizeof tl->detail[0] - 1);
+	memcpy(detail, text, n);
+	detail[n] = '\0';
 }
 
 double terms_sum(const term_list *tl)
@@ -439,10 +461,9 @@ static void correction_effects(term_list *tl, const eng_mol *e, const pred_worke
 			       const eng_site *s)
 {
 	const pred_model *m = w->m;
-	for (size_t k = 0; k < m->n_corrs; k++) {
+	for (int j = w->row_corr_start[s->row]; j < w->row_corr_start[s->row + 1]; j++) {
+		int k = w->row_corrs[j];
 		const frag_corr *c = &m->corrs[k];
-		if (!w->corr_ok[k * m->n_sites + (size_t)s->row])
-			continue;
 		int hits = 0;
 		for (int i = e->corr_start[k]; i < e->corr_start[k + 1]; i++) {
 			if (e->corr_atom[i] != s->atom)
@@ -458,7 +479,7 @@ static void correction_effects(term_list *tl, const eng_mol *e, const pred_worke
 		if (hits > 1)
 			terms_add(tl, m, c->term, c->p_value, hits, "%s x %d", c->id, hits);
 		else
-			terms_add(tl, m, c->term, c->p_value, 1.0, "%s", c->id);
+			terms_add_text(tl, m, c->term, c->p_value, 1.0, c->id);
 		tl->extra_var += hits * c->unc * c->unc;
 	}
 }
@@ -467,7 +488,7 @@ void eng_site_effects(term_list *tl, const eng_mol *e, const pred_worker *w, con
 {
 	const pred_model *m = w->m;
 	const frag_site *row = &m->sites[s->row];
-	terms_add(tl, m, "parent", row->p_parent, 1.0, "%s", row->id);
+	terms_add_text(tl, m, "parent", row->p_parent, 1.0, row->id);
 	unsigned char *seen = calloc(e->nat + 1, 1);
 	int *queue = malloc((e->nat + 1) * sizeof *queue);
 	int *depth = malloc((e->nat + 1) * sizeof *depth);

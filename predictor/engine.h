@@ -33,6 +33,10 @@ struct pred_worker {
 	smarts_screen **site_scr, **subst_scr, **corr_scr; /* NULL entries: never screened */
 	int n_shared; /* distinct recursive parts of all the screens (smarts_screen_share) */
 	unsigned char *corr_ok; /* corr_ok[k * n_sites + r]: correction k applies to site row r */
+	int *row_corr_start, *row_corrs; /* the corrections of row r, in table order:
+					  * row_corrs[row_corr_start[r] .. row_corr_start[r + 1]) */
+	int *pair_corrs; /* the hbond_pair rows of the corrections, in table order */
+	size_t n_pair_corrs;
 };
 
 /* The perceived molecule: graph, substituent claims and the sites found. */
@@ -118,6 +122,9 @@ typedef struct term_list {
 /* Adds a term; value = param value * feature (param >= 0) or feature (param < 0). */
 void terms_add(term_list *tl, const pred_model *m, const char *term, int param, double feature,
 	       const char *fmt, ...);
+/* terms_add with a fixed detail text (no formatting). */
+void terms_add_text(term_list *tl, const pred_model *m, const char *term, int param,
+		    double feature, const char *text);
 double terms_sum(const term_list *tl);
 
 /* Hammett ring, Taft walk and corrections of site s. */
@@ -125,6 +132,9 @@ void eng_site_effects(term_list *tl, const eng_mol *e, const pred_worker *w, con
 
 /* Fills e->pair_param from the hbond_pair rows of corrections.tsv (pair_hbond.c). */
 int eng_pair_hbonds(eng_mol *e, const pred_worker *w);
+/* Indices of the hbond_pair rows of m's corrections, in table order, into out (room for
+ * m->n_corrs); returns the count. */
+size_t eng_pair_rows(int *out, const pred_model *m);
 
 /* Stepwise statistical and interaction terms (see DEVELOPERS.md): a titration from the fully
  * protonated form, each step ionising the site of lowest effective pKa. tls[i] holds the

@@ -1,6 +1,5 @@
 /* SPDX-License-Identifier: MIT */
 /* ion_species.c: the microspecies at one pH, written as SMILES with formal charges. */
-#include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
 
@@ -101,6 +100,25 @@ static char *species_smiles(pred_result *r, const ion_work *w, const ion_input *
 	return out;
 }
 
+/* ",%d" of v at out (at most 12 bytes, no terminator); returns the length. The keys are
+ * built for every written state, where snprintf was a visible cost. */
+static size_t put_class(char *out, int v)
+{
+	char digits[12];
+	size_t nd = 0, n = 0;
+	unsigned u = v < 0 ? 0u - (unsigned)v : (unsigned)v;
+	do {
+		digits[nd++] = (char)('0' + u % 10);
+		u /= 10;
+	} while (u);
+	out[n++] = ',';
+	if (v < 0)
+		out[n++] = '-';
+	while (nd)
+		out[n++] = digits[--nd];
+	return n;
+}
+
 /* Key of a microstate up to symmetry: the sorted symmetry classes of its ionised sites. */
 static char *state_key(pred_result *r, const ion_work *w, const ion_input *in, size_t s,
 		       const unsigned char *is_extra)
@@ -123,7 +141,8 @@ static char *state_key(pred_result *r, const ion_work *w, const ion_input *in, s
 		size_t used = 0;
 		key[used++] = 'k';
 		for (size_t i = 0; i < n; i++)
-			used += (size_t)snprintf(key + used, 12, ",%d", cls[i]);
+			used += put_class(key + used, cls[i]);
+		key[used] = '\0';
 	}
 	free(cls);
 	return key;

@@ -64,6 +64,9 @@ typedef struct frag_base {
 struct pred_model {
 	pred_param *params;
 	size_t n_params;
+	size_t cap_params;
+	int *param_slots; /* open-addressing index of params by id: index + 1, 0 empty */
+	size_t n_param_slots;
 	frag_site *sites;
 	size_t n_sites;
 	frag_subst *substs;

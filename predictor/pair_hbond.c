@@ -37,13 +37,22 @@ static int pair_param(const eng_mol *e, const pred_worker *w, size_t i, size_t j
 	int d = e->dist[i * e->nat + (size_t)e->sites[j].atom];
 	if (d <= 0 || d > PAIR_MAX_BONDS)
 		return -1;
-	/* rows without a match in this molecule first: most are, and the name test costs more */
-	for (size_t k = 0; k < w->m->n_corrs; k++)
-		if (e->corr_start[k] < e->corr_start[k + 1] &&
-		    !strcmp(w->m->corrs[k].term, PAIR_TERM) && site_takes(e, w, k, i) &&
+	for (size_t p = 0; p < w->n_pair_corrs; p++) {
+		size_t k = (size_t)w->pair_corrs[p];
+		if (e->corr_start[k] < e->corr_start[k + 1] && site_takes(e, w, k, i) &&
 		    site_takes(e, w, k, j))
 			return w->m->corrs[k].p_value;
+	}
 	return -1;
+}
+
+size_t eng_pair_rows(int *out, const pred_model *m)
+{
+	size_t n = 0;
+	for (size_t k = 0; k < m->n_corrs; k++)
+		if (!strcmp(m->corrs[k].term, PAIR_TERM))
+			out[n++] = (int)k;
+	return n;
 }
 
 int eng_pair_hbonds(eng_mol *e, const pred_worker *w)

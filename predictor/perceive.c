@@ -196,12 +196,40 @@ static int find_sites(eng_mol *e, pred_worker *w)
 	return rc;
 }
 
-/* A correction is matched only when the molecule has a site it applies to. */
-static int corr_wanted(const eng_mol *e, const pred_worker *w, size_t k)
+/* want[k] = 1 for each correction k that applies to a site of the molecule: only those are
+ * matched. */
+static void corr_wanted(unsigned char *want, const eng_mol *e, const pred_worker *w)
 {
-	for (size_t i = 0; i < e->n_sites; i++)
-		if (w->corr_ok[k * w->m->n_sites + (size_t)e->sites[i].row])
-			return 1;
+	for (size_t i = 0; i < e->n_sites; i++) {
+		int r = e->sites[i].row;
+		for (int j = w->row_corr_start[r]; j < w->row_corr_start[r + 1]; j++)
+			want[w->row_corrs[j]] = 1;
+	}
+}
+
+/* Appends the first atoms of correction k's matches to e->corr_atom (used of cap). */
+static int corr_atoms(eng_mol *e, const pred_worker *w, size_t k, size_t *used, size_t *cap)
+{
+	const pred_model *m = w->m;
+	int *hits = NULL, na;
+	row_pat rp = {&w->corr_req[k], w->corr_scr[k], &w->corr_pat[k], m->corrs[k].smarts};
+	int n = pattern_matches(&hits, &na, e, &rp, NULL, NULL);
+	if (n < 0)
+		return n;
+	for (int i = 0; i < n; i++) {
+		if (*used == *cap) {
+			*cap = *cap ? 2 * *cap : 16;
+			int *grown = realloc(e->corr_atom, *cap * sizeof *grown);
+			if (!grown) {
+				free(hits);
+				return PRED_ENOMEM;
+			}
+			e->corr_atom = grown;
+		}
+		e->corr_atom[(*used)++] = hits[(size_t)i * na];
+	}
+	free(hits);
+	e->corr_start[k + 1] = (int)*used;
 	return 0;
 }
 
@@ -210,34 +238,21 @@ static int match_corrections(eng_mol *e, pred_worker *w)
 {
 	const pred_model *m = w->m;
 	e->corr_start = calloc(m->n_corrs + 1, sizeof *e->corr_start);
-	if (!e->corr_start)
+	unsigned char *want = calloc(m->n_corrs + 1, 1);
+	if (!e->corr_start || !want) {
+		free(want);
 		return PRED_ENOMEM;
-	size_t used = 0, cap = 0;
-	for (size_t k = 0; k < m->n_corrs; k++) {
-		e->corr_start[k + 1] = (int)used;
-		if (!corr_wanted(e, w, k))
-			continue;
-		int *hits = NULL, na;
-		row_pat rp = {&w->corr_req[k], w->corr_scr[k], &w->corr_pat[k], m->corrs[k].smarts};
-		int n = pattern_matches(&hits, &na, e, &rp, NULL, NULL);
-		if (n < 0)
-			return n;
-		for (int i = 0; i < n; i++) {
-			if (used == cap) {
-				cap = cap ? 2 * cap : 16;
-				int *grown = realloc(e->corr_atom, cap * sizeof *grown);
-				if (!grown) {
-					free(hits);
-					return PRED_ENOMEM;
-				}
-				e->corr_atom = grown;
-			}
-			e->corr_atom[used++] = hits[(size_t)i * na];
-		}
-		free(hits);
-		e->corr_start[k + 1] = (int)used;
 	}
-	return 0;
+	corr_wanted(want, e, w);
+	size_t used = 0, cap = 0;
+	int rc = 0;
+	for (size_t k = 0; k < m->n_corrs && !rc; k++) {
+		e->corr_start[k + 1] = (int)used;
+		if (want[k])
+			rc = corr_atoms(e, w, k, &used, &cap);
+	}
+	free(want);
+	return rc;
 }
 
 void eng_bfs(const eng_mol *e, int from, int *dist, int *queue)

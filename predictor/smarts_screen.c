@@ -16,6 +16,7 @@ typedef struct search {
 	unsigned char *feasible; /* per pattern: 0 not yet, 1 no, 2 yes */
 	int *map;                /* pattern atom -> molecule atom, all patterns side by side */
 	const int *map_base;     /* s->map_base */
+	const int *taken;        /* atoms no atom of the main pattern may take (own matches) */
 	const int *first_taken;  /* atoms the first SMARTS atom may not take (own matches) */
 	int first_k;             /* the main pattern's atom that is the first SMARTS atom */
 } search;
@@ -240,6 +241,7 @@ static void init_search(search *x, const smarts_screen *s, const sx_mol *m)
 	x->s = s;
 	x->m = m;
 	x->map_base = s->map_base;
+	x->taken = NULL;
 	x->first_taken = NULL;
 	x->first_k = -1;
 	/* layout: map (ints, aligned first), memo, used, feasible */
@@ -315,6 +317,7 @@ static void collect(search *x, found *f, int k, int cur)
 	for (int j = m->adj_start[from]; j < m->adj_start[from + 1] && !f->undecided; j++) {
 		int atom = m->adj[j];
 		if (x->used[atom] || !(m->kind[atom] & pa->kinds) ||
+		    (x->taken && x->taken[atom] >= 0) ||
 		    (k == x->first_k && x->first_taken[atom] >= 0))
 			continue;
 		int v = tv_and(cur, eval(x, pa->bond, -1, &m->bonds[m->adj_bond[j]]));
@@ -426,9 +429,9 @@ int smarts_screen_matches(int **out, const smarts_screen *s, const sx_mol *m, co
 			x.first_taken = first_taken;
 			x.first_k = k;
 		}
-	/* a taken atom is used from the start (the main pattern's own marks, pats[0]) */
-	for (size_t a = 0; taken && a < m->nat; a++)
-		x.used[a] = taken[a] >= 0;
+	/* a taken atom is never placed, as if used from the start (read, not copied into the
+	 * main pattern's marks: most calls place few atoms) */
+	x.taken = taken;
 	/* roots kind by kind: the order found does not matter, the list is sorted after */
 	const sx_patom *pa = &s->pats[0].atoms[0];
 	for (uint32_t ks = pa->kinds & m->kinds; ks && !f.undecided; ks &= ks - 1) {
@@ -437,7 +440,7 @@ int smarts_screen_matches(int **out, const smarts_screen *s, const sx_mol *m, co
 			k++;
 		for (int i = m->kind_start[k]; i < m->kind_start[k + 1] && !f.undecided; i++) {
 			int a = m->kind_atoms[i];
-			int v = x.used[a] || (x.first_k == 0 && first_taken[a] >= 0)
+			int v = (taken && taken[a] >= 0) || (x.first_k == 0 && first_taken[a] >= 0)
 					? SX_F
 					: atom_value(&x, pa, a);
 			if (v == SX_F)
@@ -448,8 +451,6 @@ int smarts_screen_matches(int **out, const smarts_screen *s, const sx_mol *m, co
 			x.used[a] = 0;
 		}
 	}
-	for (size_t a = 0; taken && a < m->nat; a++)
-		x.used[a] = 0;
 	int *res = f.undecided || !f.n ? NULL : malloc(2 * f.n * (size_t)n * sizeof *res);
 	if (f.undecided || (f.n && !res)) {
 		if (f.maps != f.local)

@@ -33,9 +33,11 @@ typedef struct sw {
 
 static void put(sw *w, const char *s)
 {
+	if (!*s)
+		return; /* empty bond symbols and branch marks are most of the calls */
 	size_t k = strlen(s);
 	if (w->len + k + 1 > w->cap) {
-		size_t cap = 2 * (w->len + k + 1);
+		size_t cap = 2 * (w->len + k + 1) + 4 * w->n; /* most molecules: one allocation */
 		char *p = realloc(w->buf, cap);
 		if (!p) {
 			w->bad = 1;

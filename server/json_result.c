@@ -10,9 +10,18 @@
 /* Decimal places of each kind of number (DESIGN.md: pKa 2, fractions 4). */
 enum { DP_PKA = 2, DP_FRACTION = 4, DP_CHARGE = 3, DP_PH = 2 };
 
+/* 10^decimals; the table holds the decimals the encoder uses, each exact as pow gives it. */
+static double ten_to(int decimals)
+{
+	static const double tens[] = {1e0, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6};
+	if (decimals >= 0 && decimals < (int)(sizeof tens / sizeof *tens))
+		return tens[decimals];
+	return pow(10.0, decimals);
+}
+
 static double round_to(double x, int decimals)
 {
-	double scale = pow(10.0, decimals);
+	double scale = ten_to(decimals);
 	double r = round(x * scale) / scale;
 	/* -0 would print as "-0", which reads oddly in a charge column. */
 	return r == 0.0 ? 0.0 : r;
@@ -24,7 +33,7 @@ static double round_to(double x, int decimals)
  * the rounded value; snprintf stays for magnitudes where a double holds no such integer. */
 static void format_fixed(char *buf, double x, int decimals)
 {
-	double scaled = round(x * pow(10.0, decimals));
+	double scaled = round(x * ten_to(decimals));
 	if (!(fabs(scaled) < 1e15)) {
 		int n = snprintf(buf, 64, "%.*f", decimals, round_to(x, decimals));
 		if (n > 0 && n < 64 && strchr(buf, '.')) {
@@ -230,8 +239,8 @@ static void put_str_member(jw *w, const char *key, const char *s)
 
 static void put_int_member(jw *w, const char *key, int v)
 {
-	char s[16];
-	snprintf(s, sizeof s, "%d", v);
+	char s[64];
+	format_fixed(s, v, 0); /* an int is exact in a double: the digits of "%d" */
 	put_key(w, key);
 	put(w, s);
 }
