@@ -39,12 +39,7 @@ void diamine_steps(const char *smiles, double *inter, double *low);
  * (the count of a per-match correction is the ratio to one match's value). */
 double base_term(const char *smiles, const char *group, const char *term, size_t *n);
 
-/* An ammonium beside phosphonomethyl arms (corrections.tsv amine_alpha_phosphono, once per
- * arm): the dianion's two charges at three bonds in full and the generic phosphorus sigma*
- * put the ammonium step of N,N-bis(phosphonomethyl)glycine at 14.9 and that of
- * N-(2-carboxyethyl)-N-(phosphonomethyl)glycine at 12.5; measured 10.8 and 10.41 (entries
- * serjeant of data/iupac-pka.csv, Serjeant & Dempsey 1979, train rows). The last macroscopic
- * value is the ammonium step. */
+/* The highest macroscopic pKa of a molecule (its last step), NAN when it has none. */
 double last_macro(const char *smiles);
 
 /* Value of the correction row id on the first base site of this group (its detail is the id,

@@ -219,6 +219,12 @@ static void test_base_terms__parallel_saturated_routes_add_to_the_interaction(vo
 	CHECK_NEAR(w, w5, 0.01);
 }
 
+/* An ammonium beside phosphonomethyl arms (corrections.tsv amine_alpha_phosphono, once per
+ * arm): the dianion's two charges at three bonds in full and the generic phosphorus sigma*
+ * put the ammonium step of N,N-bis(phosphonomethyl)glycine at 14.9 and that of
+ * N-(2-carboxyethyl)-N-(phosphonomethyl)glycine at 12.5; measured 10.8 and 10.41 (entries
+ * serjeant of data/iupac-pka.csv, Serjeant & Dempsey 1979, train rows). The last macroscopic
+ * value is the ammonium step. */
 static void test_base_terms__phosphonomethyl_arms_of_an_ammonium(void)
 {
 	size_t n;
