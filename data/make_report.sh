@@ -34,6 +34,17 @@ trap 'rm -f "$tmp"' EXIT
 	echo '```'
 	PKAD_SOURCE_DIR="$here/.." PKAD_BIN="$bin" /usr/bin/python3 "$here/../tests/data/check_gates.py" || true
 	echo '```'
+	echo
+	echo "## Row numbering (a diagnostic, not a gate)"
+	echo
+	echo "The compilations number only the steps they measured. Pairing each book entry's rows with"
+	echo "the predicted steps by value, in order (\`tests/tools/align_steps.py\`, more lenient than the"
+	echo "gate's rule on purpose), bounds what a perfect numbering could give on the broad set:"
+	echo
+	echo '```'
+	echo "test:  $(/usr/bin/python3 "$here/../tests/tools/align_steps.py" "$bin" iupac-pka.csv --split test --tier A)"
+	echo "train: $(/usr/bin/python3 "$here/../tests/tools/align_steps.py" "$bin" iupac-pka.csv --split train --tier A)"
+	echo '```'
 	if [ -f report-notes.md ]; then
 		echo
 		cat report-notes.md
