@@ -327,6 +327,20 @@ static void test_base_terms__hydroxylamines_by_substitution(void)
 	CHECK(mnhoh - me2noh > 0.3);
 }
 
+/* A para ester conjugates with the anilinium N's lone pair like any para acceptor, so an
+ * ethyl ester takes sigma_p- (0.68, HLT1991, from memory) as the methyl ester does (0.75),
+ * not sigma_p 0.45. Ethyl 4-aminobenzoate 2.51 (Perrin 1965 via IUPAC dataset, entry
+ * perrin0527); tolerance 0.4. */
+static void test_base_terms__para_esters_conjugate_with_an_aniline(void)
+{
+	double et = site_pka("CCOC(=O)c1ccc(cc1)N", "aniline", PRED_BASE);
+	double me = site_pka("COC(=O)c1ccc(cc1)N", "aniline", PRED_BASE);
+	double h = site_pka("Nc1ccccc1", "aniline", PRED_BASE);
+	CHECK_NEAR(et, 2.51, 0.4);
+	CHECK(fabs(et - me) < 0.3);
+	CHECK(h - et > 1.5);
+}
+
 int main(void)
 {
 	if (probe_setup(&model, &worker))
@@ -348,6 +362,7 @@ int main(void)
 	RUN(test_base_terms__tertiary_ammonium_rises_with_its_beta_carbons);
 	RUN(test_base_terms__ring_substituents_of_a_benzylamine);
 	RUN(test_base_terms__hydroxylamines_by_substitution);
+	RUN(test_base_terms__para_esters_conjugate_with_an_aniline);
 	probe_teardown(model, worker);
 	return harness_done();
 }
