@@ -79,9 +79,9 @@ static int grow(fit_data *d, size_t rows, size_t nnz)
 /* Appends the design of the matched site of one row; 1 when the row has no such site. */
 static int add_row(fit_data *d, const pred_result *r, const pred_fit_row *row, int folds)
 {
-	long s = row->match_steps ? pred_result_match_steps(r, row->kind, row->pka_index,
-								 row->n_steps)
-		       : pred_result_match(r, row->kind, row->pka_index);
+	long s = !row->match_steps ? pred_result_match(r, row->kind, row->pka_index)
+		 : row->listed ? pred_result_match_listed(r, row->kind, row->pka_index, row->listed)
+			       : pred_result_match_steps(r, row->kind, row->pka_index, row->n_steps);
 	pred_design des;
 	size_t base = d->n ? d->off[d->n] : 0;
 	if (s < 0)

@@ -105,6 +105,25 @@ long pred_site_rank_steps(const pred_site *sites, size_t n, pred_kind kind, int 
 	return rank_where(sites, n, kind, index, own ? RANK_STEPS_OWN : RANK_STEPS);
 }
 
+size_t pred_site_steps_order(const pred_site *sites, size_t n, pred_kind kind, long *order,
+			     size_t cap, size_t *n_window)
+{
+	size_t m = 0;
+	*n_window = 0;
+	/* Insertion by the steps key; site counts are small. */
+	for (size_t i = 0; i < n && m < cap; i++) {
+		size_t at;
+		if (tier(&sites[i], kind, RANK_STEPS) == 2)
+			continue;
+		*n_window += tier(&sites[i], kind, RANK_STEPS) == 0;
+		for (at = m; at > 0 && before(sites, i, (size_t)order[at - 1], kind, RANK_STEPS); at--)
+			order[at] = order[at - 1];
+		order[at] = (long)i;
+		m++;
+	}
+	return m;
+}
+
 long pred_result_match(const pred_result *r, pred_kind kind, int index)
 {
 	return pred_site_rank(r->sites, r->n_sites, kind, index);

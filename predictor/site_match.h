@@ -17,4 +17,13 @@ long pred_site_rank(const pred_site *sites, size_t n, pred_kind kind, int index)
 long pred_site_rank_steps(const pred_site *sites, size_t n, pred_kind kind, int index,
 			  int n_steps);
 
+/* Lists into order[] (at most cap) the sites that count as steps for a row of this kind, in
+ * the order of pred_site_rank_steps without the own-kind rule: the window sites of both kinds
+ * first (*n_window of them), then the row kind's sites outside the window. Returns the count. */
+size_t pred_site_steps_order(const pred_site *sites, size_t n, pred_kind kind, long *order,
+			     size_t cap, size_t *n_window);
+/* pred_result_match_listed on a bare site array (unit tests). */
+long pred_site_rank_listed(const pred_site *sites, size_t n, pred_kind kind, int index,
+			   const pred_listed_steps *listed);
+
 #endif

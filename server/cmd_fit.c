@@ -99,7 +99,7 @@ static int add_file(pred_fit_row **rows, size_t *n, srv_csv **csv, srv_ref **ref
 			continue;
 		nrows[(*n)++] = (pred_fit_row){r->smiles, r->kind, r->pka_index, r->pka,
 					       base_w * (strcmp(r->tier, "B") ? 1.0 : o->tier_b_weight),
-					       steps, r->n_steps};
+					       steps, r->n_steps, r->listed};
 		used++;
 	}
 	if (len < 200) {

@@ -44,6 +44,7 @@ typedef struct srv_ref {
 	pred_kind kind;
 	int pka_index;          /* 1-based; 1 when the column is absent */
 	int n_steps;            /* highest pka_index of the file's rows of this molecule and kind */
+	const pred_listed_steps *listed; /* those rows' distinct indices and values (same block) */
 	double pka;
 	size_t line;
 } srv_ref;

@@ -97,31 +97,85 @@ static int by_molecule(const void *a, const void *b)
 	return c ? c : (int)x->kind - (int)y->kind;
 }
 
-/* Sets n_steps of every row: the highest pka_index among the rows of its molecule and kind
- * (a compilation's numbering of the steps it lists). */
-static int count_steps(srv_ref *rows, size_t n)
+static int same_molecule(const srv_ref *a, const srv_ref *b)
 {
-	srv_ref **ord = n ? malloc(n * sizeof *ord) : NULL;
-	if (n && !ord)
-		return PRED_ENOMEM;
+	return !by_molecule(&a, &b);
+}
+
+/* Sets n_steps and listed of every row: the highest pka_index among the rows of its molecule
+ * and kind (a compilation's numbering of the steps it lists) and the distinct indices with
+ * their values (the mean where rows share an index). The lists live in the block of the rows,
+ * after them, so that one free() releases both; returns the new block or NULL. */
+static srv_ref *count_steps(srv_ref *rows, size_t n)
+{
+	srv_ref **ord = n ? malloc(n * sizeof *ord) : NULL, *b;
+	size_t *pos = n ? malloc(n * sizeof *pos) : NULL, groups = 0, at = 0, g = 0;
+	pred_listed_steps *lists;
+	double *vals;
+	int *idx;
+	if (!n)
+		return rows;
+	if (!ord || !pos) {
+		free(ord);
+		free(pos);
+		return NULL;
+	}
 	for (size_t i = 0; i < n; i++)
 		ord[i] = &rows[i];
 	qsort(ord, n, sizeof *ord, by_molecule);
-	for (size_t i = 0, j; i < n; i = j) {
-		int top = 0;
-		for (j = i; j < n && !by_molecule(&ord[i], &ord[j]); j++)
-			top = ord[j]->pka_index > top ? ord[j]->pka_index : top;
-		for (size_t k = i; k < j; k++)
-			ord[k]->n_steps = top;
+	for (size_t i = 0; i < n; i++) {
+		groups += i == 0 || by_molecule(&ord[i - 1], &ord[i]);
+		pos[i] = (size_t)(ord[i] - rows); /* rows move with the realloc below */
 	}
 	free(ord);
-	return 0;
+	b = realloc(rows, n * sizeof *rows + groups * sizeof *lists + n * sizeof *vals +
+				  n * sizeof *idx);
+	if (!b) {
+		free(pos);
+		return NULL;
+	}
+	lists = (pred_listed_steps *)(void *)(b + n);
+	vals = (double *)(void *)(lists + groups);
+	idx = (int *)(void *)(vals + n);
+	for (size_t i = 0, j; i < n; i = j, g++) {
+		size_t start = at;
+		for (j = i + 1; j < n && same_molecule(&b[pos[i]], &b[pos[j]]); j++)
+			;
+		/* Distinct indices ascending, by insertion (a molecule has few rows). */
+		for (size_t k = i; k < j; k++) {
+			int v = b[pos[k]].pka_index;
+			size_t q = start;
+			while (q < at && idx[q] < v)
+				q++;
+			if (q < at && idx[q] == v)
+				continue;
+			for (size_t t = at; t > q; t--)
+				idx[t] = idx[t - 1];
+			idx[q] = v;
+			at++;
+		}
+		for (size_t q = start; q < at; q++) {
+			double sum = 0.0;
+			int cnt = 0;
+			for (size_t k = i; k < j; k++)
+				if (b[pos[k]].pka_index == idx[q])
+					sum += b[pos[k]].pka, cnt++;
+			vals[q] = sum / cnt;
+		}
+		lists[g] = (pred_listed_steps){at - start, idx + start, vals + start};
+		for (size_t k = i; k < j; k++) {
+			b[pos[k]].n_steps = idx[at - 1];
+			b[pos[k]].listed = &lists[g];
+		}
+	}
+	free(pos);
+	return b;
 }
 
 int srv_ref_read(srv_ref **out, size_t *n, const srv_csv *c, pred_error *err)
 {
 	ref_cols k;
-	srv_ref *rows = NULL;
+	srv_ref *rows = NULL, *out_rows;
 	size_t nr = srv_csv_rows(c);
 	int rc;
 	*out = NULL;
@@ -141,7 +195,7 @@ int srv_ref_read(srv_ref **out, size_t *n, const srv_csv *c, pred_error *err)
 			return rc;
 		}
 	}
-	if (count_steps(rows, nr)) {
+	if (!(out_rows = count_steps(rows, nr))) {
 		free(rows);
 		if (err) {
 			err->code = PRED_ENOMEM;
@@ -149,7 +203,7 @@ int srv_ref_read(srv_ref **out, size_t *n, const srv_csv *c, pred_error *err)
 		}
 		return PRED_ENOMEM;
 	}
-	*out = rows;
+	*out = out_rows;
 	*n = nr;
 	return 0;
 }

@@ -120,8 +120,7 @@ static int score_row(srv_validation *v, srv_eval *e, pred_worker *w, pred_option
 		return (cs = srv_class_stat(&v->classes, e->cls)) ? (srv_stat_add_missing(cs), 0)
 								  : PRED_ENOMEM;
 	}
-	k = steps ? pred_result_match_steps(r, e->ref->kind, e->ref->pka_index,
-						  e->ref->n_steps)
+	k = steps ? pred_result_match_listed(r, e->ref->kind, e->ref->pka_index, e->ref->listed)
 		  : pred_result_match(r, e->ref->kind, e->ref->pka_index);
 	s = k >= 0 ? pred_result_site(r, (size_t)k) : NULL;
 	class_name(e, s);

@@ -280,6 +280,23 @@ long pred_result_match(const pred_result *r, pred_kind kind, int index);
  *  there are too few. Thread-safe. */
 long pred_result_match_steps(const pred_result *r, pred_kind kind, int index, int n_steps);
 
+/** The steps a compilation lists for one molecule and kind: its distinct pka_index values in
+ *  ascending order and the value of each (the mean where two rows share an index). */
+typedef struct pred_listed_steps {
+	size_t n;
+	const int *index;
+	const double *pka;
+} pred_listed_steps;
+
+/** Like pred_result_match_steps with n_steps the highest listed index, except where that
+ *  numbering cannot name the step: when the molecule has more steps in the water window (both
+ *  kinds, as pred_result_match_steps ranks them) than the highest listed index, the book has
+ *  left steps out, and the listed steps are paired with the predicted ones in order, by the
+ *  assignment of least summed squared difference. listed NULL or empty: as
+ *  pred_result_match_steps with n_steps 0. Returns -1 when there is no such site. Thread-safe. */
+long pred_result_match_listed(const pred_result *r, pred_kind kind, int index,
+			      const pred_listed_steps *listed);
+
 /** One experimental value used for fitting; strings are borrowed from the caller. */
 typedef struct pred_fit_row {
 	const char *smiles;
@@ -289,6 +306,8 @@ typedef struct pred_fit_row {
 	double weight;  /* relative weight, > 0 (e.g. lower for less reliable grades) */
 	int match_steps; /* nonzero: the site is found with pred_result_match_steps */
 	int n_steps;     /* the molecule's rows of this kind, for match_steps (0: unknown) */
+	const pred_listed_steps *listed; /* with match_steps: the molecule's listed steps of this
+					    kind (NULL: match by n_steps alone) */
 } pred_fit_row;
 
 /** Options of pred_fit; pred_fit_options_init fills the defaults. */

@@ -137,6 +137,44 @@ static void test_fit__steps_keep_to_the_row_kind_when_it_has_enough_sites(void)
 	CHECK_INT_EQ(pred_site_rank_steps(bim, 2, PRED_BASE, 2, 1), -1);
 }
 
+/* A compilation that lists fewer steps than the molecule has in the water window left some
+ * out, so the listed ones are paired with the predicted ones by value, in order. Serjeant &
+ * Dempsey list N-methyliminodiacetic acid as acid1 2.144, acid2 9.57 (data/iupac-pka.csv): two
+ * carboxyls and the ammonium are three steps, and the ammonium is the listed acid2. Where
+ * the listing reaches the last step in the window (glycine's two Perrin rows, 9.78 and 2.35),
+ * the numbering alone decides. */
+static void test_fit__listed_steps_pair_by_value_when_steps_are_missing(void)
+{
+	pred_site mida[3] = {{.kind = PRED_ACID, .pka = 1.9}, {.kind = PRED_BASE, .pka = 9.6},
+			     {.kind = PRED_ACID, .pka = 2.7}};
+	int mi[2] = {1, 2};
+	double mv[2] = {2.144, 9.57};
+	pred_listed_steps ml = {2, mi, mv};
+	pred_site gly[2] = {{.kind = PRED_BASE, .pka = 8.0}, {.kind = PRED_ACID, .pka = 2.4}};
+	int gi[2] = {1, 2};
+	double gv[2] = {9.78, 2.35};
+	pred_listed_steps gl = {2, gi, gv};
+	int one[1] = {1};
+	double far[1] = {12.0};
+	pred_listed_steps fl = {1, one, far};
+	CHECK_INT_EQ(pred_site_rank_listed(mida, 3, PRED_ACID, 1, &ml), 0);
+	CHECK_INT_EQ(pred_site_rank_listed(mida, 3, PRED_ACID, 2, &ml), 1);
+	CHECK_INT_EQ(pred_site_rank_steps(mida, 3, PRED_ACID, 2, 2), 2);
+	/* complete listing: by number, however far the values */
+	CHECK_INT_EQ(pred_site_rank_listed(gly, 2, PRED_BASE, 1, &gl), 0);
+	CHECK_INT_EQ(pred_site_rank_listed(gly, 2, PRED_BASE, 2, &gl), 1);
+	/* one listed step of three: the nearest in value */
+	CHECK_INT_EQ(pred_site_rank_listed(mida, 3, PRED_ACID, 1, &fl), 1);
+	/* no list: as the steps rule with no row count */
+	CHECK_INT_EQ(pred_site_rank_listed(mida, 3, PRED_ACID, 2, NULL),
+		     pred_site_rank_steps(mida, 3, PRED_ACID, 2, 0));
+	/* an index that is not listed, or more values than steps: by number */
+	CHECK_INT_EQ(pred_site_rank_listed(mida, 3, PRED_ACID, 3, &ml),
+		     pred_site_rank_steps(mida, 3, PRED_ACID, 3, 2));
+	CHECK_INT_EQ(pred_site_rank_listed(mida, 1, PRED_ACID, 1, &ml),
+		     pred_site_rank_steps(mida, 1, PRED_ACID, 1, 2));
+}
+
 static void check_against_closed_form(double rho_prior, double rho_sd)
 {
 	pred_model *m = toy_model(rho_prior, rho_sd);
@@ -333,7 +371,7 @@ static void test_fit__recovers_a_shifted_parent(void)
 		pred_predict(&r, w, fit_smiles[i], PRED_FMT_SMILES, NULL, NULL);
 		k = r ? pred_result_match(r, PRED_ACID, 1) : -1;
 		ys[i] = k >= 0 ? pred_result_site(r, (size_t)k)->pka : 0;
-		rows[i] = (pred_fit_row){fit_smiles[i], PRED_ACID, 1, ys[i], 1.0, 0, 0};
+		rows[i] = (pred_fit_row){fit_smiles[i], PRED_ACID, 1, ys[i], 1.0, 0, 0, NULL};
 		pred_result_free(r);
 	}
 	pred_worker_free(w);
@@ -364,6 +402,7 @@ int main(void)
 	RUN(test_fit__steps_rank_both_kinds_in_water_window);
 	RUN(test_fit__steps_put_unmeasurable_sites_last);
 	RUN(test_fit__steps_keep_to_the_row_kind_when_it_has_enough_sites);
+	RUN(test_fit__listed_steps_pair_by_value_when_steps_are_missing);
 	RUN(test_fit__solver_equals_closed_form_ridge);
 	RUN(test_fit__recovers_hammett_benzoic_series);
 	RUN(test_fit__huber_weights_resist_an_outlier);

@@ -126,6 +126,44 @@ static void test_refs__counts_the_steps_of_each_molecule_and_kind(void)
 		CHECK_INT_EQ(r[1].n_steps, 1);
 		CHECK_INT_EQ(r[2].n_steps, 2);
 		CHECK_INT_EQ(r[3].n_steps, 1);
+		CHECK(r[0].listed == r[2].listed);
+		CHECK(r[0].listed != r[3].listed);
+		if (r[0].listed && r[0].listed->n == 2) {
+			CHECK_INT_EQ(r[0].listed->index[0], 1);
+			CHECK_INT_EQ(r[0].listed->index[1], 2);
+			CHECK_NEAR(r[0].listed->pka[0], 9.78, 1e-12);
+			CHECK_NEAR(r[0].listed->pka[1], 2.35, 1e-12);
+		} else {
+			CHECK(0);
+		}
+	}
+	free(r);
+	srv_csv_free(c);
+}
+
+/* Two books list the same step of acetic acid (4.76, 4.756: data/iupac-pka.csv style) and one
+ * of them the fourth step only of a molecule (a compilation that skipped steps): the listed
+ * steps are the distinct indices, ascending, with the mean of the values given for each. */
+static void test_refs__listed_steps_are_distinct_and_averaged(void)
+{
+	pred_error e = {0, ""};
+	srv_csv *c = parse("smiles,pka,pka_index,kind\n"
+			   "CC(=O)O,4.76,1,acid\nOC(=O)CN(CC(=O)O)CC(=O)O,9.73,4,acid\n"
+			   "CC(=O)O,4.756,1,acid\nOC(=O)CN(CC(=O)O)CC(=O)O,1.66,2,acid\n", &e);
+	srv_ref *r = NULL;
+	size_t n = 0;
+	CHECK_INT_EQ(srv_ref_read(&r, &n, c, &e), 0);
+	CHECK_INT_EQ(n, 4);
+	if (n == 4 && r[0].listed && r[1].listed) {
+		CHECK_INT_EQ(r[0].listed->n, 1);
+		CHECK_NEAR(r[0].listed->pka[0], 4.758, 1e-9);
+		CHECK_INT_EQ(r[1].listed->n, 2);
+		CHECK_INT_EQ(r[1].listed->index[0], 2);
+		CHECK_INT_EQ(r[1].listed->index[1], 4);
+		CHECK_NEAR(r[1].listed->pka[0], 1.66, 1e-12);
+		CHECK_INT_EQ(r[1].n_steps, 4);
+	} else {
+		CHECK(0);
 	}
 	free(r);
 	srv_csv_free(c);
@@ -215,6 +253,7 @@ int main(void)
 	RUN(test_refs__bad_number_names_line_and_column);
 	RUN(test_refs__reads_optional_columns);
 	RUN(test_refs__counts_the_steps_of_each_molecule_and_kind);
+	RUN(test_refs__listed_steps_are_distinct_and_averaged);
 	RUN(test_refs__auto_match_follows_the_site_class_column);
 	RUN(test_stats__figures_match_hand_computation);
 	RUN(test_stats__classes_keep_first_appearance_order);
