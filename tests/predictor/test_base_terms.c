@@ -357,6 +357,21 @@ static void test_base_terms__aryl_groups_claim_one_ring_atom(void)
 	CHECK_NEAR(site_pka("NCc1ccc2c(c1)OCO2", "primary_amine", PRED_BASE), 9.37, 0.4);
 }
 
+/* A guanidine N on an aza-aromatic ring with a ring N beside the attachment withdraws more than
+ * a phenyl (guanidine_n_azaaryl, as amidine_n_azaaryl for amidines): 2-amino-3,4-
+ * dihydropteridine 7.68 (Perrin Supplement 1972 via IUPAC dataset, entry perrin_supp7014, train
+ * row; tolerance 0.8, the class uncertainty) against 10.2 with the N-aryl term alone; the
+ * benzo analogue 2-amino-3,4-dihydroquinazoline takes no such term. */
+static void test_base_terms__guanidine_on_an_aza_aryl(void)
+{
+	double aza = site_pka("NC1=Nc2c(CN1)nccn2", "guanidine", PRED_BASE);
+	double benzo = site_pka("NC1=Nc2ccccc2CN1", "guanidine", PRED_BASE);
+	CHECK_NEAR(aza, 7.68, 0.8);
+	CHECK(benzo - aza > 1.5);
+	CHECK(corr_value("NC1=Nc2c(CN1)nccn2", "guanidine", "guanidine_n_azaaryl") < -1.5);
+	CHECK(corr_value("NC1=Nc2ccccc2CN1", "guanidine", "guanidine_n_azaaryl") == 0);
+}
+
 int main(void)
 {
 	if (probe_setup(&model, &worker))
@@ -380,6 +395,7 @@ int main(void)
 	RUN(test_base_terms__hydroxylamines_by_substitution);
 	RUN(test_base_terms__para_esters_conjugate_with_an_aniline);
 	RUN(test_base_terms__aryl_groups_claim_one_ring_atom);
+	RUN(test_base_terms__guanidine_on_an_aza_aryl);
 	probe_teardown(model, worker);
 	return harness_done();
 }
