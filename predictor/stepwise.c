@@ -13,6 +13,7 @@ typedef struct step_state {
 	int *eq_n;    /* size of the equivalence class of each site */
 	int *eq_done; /* members of that class already ionised (indexed by the class leader) */
 	int *leader;
+	size_t *order; /* titration order, when chosen over all paths (best_order) */
 } step_state;
 
 /* Sites are equivalent when the same row matches symmetry-equivalent atoms. */
@@ -92,44 +93,155 @@ static double zwitterion_penalty(const step_state *st, const eng_mol *e, const p
 	return pen;
 }
 
-static void step_once(term_list *tls, step_state *st, const eng_mol *e, const pred_model *m)
+/* Effective value of site i's step when the sites ionised so far are those marked in done
+ * (the charges in st are theirs): micro value, statistical, interaction and hydrogen-bond
+ * terms; *stat, *inter, *pf and *pp get the parts. */
+static double step_value(const step_state *st, const eng_mol *e, const pred_model *m, size_t i,
+			 double *stat, double *inter, double *pf, int *pp)
+{
+	*stat = statistical(st, i);
+	*inter = interaction(st, e, m, i);
+	*pf = pair_feature(st, e, i, pp);
+	return st->micro[i] + *stat + *inter + (*pp >= 0 ? m->params[*pp].value * *pf : 0);
+}
+
+/* Ionises site i: its terms go to tls[i], the state moves on. */
+static void take_step(term_list *tls, step_state *st, const eng_mol *e, const pred_model *m,
+		      size_t i)
+{
+	int pp;
+	double stat, inter, pf;
+	step_value(st, e, m, i, &stat, &inter, &pf, &pp);
+	term_list *tl = &tls[i];
+	if (pp >= 0)
+		terms_add(tl, m, "hbond", pp, pf,
+			  "proton held by the hydrogen-bonded anion of the pair");
+	if (stat != 0)
+		terms_add(tl, m, "statistical", -1, stat, "%d equivalent sites",
+			  st->eq_n[st->leader[i]]);
+	if (fabs(inter) >= 0.005) {
+		terms_add(tl, m, "interaction", -1, inter,
+			  "charges of sites ionised before this one");
+		/* the distance model of the interaction is rough: a quarter of it as 1 sd */
+		tl->extra_var += 0.0625 * inter * inter;
+	}
+	st->done[i] = 1;
+	st->charge[i] -= 1;
+	st->eq_done[st->leader[i]]++;
+}
+
+/* Site the greedy order ionises next: the lowest effective value, zwitterion penalty
+ * included. */
+static size_t greedy_next(const step_state *st, const eng_mol *e, const pred_model *m)
 {
 	size_t best = 0;
-	double best_rank = HUGE_VAL, best_stat = 0, best_int = 0, best_pf = 0;
-	int best_pp = -1;
+	double best_rank = HUGE_VAL;
 	for (size_t i = 0; i < e->n_sites; i++) {
 		if (st->done[i])
 			continue;
 		int pp;
-		double stat = statistical(st, i), inter = interaction(st, e, m, i);
-		double pf = pair_feature(st, e, i, &pp);
-		double eff = st->micro[i] + stat + inter + (pp >= 0 ? m->params[pp].value * pf : 0);
-		double rank = eff + zwitterion_penalty(st, e, m, i);
+		double stat, inter, pf;
+		double rank = step_value(st, e, m, i, &stat, &inter, &pf, &pp) +
+			      zwitterion_penalty(st, e, m, i);
 		if (rank < best_rank) {
 			best_rank = rank;
 			best = i;
-			best_stat = stat;
-			best_int = inter;
-			best_pf = pf;
-			best_pp = pp;
 		}
 	}
-	term_list *tl = &tls[best];
-	if (best_pp >= 0)
-		terms_add(tl, m, "hbond", best_pp, best_pf,
-			  "proton held by the hydrogen-bonded anion of the pair");
-	if (best_stat != 0)
-		terms_add(tl, m, "statistical", -1, best_stat, "%d equivalent sites",
-			  st->eq_n[st->leader[best]]);
-	if (fabs(best_int) >= 0.005) {
-		terms_add(tl, m, "interaction", -1, best_int,
-			  "charges of sites ionised before this one");
-		/* the distance model of the interaction is rough: a quarter of it as 1 sd */
-		tl->extra_var += 0.0625 * best_int * best_int;
+	return best;
+}
+
+/* Sites up to which the order is chosen over all titration paths (2^n states). */
+enum { ORDER_EXACT_MAX = 14 };
+
+/* Puts st in the state of the sites in mask ionised (from the fully protonated form). */
+static void set_state(step_state *st, const eng_mol *e, const pred_model *m, unsigned mask)
+{
+	size_t n = e->n_sites;
+	for (size_t i = 0; i < n; i++)
+		st->eq_done[i] = 0;
+	for (size_t i = 0; i < n; i++) {
+		int on = (mask >> i) & 1u;
+		st->done[i] = on;
+		st->charge[i] = (m->sites[e->sites[i].row].kind == PRED_BASE ? 1 : 0) - on;
+		st->eq_done[st->leader[i]] += on;
 	}
-	st->done[best] = 1;
-	st->charge[best] -= 1;
-	st->eq_done[st->leader[best]]++;
+}
+
+/* Zwitterion penalty of a state (ZWITTERION_MARGIN, or 100 with the charges 1-2 bonds apart,
+ * as for a step): an acid site ionised while a base site still holds its proton. */
+static double state_penalty(const step_state *st, const eng_mol *e, const pred_model *m)
+{
+	double pen = 0;
+	for (size_t i = 0; i < e->n_sites; i++) {
+		if (!st->done[i] || m->sites[e->sites[i].row].kind != PRED_ACID)
+			continue;
+		for (size_t j = 0; j < e->n_sites; j++) {
+			if (st->charge[j] <= 0)
+				continue;
+			int d = e->dist[i * e->nat + (size_t)e->sites[j].atom];
+			pen = fmax(pen, d >= 0 && d <= 2 ? 100.0 : ZWITTERION_MARGIN);
+		}
+	}
+	return pen;
+}
+
+/* The titration order through the most populated states: of all orders (paths from the
+ * fully protonated state, one site per step), the one whose states, one at each level of
+ * protons lost, have the lowest summed free energy (in pKa units at pH 0: the step values
+ * of the path up to that level, plus the state's zwitterion penalty). The greedy order looks
+ * one step ahead only: where the first step that wins (the amine of a nitrilotriacetic acid
+ * cation, micro value far below the zwitterion's carboxyl plus the margin) leads to states
+ * far from the dominant ones at the next levels, this order takes the carboxyl first, as
+ * water does. Equal sums keep the greedy's choice among equivalent sites (lowest index
+ * first). order gets n site indices; returns 0 or PRED_ENOMEM. */
+static int best_order(size_t *order, step_state *st, const eng_mol *e, const pred_model *m)
+{
+	size_t n = e->n_sites, ns = (size_t)1 << n;
+	double *g = malloc(ns * sizeof *g), *best = malloc(ns * sizeof *best);
+	unsigned char *last = malloc(ns);
+	if (!g || !best || !last) {
+		free(g);
+		free(best);
+		free(last);
+		return PRED_ENOMEM;
+	}
+	g[0] = best[0] = 0;
+	for (size_t s = 1; s < ns; s++) {
+		size_t i = 0;
+		while (!((s >> i) & 1u))
+			i++;
+		unsigned prev = (unsigned)(s & ~((size_t)1 << i));
+		int pp;
+		double stat, inter, pf;
+		set_state(st, e, m, prev);
+		g[s] = g[prev] + step_value(st, e, m, i, &stat, &inter, &pf, &pp);
+		set_state(st, e, m, (unsigned)s);
+		double here = g[s] + state_penalty(st, e, m);
+		best[s] = HUGE_VAL;
+		last[s] = 0;
+		/* the highest index last on ties: the lowest goes first, as in the greedy order */
+		for (size_t j = n; j-- > 0;) {
+			if (!((s >> j) & 1u))
+				continue;
+			double v = best[s & ~((size_t)1 << j)];
+			if (v < best[s] - 1e-9) {
+				best[s] = v;
+				last[s] = (unsigned char)j;
+			}
+		}
+		best[s] += here;
+	}
+	size_t s = ns - 1;
+	for (size_t k = n; k-- > 0;) {
+		order[k] = last[s];
+		s &= ~((size_t)1 << last[s]);
+	}
+	free(g);
+	free(best);
+	free(last);
+	set_state(st, e, m, 0);
+	return 0;
 }
 
 int eng_stepwise(term_list *tls, const eng_mol *e, const pred_model *m, const int *symclass)
@@ -142,7 +254,8 @@ int eng_stepwise(term_list *tls, const eng_mol *e, const pred_model *m, const in
 	st.eq_n = calloc(n + 1, sizeof *st.eq_n);
 	st.eq_done = calloc(n + 1, sizeof *st.eq_done);
 	st.leader = calloc(n + 1, sizeof *st.leader);
-	int rc = st.micro && st.charge && st.done && st.eq_n && st.eq_done && st.leader
+	st.order = calloc(n + 1, sizeof *st.order);
+	int rc = st.micro && st.charge && st.done && st.eq_n && st.eq_done && st.leader && st.order
 			 ? 0
 			 : PRED_ENOMEM;
 	if (!rc) {
@@ -151,8 +264,10 @@ int eng_stepwise(term_list *tls, const eng_mol *e, const pred_model *m, const in
 			st.charge[i] = m->sites[e->sites[i].row].kind == PRED_BASE ? 1 : 0;
 		}
 		equivalence(&st, e, symclass);
-		for (size_t k = 0; k < n; k++)
-			step_once(tls, &st, e, m);
+		rc = n <= ORDER_EXACT_MAX ? best_order(st.order, &st, e, m) : 0;
+		for (size_t k = 0; k < n && !rc; k++)
+			take_step(tls, &st, e, m,
+				  n <= ORDER_EXACT_MAX ? st.order[k] : greedy_next(&st, e, m));
 	}
 	free(st.micro);
 	free(st.charge);
@@ -160,5 +275,6 @@ int eng_stepwise(term_list *tls, const eng_mol *e, const pred_model *m, const in
 	free(st.eq_n);
 	free(st.eq_done);
 	free(st.leader);
+	free(st.order);
 	return rc;
 }
