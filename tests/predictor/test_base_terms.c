@@ -357,6 +357,30 @@ static void test_base_terms__meta_amino_beside_a_conjugating_one_saturates(void)
 	CHECK(corr_value("Nc1cc(N)ccn1", "pyridine", "pyridine_meta_amino_saturation") == 0);
 }
 
+/* A secondary alkylamino group para to the ring N gives as much as a dimethylamino group:
+ * 4-methylamino- 9.65 (perrin1198) and 4-dimethylaminopyridine 9.61 (perrin_supp5181); flanked
+ * on both sides it twists and takes no such term (2,3,5,6-tetramethyl-4-methylaminopyridine
+ * 10.07, perrin1259). A dialkylamino group beside a ring fusion twists (peri C-H):
+ * 9-dimethylaminoacridine 9.08 (perrin_supp7382) against 9-methylaminoacridine 10.43
+ * (perrin_supp7388). Train rows of data/iupac-pka.csv (Perrin 1965 and 1972 supplement). */
+static void test_base_terms__para_alkylamino_groups_and_their_twist(void)
+{
+	double nhme = site_pka("CNc1ccncc1", "pyridine", PRED_BASE);
+	double nme2 = site_pka("CN(C)c1ccncc1", "pyridine", PRED_BASE);
+	CHECK(!isnan(nhme) && !isnan(nme2));
+	CHECK(nhme > nme2 - 0.3);
+	CHECK_NEAR(nhme, 9.65, 0.4);
+	CHECK(corr_value("CNc1ccncc1", "pyridine", "pyridine_para_nh_alkylamino") > 0.2);
+	CHECK(corr_value("CNc1c(C)c(C)nc(c1C)C", "pyridine", "pyridine_para_nh_alkylamino") == 0);
+	CHECK(corr_value("CN(C)c1ccncc1", "pyridine", "pyridine_para_nh_alkylamino") == 0);
+	double acr_nme2 = site_pka("CN(c1c2ccccc2nc2c1cccc2)C", "quinoline", PRED_BASE);
+	double acr_nhme = site_pka("CNc1c2ccccc2nc2c1cccc2", "quinoline", PRED_BASE);
+	CHECK(!isnan(acr_nme2) && !isnan(acr_nhme));
+	CHECK(acr_nme2 < acr_nhme - 0.6);
+	CHECK_NEAR(acr_nme2, 9.08, 0.6);
+	CHECK(corr_value("CN(C)c1ccncc1", "pyridine", "pyridine_para_nr2_twisted") == 0);
+}
+
 int main(void)
 {
 	if (probe_setup(&model, &worker))
@@ -379,6 +403,7 @@ int main(void)
 	RUN(test_base_terms__ring_substituents_of_a_benzylamine);
 	RUN(test_base_terms__fused_ring_substituents_reach_the_ring_n);
 	RUN(test_base_terms__meta_amino_beside_a_conjugating_one_saturates);
+	RUN(test_base_terms__para_alkylamino_groups_and_their_twist);
 	probe_teardown(model, worker);
 	return harness_done();
 }
