@@ -452,6 +452,24 @@ static int ring_pair_distance(const eng_mol *e, size_t k, size_t q, int from, in
 	return -1;
 }
 
+/* Atom a (on a ring fused to ring k) is bonded to a fusion atom that is bonded to a ring N
+ * of ring k: the peri position of that N. */
+static int peri_to_ring_n(const eng_mol *e, size_t k, int a)
+{
+	int n;
+	const int *nb = eng_nbrs(e, a, &n);
+	for (int j = 0; j < n; j++) {
+		if (ring_index_of(&e->rings, k, nb[j]) < 0)
+			continue;
+		int n2;
+		const int *nb2 = eng_nbrs(e, nb[j], &n2);
+		for (int t = 0; t < n2; t++)
+			if (e->atoms[nb2[t]].element == 7 && ring_index_of(&e->rings, k, nb2[t]) >= 0)
+				return 1;
+	}
+	return 0;
+}
+
 /* An amino or nitro group on a fused ring: corrections.tsv holds their whole effect at a ring
  * N (fused_ring_amino_*, fused_ring_nitro, ring_amine_*), so the fused-ring term leaves them. */
 static int fused_own_row(const eng_mol *e, int x, int a)
@@ -471,13 +489,13 @@ static int fused_own_row(const eng_mol *e, int x, int a)
 }
 
 /* Substituents on a benzo ring (aromatic, all carbon) fused to the Hammett ring of a
- * quinoline-type or isoquinoline-type ring N (the benzo ring of a quinoline, isoquinoline, phenanthridine;
- * both outer rings of an acridine): they reach the N through the ring fusion as
+ * quinoline-, isoquinoline-, quinoxaline-, cinnoline- or phthalazine-type ring N (and both
+ * outer rings of an acridine or phenazine): they reach the N through the ring fusion as
  * global.fused_transmission x rho x sigma, with sigma_p (the row's para scale) where the
  * cation's charge reaches their carbon (odd bond distance from the N: quinoline 5-, 7-;
- * isoquinoline 6-, 8-) and sigma_m elsewhere; not at the peri carbon. The benzodiazines (quinazolines, pteridines,
- * quinoxalines) are left out: their covalent hydration and second ring N have their own
- * rows. Marks what it counted. */
+ * isoquinoline 6-, 8-) and sigma_m elsewhere; not at the peri carbon of a ring N. The
+ * quinazolines (pyrimidine group) are left out: their covalent hydration has its own rows.
+ * Marks what it counted. */
 static void fused_ring_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 			       const eng_site *s, size_t k, unsigned char *seen)
 {
@@ -485,7 +503,8 @@ static void fused_ring_effects(term_list *tl, const eng_mol *e, const pred_model
 	const obw_atom *c = &e->atoms[s->centre];
 	if (m->p_fused_transmission < 0 || row->kind != PRED_BASE || c->element != 7 ||
 	    !c->aromatic || ring_index_of(&e->rings, k, s->centre) < 0 ||
-	    (strcmp(row->group, "quinoline") != 0 && strcmp(row->group, "isoquinoline") != 0))
+	    (strcmp(row->group, "quinoline") != 0 && strcmp(row->group, "isoquinoline") != 0 &&
+	     strcmp(row->group, "pyrazine") != 0 && strcmp(row->group, "pyridazine") != 0))
 		return;
 	const obw_rings *R = &e->rings;
 	double rho = m->params[row->p_rho].value;
@@ -504,11 +523,11 @@ static void fused_ring_effects(term_list *tl, const eng_mol *e, const pred_model
 			int a = R->atoms[R->offsets[q] + j], n;
 			if (ring_index_of(R, k, a) >= 0)
 				continue;
-			/* 2 bonds: the peri carbon (quinoline 8-, acridine 4-), whose group sits
-			 * beside the N-H+ and acts through space (the H-bond of 8-hydroxy- and
-			 * quinoline-8-carboxylic acid), not through the ring */
+			/* the peri carbon of a ring N (quinoline 8-, acridine 4-, cinnoline 8-),
+			 * whose group sits beside that N and acts through space (the H-bond of
+			 * 8-hydroxy- and quinoline-8-carboxylic acid), not through the ring */
 			int dist = ring_pair_distance(e, k, q, s->centre, a);
-			if (dist < 3)
+			if (dist < 0 || peri_to_ring_n(e, k, a))
 				continue;
 			int conj = dist % 2;
 			const int *nb = eng_nbrs(e, a, &n);

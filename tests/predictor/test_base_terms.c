@@ -333,7 +333,19 @@ static void test_base_terms__fused_ring_substituents_reach_the_ring_n(void)
 	CHECK(site_term_count("COc1cccc2c1cccn2", "quinoline", PRED_BASE, "hammett") == 1);
 	CHECK(site_term_count("COc1ccc2c(c1)cccn2", "quinoline", PRED_BASE, "hammett") == 1);
 	CHECK(site_term_count("COc1cccc2c1nccc2", "quinoline", PRED_BASE, "hammett") == 0);
-	/* the benzodiazines keep their own rows (covalent hydration): no fused-ring term */
+	/* quinoxalines and cinnolines take it too: 6-iodo-2,3-dimethylquinoxaline 1.34
+	 * (perrin_supp6906) against 2,3-dimethylquinoxaline (no iodo term before), cinnolin-6-ol
+	 * ring N 3.63 (perrin2197) against cinnoline 2.37 (from memory); the peri 8-OH of
+	 * cinnolin-8-ol (2.69, perrin2199) sits beside N1 and takes none */
+	double iodo = most_basic("Ic1ccc2c(c1)nc(c(n2)C)C");
+	double dimethyl = most_basic("Cc1nc2ccccc2nc1C");
+	CHECK(!isnan(iodo) && !isnan(dimethyl));
+	CHECK(iodo < dimethyl - 0.3);
+	CHECK_NEAR(iodo, 1.34, 0.6);
+	CHECK_NEAR(site_max("Oc1ccc2c(c1)ccnn2", "pyridazine", PRED_BASE), 3.63, 0.6);
+	CHECK(site_term_count("Oc1cccc2c1nncc2", "pyridazine", PRED_BASE, "hammett") ==
+	      site_term_count("c1ccc2c(c1)ccnn2", "pyridazine", PRED_BASE, "hammett"));
+	/* the quinazolines keep their own rows (covalent hydration): no fused-ring term */
 	CHECK(site_term_count("COC(=O)c1ccc2c(c1)ncnc2", "pyrimidine", PRED_BASE, "hammett") ==
 	      site_term_count("c1ccc2c(c1)ncnc2", "pyrimidine", PRED_BASE, "hammett"));
 }
