@@ -393,6 +393,22 @@ static void test_base_terms__para_alkylamino_groups_and_their_twist(void)
 	CHECK(corr_value("CN(C)c1ccncc1", "pyridine", "pyridine_para_nr2_twisted") == 0);
 }
 
+/* A -R acceptor para to the ring N withdraws less than its sigma_p says, on pyridines and on
+ * quinolines alike (pyridine_para_acceptor): 4-methylsulfinylpyridine 2.94 (perrin_supp5251)
+ * and -quinoline 2.88 (perrin_supp6708), 4-methylsulfonylpyridine 1.62 (perrin_supp5253) and
+ * -quinoline 1.57 (perrin_supp6710), train rows of data/iupac-pka.csv (Perrin 1972
+ * supplement); the quinolines lay 0.7-0.8 low without the row. 4-cyanopyridine 1.86
+ * (handbook-bases.csv). */
+static void test_base_terms__para_acceptors_of_pyridines_and_quinolines(void)
+{
+	CHECK(corr_value("CS(=O)c1ccncc1", "pyridine", "pyridine_para_acceptor") > 0.2);
+	CHECK(corr_value("CS(=O)c1ccnc2c1cccc2", "quinoline", "pyridine_para_acceptor") > 0.2);
+	CHECK(corr_value("CS(=O)c1cccnc1", "pyridine", "pyridine_para_acceptor") == 0);
+	CHECK_NEAR(site_pka("CS(=O)c1ccnc2c1cccc2", "quinoline", PRED_BASE), 2.88, 0.5);
+	CHECK_NEAR(site_pka("CS(=O)(=O)c1ccnc2c1cccc2", "quinoline", PRED_BASE), 1.57, 0.5);
+	CHECK_NEAR(site_pka("N#Cc1ccncc1", "pyridine", PRED_BASE), 1.86, 0.4);
+}
+
 int main(void)
 {
 	if (probe_setup(&model, &worker))
@@ -416,6 +432,7 @@ int main(void)
 	RUN(test_base_terms__fused_ring_substituents_reach_the_ring_n);
 	RUN(test_base_terms__meta_amino_beside_a_conjugating_one_saturates);
 	RUN(test_base_terms__para_alkylamino_groups_and_their_twist);
+	RUN(test_base_terms__para_acceptors_of_pyridines_and_quinolines);
 	probe_teardown(model, worker);
 	return harness_done();
 }
