@@ -409,6 +409,21 @@ static void test_base_terms__para_acceptors_of_pyridines_and_quinolines(void)
 	CHECK_NEAR(site_pka("N#Cc1ccncc1", "pyridine", PRED_BASE), 1.86, 0.4);
 }
 
+/* An alkylthio group para to a ring N donates its lone pair to the cation (sigma_p+ -0.60
+ * against sigma_p 0.00 for SCH3, HLT1991 from memory): 4-methylthiopyrimidine 2.41 (perrin1772)
+ * and 4-methylthiopyridazine 3.24 (perrin1565), both handbook-bases.csv; 4-methylthioquinoline
+ * 5.85 (perrin2062, data/iupac-pka.csv). Without the row they lay 0.5-1.1 low. Not on a purine
+ * (the fused azole has its own rows). */
+static void test_base_terms__para_thioethers_donate_to_the_azinium(void)
+{
+	CHECK(corr_value("CSc1ccncn1", "pyrimidine", "azine_para_thioether") > 0.3);
+	CHECK(corr_value("CSc1ccccn1", "pyridine", "azine_para_thioether") == 0);
+	CHECK(corr_value("CSc1nc(C)nc2c1ncn2C", "pyrimidine", "azine_para_thioether") == 0);
+	CHECK_NEAR(most_basic("CSc1ccncn1"), 2.41, 0.4);
+	CHECK_NEAR(most_basic("CSc1ccnnc1"), 3.24, 0.4);
+	CHECK_NEAR(site_pka("CSc1ccnc2c1cccc2", "quinoline", PRED_BASE), 5.85, 0.5);
+}
+
 int main(void)
 {
 	if (probe_setup(&model, &worker))
@@ -433,6 +448,7 @@ int main(void)
 	RUN(test_base_terms__meta_amino_beside_a_conjugating_one_saturates);
 	RUN(test_base_terms__para_alkylamino_groups_and_their_twist);
 	RUN(test_base_terms__para_acceptors_of_pyridines_and_quinolines);
+	RUN(test_base_terms__para_thioethers_donate_to_the_azinium);
 	probe_teardown(model, worker);
 	return harness_done();
 }
