@@ -382,10 +382,15 @@ static int add_globals(pred_model *m)
 	 * HLT1991 Table I (from memory) NHC6H5 sigma_p -0.56 / sigma_m -0.02 against NHCH3
 	 * -0.70 / -0.21, over sigma*(C6H5) 0.60: 0.23 / 0.32 (own arithmetic); fitted. */
 	m->p_amine_n = model_param_add(m, "global.amine_n_sigma", 0.25, 0.1);
+	/* Share of rho x sigma that a substituent on a fused aromatic ring passes to a ring-N
+	 * base (effects.c fused_ring_effects): estimate (own) 0.4 from train rows of Perrin 1965
+	 * via IUPAC dataset (quinoline 4.90; 5-hydroxy- 5.18, 7-hydroxy- 5.46, methyl
+	 * quinoline-6-carboxylate 3.80: 0.2-0.5 of the pyridine-ring term); fitted. */
+	m->p_fused_transmission = model_param_add(m, "global.fused_transmission", 0.4, 0.15);
 	return m->p_falloff < 0 || m->p_interaction < 0 || m->p_interaction_decay < 0 ||
 		       m->p_interaction_route < 0 || m->p_aryl_transmission < 0 ||
 		       m->p_unc_scale < 0 || m->p_unc_size < 0 || m->p_unc_sites < 0 ||
-		       m->p_unc_floor < 0 || m->p_amine_n < 0
+		       m->p_unc_floor < 0 || m->p_amine_n < 0 || m->p_fused_transmission < 0
 		       ? PRED_ENOMEM
 		       : 0;
 }
