@@ -48,6 +48,20 @@ static void test_azole_nh__pyrazolone_is_a_carbon_acid(void)
 	CHECK(benzoyl < plain - 1.0); /* measured 2.45 apart */
 }
 
+/* 4-Arylhydrazono-2-pyrazolin-5-ones and -isoxazol-5-ones (azo dyes drawn as the hydrazone)
+ * lose the hydrazone N-H; the isoxazolone ring O takes up more of the charge: 3-methyl-1-
+ * phenyl-4-phenylhydrazono-2-pyrazolin-5-one 8.9 (serjeant6142), 4-(4-chlorophenyl)hydrazono-
+ * 3-methylisoxazol-5-one 6.6 (serjeant5274). Without the class the first has no acid site. */
+static void test_azole_nh__hydrazono_azolone_nh(void)
+{
+	double pyrazolone = site_pka("CC1=NN(C(=O)C1=NNc1ccccc1)c1ccccc1", "hydrazone_nh", PRED_ACID);
+	double isoxazolone = site_pka("Clc1ccc(cc1)NN=C1C(=NOC1=O)C", "hydrazone_nh", PRED_ACID);
+	CHECK(!isnan(pyrazolone) && !isnan(isoxazolone));
+	CHECK_NEAR(pyrazolone, 8.9, 1.0);
+	CHECK_NEAR(isoxazolone, 6.6, 1.0);
+	CHECK(pyrazolone - isoxazolone > 1.0); /* measured 2.3 apart */
+}
+
 /* A third N in the five ring of an oxo-fused azole N-H (a 1,2,4-triazole instead of a
  * pyrazole) makes it about three units more acidic: 5-methyl-[1,2,4]triazolo[1,5-a]pyrimidin-
  * 7-one 6.22 (serjeant3037, its C=O beside the fusion atom that bears the N-H) against
@@ -102,6 +116,7 @@ int main(void)
 		return 1;
 	RUN(test_azole_nh__oxo_and_thioxo_azoles_are_strong_nh_acids);
 	RUN(test_azole_nh__pyrazolone_is_a_carbon_acid);
+	RUN(test_azole_nh__hydrazono_azolone_nh);
 	RUN(test_azole_nh__oxo_fused_triazole_is_the_stronger_acid);
 	RUN(test_azole_nh__pyrrole_ring_acceptors_follow_their_strength);
 	RUN(test_azole_nh__benzimidazolone_nh_and_azole_bases);
