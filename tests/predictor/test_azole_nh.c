@@ -76,6 +76,26 @@ static void test_azole_nh__oxo_fused_triazole_is_the_stronger_acid(void)
 	CHECK(pyrazole - triazole > 2.0); /* measured 3.04 apart */
 }
 
+/* The 1,2,3-triazole N-H site holds its ring, so the walk reaches ring substituents and a ring N
+ * in a fused pyridine counts (as for imidazoles): 5-amino-1,2,3-triazole-4-carbonitrile 6.15
+ * (serjeant2132), 5-amino-6-cyano-1H-1,2,3-triazolo[4,5-b]-
+ * pyridine 6.53 (serjeant2822, step 2), against 1,2,3-triazole 9.3 and benzotriazole about 8.4
+ * (from memory). Without the walk every one of them read 6.9, the parent the fit was dragged
+ * to by such rows. */
+static void test_azole_nh__triazole_nh_counts_its_ring(void)
+{
+	double triazole = site_pka("c1c[nH]nn1", "triazole_nh", PRED_ACID);
+	double benzo = site_pka("c1ccc2[nH]nnc2c1", "triazole_nh", PRED_ACID);
+	double cyano = site_pka("N#Cc1[nH]nnc1N", "triazole_nh", PRED_ACID);
+	double pyrido = site_pka("N#Cc1cc2[nH]nnc2nc1N", "triazole_nh", PRED_ACID);
+	CHECK(!isnan(triazole) && !isnan(benzo) && !isnan(cyano) && !isnan(pyrido));
+	CHECK_NEAR(triazole, 9.3, 1.0);
+	CHECK_NEAR(benzo, 8.4, 1.0);
+	CHECK_NEAR(cyano, 6.15, 1.0);
+	CHECK_NEAR(pyrido, 6.53, 1.0);
+	CHECK(cyano < triazole - 2.0 && pyrido < benzo - 1.0);
+}
+
 /* Acceptors on the pyrrole ring of an indole lower its N-H, the stronger acceptor the more
  * (the ring is part of the site, so the walk reaches them): 3-nitroindole 10.12
  * (serjeant4115), indole-3-carbaldehyde 12.36 (serjeant4656); indole about 17 (from memory).
@@ -118,6 +138,7 @@ int main(void)
 	RUN(test_azole_nh__pyrazolone_is_a_carbon_acid);
 	RUN(test_azole_nh__hydrazono_azolone_nh);
 	RUN(test_azole_nh__oxo_fused_triazole_is_the_stronger_acid);
+	RUN(test_azole_nh__triazole_nh_counts_its_ring);
 	RUN(test_azole_nh__pyrrole_ring_acceptors_follow_their_strength);
 	RUN(test_azole_nh__benzimidazolone_nh_and_azole_bases);
 	probe_teardown(model, worker);
