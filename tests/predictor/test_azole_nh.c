@@ -65,7 +65,7 @@ static void test_azole_nh__hydrazono_azolone_nh(void)
 /* A third N in the five ring of an oxo-fused azole N-H (a 1,2,4-triazole instead of a
  * pyrazole) makes it about three units more acidic: 5-methyl-[1,2,4]triazolo[1,5-a]pyrimidin-
  * 7-one 6.22 (serjeant3037, its C=O beside the fusion atom that bears the N-H) against
- * 5,7-dimethylpyrazolo[3,4-d]pyrimidine-4,6-dione 9.26 (serjeant3731). */
+ * 5,7-dimethyl-1H-pyrazolo[3,4-d]pyrimidine-4,6(5H,7H)-dione 9.26 (serjeant3731). */
 static void test_azole_nh__oxo_fused_triazole_is_the_stronger_acid(void)
 {
 	double triazole = site_pka("Cc1cc(=O)n2c(n1)nc[nH]2", "azole_nh", PRED_ACID);
@@ -78,10 +78,9 @@ static void test_azole_nh__oxo_fused_triazole_is_the_stronger_acid(void)
 
 /* The 1,2,3-triazole N-H site holds its ring, so the walk reaches ring substituents and a ring N
  * in a fused pyridine counts (as for imidazoles): 5-amino-1,2,3-triazole-4-carbonitrile 6.15
- * (serjeant2132), 5-amino-6-cyano-1H-1,2,3-triazolo[4,5-b]-
- * pyridine 6.53 (serjeant2822, step 2), against 1,2,3-triazole 9.3 and benzotriazole about 8.4
- * (from memory). Without the walk every one of them read 6.9, the parent the fit was dragged
- * to by such rows. */
+ * (serjeant2132), 5-amino-6-cyano-1H-1,2,3-triazolo[4,5-b]pyridine 6.53 (serjeant2822,
+ * step 2), against 1,2,3-triazole 9.3 and benzotriazole about 8.4 (from memory). Without the
+ * walk every one of them read 6.9, the parent the fit was dragged to by such rows. */
 static void test_azole_nh__triazole_nh_counts_its_ring(void)
 {
 	double triazole = site_pka("c1c[nH]nn1", "triazole_nh", PRED_ACID);
