@@ -83,23 +83,43 @@ static int ring_is_aromatic6(const eng_mol *e, size_t k)
 	return 1;
 }
 
-/* The Hammett ring of a site: an aromatic six-ring holding the centre, or bonded to it. */
-static int hammett_ring(const eng_mol *e, const eng_site *s, int *ipso)
+enum { RING_CHOICES = 8 };
+
+/* The candidate Hammett rings of a site: the aromatic six-rings holding the centre, else
+ * those holding a neighbour of it (ring k[i] with ipso atom ipso[i]). Returns the count. */
+static int hammett_rings(const eng_mol *e, const eng_site *s, int *k, int *ipso)
 {
-	for (size_t k = 0; k < e->rings.n_rings; k++)
-		if (ring_is_aromatic6(e, k) && ring_index_of(&e->rings, k, s->centre) >= 0) {
-			*ipso = s->centre;
-			return (int)k;
+	int found = 0;
+	for (size_t r = 0; r < e->rings.n_rings && found < RING_CHOICES; r++)
+		if (ring_is_aromatic6(e, r) && ring_index_of(&e->rings, r, s->centre) >= 0) {
+			k[found] = (int)r;
+			ipso[found++] = s->centre;
 		}
+	if (found)
+		return found;
 	int n;
 	const int *nb = eng_nbrs(e, s->centre, &n);
 	for (int j = 0; j < n; j++)
-		for (size_t k = 0; k < e->rings.n_rings; k++)
-			if (ring_is_aromatic6(e, k) && ring_index_of(&e->rings, k, nb[j]) >= 0) {
-				*ipso = nb[j];
-				return (int)k;
+		for (size_t r = 0; r < e->rings.n_rings && found < RING_CHOICES; r++)
+			if (ring_is_aromatic6(e, r) && ring_index_of(&e->rings, r, nb[j]) >= 0) {
+				k[found] = (int)r;
+				ipso[found++] = nb[j];
 			}
-	return -1;
+	return found;
+}
+
+/* Whether ring a comes before ring b in canonical order: the lowest rank of the atoms of a
+ * not in b against that of the atoms of b not in a. */
+static int ring_before(const eng_mol *e, int a, int b)
+{
+	int low[2] = {(int)e->nat, (int)e->nat}, k[2] = {a, b};
+	for (int i = 0; i < 2; i++)
+		for (int j = 0; j < e->rings.sizes[k[i]]; j++) {
+			int x = e->rings.atoms[e->rings.offsets[k[i]] + j];
+			if (ring_index_of(&e->rings, (size_t)k[1 - i], x) < 0 && e->rank[x] < low[i])
+				low[i] = e->rank[x];
+		}
+	return low[0] < low[1];
 }
 
 /* Atoms a and x share a ring other than ring k (ring fusion, not a substituent). */
@@ -422,6 +442,44 @@ static void ring_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 	}
 }
 
+/* The Hammett ring of a site (its index, -1 none; *ipso its atom bonded to or at the centre).
+ * Where the centre touches several aromatic six-rings (a diaryl ketone or amine, the N of a
+ * phenothiazine, an anthraquinone carbonyl) the ring whose substituents shift the site most
+ * is taken: the other rings then stand for the unsubstituted aryl of the parent class
+ * (diarylamine, aryl ketone). Equal shifts (symmetric rings) go to the lowest canonical rank
+ * of the ipso atom, then of the ring's atoms, so that the atom order of the input never
+ * decides. seen, queue and depth are the caller's (all clear on entry and on return). */
+static int hammett_ring(const eng_mol *e, const pred_model *m, const eng_site *s, int *ipso,
+			unsigned char *seen, int *queue, int *depth)
+{
+	int k[RING_CHOICES], at[RING_CHOICES];
+	int n = hammett_rings(e, s, k, at), best = 0;
+	term_list *tl = n > 1 ? malloc(sizeof *tl) : NULL;
+	double best_shift = 0;
+	for (int i = 0; tl && i < n; i++) {
+		tl->n = 0;
+		tl->extra_var = 0;
+		tl->n_generic = 0;
+		ring_effects(tl, e, m, s, (size_t)k[i], at[i], seen, queue, depth);
+		memset(seen, 0, e->nat + 1);
+		double shift = fabs(terms_sum(tl));
+		int better = i == 0 || shift > best_shift + 1e-9;
+		if (!better && fabs(shift - best_shift) <= 1e-9 && e->rank) {
+			int ri = e->rank[at[i]], rb = e->rank[at[best]];
+			better = ri < rb || (ri == rb && ring_before(e, k[i], k[best]));
+		}
+		if (better) {
+			best = i;
+			best_shift = shift;
+		}
+	}
+	free(tl);
+	if (n == 0)
+		return -1;
+	*ipso = at[best];
+	return k[best];
+}
+
 /* One Taft term per group the walk from the centre meets: -rho* sigma* f^(d-1). */
 typedef struct taft_ctx {
 	term_list *tl;
@@ -493,7 +551,9 @@ void eng_site_effects(term_list *tl, const eng_mol *e, const pred_worker *w, con
 	int *queue = malloc((e->nat + 1) * sizeof *queue);
 	int *depth = malloc((e->nat + 1) * sizeof *depth);
 	if (seen && queue && depth) {
-		int ipso = -1, k = m->params[row->p_rho].value != 0 ? hammett_ring(e, s, &ipso) : -1;
+		int ipso = -1, k = m->params[row->p_rho].value != 0
+					   ? hammett_ring(e, m, s, &ipso, seen, queue, depth)
+					   : -1;
 		if (k >= 0)
 			ring_effects(tl, e, m, s, (size_t)k, ipso, seen, queue, depth);
 		walk_effects(tl, e, m, s, seen, queue, depth);

@@ -243,15 +243,16 @@ static int build_sites(pred_result *r, eng_mol *e, pred_worker *w, pred_error *e
 	r->design = res_alloc(r, (n + 1) * sizeof *r->design);
 	r->micro = res_alloc(r, (n + 1) * sizeof *r->micro);
 	int rc = tls && micro && sym && r->sites && r->design && r->micro ? 0 : PRED_ENOMEM;
-	/* only sites of one row can be equivalent; the ranks of the same refinement serve
-	 * the canonical SMILES later */
+	/* only sites of one row can be equivalent; the ranks break ties that the atom order
+	 * must not decide (effects.c) and serve the canonical SMILES later */
 	e->shared_rows = rows_shared(e);
 	for (size_t a = 0; a < e->nat && sym; a++)
 		sym[a] = (int)a;
-	if (!rc && e->shared_rows) {
+	if (!rc) {
 		e->rank = malloc((e->nat + 1) * sizeof *e->rank);
 		e->scls = malloc((e->nat + 1) * sizeof *e->scls);
-		rc = e->rank && e->scls ? canon_rank(sym, e->scls, e->rank, e->mol, NULL)
+		rc = e->rank && e->scls ? canon_rank(e->shared_rows ? sym : NULL, e->scls, e->rank,
+						     e->mol, NULL)
 				       : PRED_ENOMEM;
 	}
 	for (size_t i = 0; i < n && !rc; i++)

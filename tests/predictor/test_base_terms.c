@@ -46,6 +46,28 @@ static void test_base_terms__azinones_protonate_on_the_chalcogen(void)
 	pred_result_free(r);
 }
 
+/* A centre touching two aryl rings takes as its Hammett ring the one whose substituents
+ * shift it most, whichever is drawn first: the 4-nitrophenyl of 4-bromo-N-methyl-N-(4-
+ * nitrophenyl)aniline (measured -4.21, perrin_supp4296 via data/iupac-pka.csv, far under
+ * diphenylamine's 0.79, perrin0603), not the 4-bromophenyl (which gave 2.28 when drawn
+ * first), and the carbonyl O of 4-benzoylbiphenyl (-6.31, perrin3521) one value in either
+ * order. */
+static void test_base_terms__hammett_ring_of_two_aryls(void)
+{
+	double br_first = site_pka("Brc1ccc(cc1)N(c1ccc(cc1)[N+](=O)[O-])C", "aniline", PRED_BASE);
+	double no2_first = site_pka("c1(ccc(N(c2ccc(Br)cc2)C)cc1)[N+](=O)[O-]", "aniline",
+				    PRED_BASE);
+	CHECK_NEAR(br_first, no2_first, 1e-9);
+	CHECK(br_first < 0.79);
+	double k1 = site_pka("O=C(c1ccccc1)c1ccc(cc1)c1ccccc1", "oxygen_base", PRED_BASE);
+	double k2 = site_pka("c1ccc(cc1)-c1ccc(C(c2ccccc2)=O)cc1", "oxygen_base", PRED_BASE);
+	CHECK_NEAR(k1, k2, 1e-9);
+	/* the trifluoromethyl ring of a 2-CF3-phenothiazine's ring N, in either order */
+	double p1 = site_pka("CN(CCCN1c2ccccc2Sc2c1cc(cc2)C(F)(F)F)C", "aniline", PRED_BASE);
+	double p2 = site_pka("N(C)(CCCN1c2c(ccc(C(F)(F)F)c2)Sc2ccccc21)C", "aniline", PRED_BASE);
+	CHECK_NEAR(p1, p2, 1e-9);
+}
+
 /* The N+ of a nitro group on N or O is no base: a nitramine or a nitrate ester is not
  * protonated in water (common practice); read as hydrazine and hydroxylamine N they put a
  * cation beside the C-H acid of 2,2-dinitroethylnitramines and made it 2 units too strong. */
@@ -363,6 +385,7 @@ int main(void)
 		return 1;
 	RUN(test_base_terms__azinones_protonate_on_the_chalcogen);
 	RUN(test_base_terms__nitro_on_n_or_o_is_no_base);
+	RUN(test_base_terms__hammett_ring_of_two_aryls);
 	RUN(test_base_terms__acyl_nitro_cyano_guanidines);
 	RUN(test_base_terms__fused_pyrimidine_ring_n);
 	RUN(test_base_terms__pteridine_cations_hydrate);
