@@ -239,6 +239,16 @@ static void test_base_terms__parallel_saturated_routes_add_to_the_interaction(vo
 	 * 5 bonds, that of butane-1,4-diamine (common practice) */
 	diamine_steps("Nc1ccc(N)cc1", &w, &low);
 	CHECK_NEAR(w, w5, 0.01);
+	/* 1,2,3,4-tetrahydroquinoxaline: the ethano bridge and the benzo ring join the N by 3
+	 * bonds each; the saturated one is the shortest route whichever the atom order puts
+	 * first, so the aromatic one never counts as a further route (second step 2.11,
+	 * perrin2340, train row; 0.75 when the benzo ring was taken first) */
+	double wa, wb, lowa, lowb;
+	diamine_steps("C1CNc2c(N1)cccc2", &wa, &lowa);
+	diamine_steps("c1cc2NCCNc2cc1", &wb, &lowb);
+	CHECK_NEAR(wa, wb, 1e-9);
+	CHECK_NEAR(wa, w3, 0.01);
+	CHECK_NEAR(lowa, 2.11, 0.5);
 }
 
 /* An ammonium beside phosphonomethyl arms (corrections.tsv amine_alpha_phosphono, once per
