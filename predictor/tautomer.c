@@ -141,20 +141,88 @@ static int beside_amino_carbon(const graph *g, int n, int c1)
 	return 0;
 }
 
+enum { MATCH_BUDGET = 20000 };
+
+/* Whether the atoms with need[] set pair up over aromatic bonds (a Kekule form exists for
+ * them); need[] is as it was on return. Exhaustive within *budget calls, so the answer is
+ * the molecule's, not its atom order's. */
+static int pairs_up(const graph *g, unsigned char *need, int *budget)
+{
+	int x = -1;
+	for (size_t i = 0; i < g->na && x < 0; i++)
+		if (need[i])
+			x = (int)i;
+	if (x < 0)
+		return 1;
+	if (--*budget < 0)
+		return 0;
+	int ok = 0;
+	need[x] = 0;
+	for (int i = g->start[x]; i < g->start[x + 1] && !ok; i++) {
+		int y = other(g, g->adj[i], x);
+		if (!g->b[g->adj[i]].aromatic || !need[y])
+			continue;
+		need[y] = 0;
+		ok = pairs_up(g, need, budget);
+		need[y] = 1;
+	}
+	need[x] = 1;
+	return ok;
+}
+
+/* Six-rings that keep a benzenoid sextet in the tautomer s makes: rings of atoms that
+ * still need a double bond whose other such atoms still pair up without them. Quinazolin-
+ * 2-ol to the 1H-one keeps its benzo ring (N3=C4 pair off), to the 3H-one it would not
+ * (N1 and C4 are left apart): the more aromatic form is the one found in water (common
+ * practice). -1 when out of memory. */
+static int sextets_kept(const graph *g, const shift *s)
+{
+	unsigned char *need = calloc(g->na + 1, 1);
+	if (!need)
+		return -1;
+	for (size_t k = 0; k < g->nb; k++)
+		if (g->b[k].aromatic && g->b[k].order == 2)
+			need[g->b[k].a] = need[g->b[k].b] = 1;
+	need[s->path[1]] = need[s->path[s->len - 1]] = 0;
+	int count = 0;
+	for (size_t r = 0; r < g->rings.n_rings; r++) {
+		const int *ra = g->rings.atoms + g->rings.offsets[r];
+		int all = g->rings.sizes[r] == 6, budget = MATCH_BUDGET;
+		for (int j = 0; j < 6 && all; j++)
+			all = need[ra[j]] && order(g, ra[j], ra[(j + 1) % 6]) &&
+			      g->a[ra[j]].aromatic;
+		if (!all)
+			continue;
+		for (int j = 0; j < 6; j++)
+			need[ra[j]] = 0;
+		count += pairs_up(g, need, &budget);
+		for (int j = 0; j < 6; j++)
+			need[ra[j]] = 1;
+	}
+	free(need);
+	return count;
+}
+
 /* Preference of a shift, lower first: a thiol before a hydroxyl (thioamide tautomers are the
  * more favoured, common practice), then the lactam whose N-H is beside the C=O (2-pyridone
  * type; 4(3H)-pyrimidinones, hypoxanthine N1-H, guanine N1-H) before the vinylogous
- * azinone (4-pyridone type), before an enol's ketone; among ring N beside C-OH, the one not
- * beside a ring carbon bearing an amino group (cytosine is the 1H amino-oxo tautomer, the
- * amidine N beside the amino carbon stays free; common practice). Ties go to the canonical
- * ranks of donor and acceptor, so the choice never depends on the atom order or the Kekule
- * form of the input. */
+ * azinone (4-pyridone type), before an enol's ketone; then the form that keeps more
+ * benzenoid rings (sextets_kept); among ring N beside C-OH, the one not beside a ring
+ * carbon bearing an amino group (cytosine is the 1H amino-oxo tautomer, the amidine N
+ * beside the amino carbon stays free; common practice). Ties go to the canonical ranks of
+ * donor and acceptor, so the choice never depends on the atom order or the Kekule form of
+ * the input. */
 static int shift_key(const graph *g, const shift *s)
 {
 	int o = s->path[0], c1 = s->path[1], n = s->path[s->len - 1];
 	int cls = s->kind == SHIFT_IMINOL ? 0 : s->kind == SHIFT_AZINE ? 1 : 2;
-	int amino = s->kind == SHIFT_IMINOL && g->a[c1].aromatic && beside_amino_carbon(g, n, c1);
-	return (g->a[o].element == 16 ? 0 : 6) + 2 * cls + amino;
+	int ring = g->a[c1].aromatic, amino = s->kind == SHIFT_IMINOL && ring &&
+						 beside_amino_carbon(g, n, c1);
+	int kept = ring ? sextets_kept(g, s) : 0;
+	if (kept < 0)
+		return -1;
+	kept = kept > 9 ? 9 : kept;
+	return (g->a[o].element == 16 ? 0 : 1000) + 100 * cls + 10 * (9 - kept) + amino;
 }
 
 /* Extends the path p (len atoms so far; bond k has order 1 for even k, 2 for odd k) through
@@ -232,6 +300,10 @@ static int conjugated(const graph *g, int o, int c1, int c2)
 static void offer(const graph *g, const obw_mol *m, int **rank, int *rc, const shift *s,
 		  shift *best)
 {
+	if (s->key < 0) {
+		*rc = PRED_ENOMEM;
+		return;
+	}
 	if (best->kind != SHIFT_NONE && s->key > best->key)
 		return;
 	if (best->kind != SHIFT_NONE && s->key == best->key) {

@@ -205,6 +205,13 @@ static const norm_case tautomer_cases[] = {
 	{"OC1=CN=NC=C1", "O=c1cc[nH]nc1", "hydroxy-azine to azinone",
 	 "pyridazin-4(1H)-one as C3=C4"},
 	{"Oc1ncnc2c1cccc2", "O=c1[nH]cnc2ccccc12", "lactim to lactam", "quinazolin-4(3H)-one"},
+	/* of two N beside C-OH the one whose N-H keeps the benzo ring benzenoid (the more
+	 * aromatic form, common practice): quinazolin-2(1H)-one, not the o-quinonoid 3H-one */
+	{"Oc1ncc2c(n1)cccc2", "O=c1ncc2ccccc2[nH]1", "lactim to lactam", "quinazolin-2(1H)-one"},
+	{"c1nc(O)nc2ccccc12", "O=c1ncc2ccccc2[nH]1", "lactim to lactam",
+	 "quinazolin-2(1H)-one, other order"},
+	/* 2,4-dihydroxypyridine: the 2-pyridone (N-H beside C=O) keeps the 4-OH */
+	{"Oc1ccnc(c1)O", "O=c1cc(O)cc[nH]1", "lactim to lactam", "4-hydroxypyridin-2(1H)-one"},
 	{"Nc1nc2nc[nH]c2c(O)n1", "Nc1nc2nc[nH]c2c(=O)[nH]1", "lactim to lactam",
 	 "7H-guanine drawn C6=C5 (N1-H, not N3-H)"},
 	{"CCC1(c2ccccc2)C(O)=NC(O)=NC1=O", "CCC1(c2ccccc2)C(=O)NC(=O)NC1=O", "lactim to lactam",
