@@ -217,12 +217,15 @@ static void hammett_term(term_list *tl, const pred_model *m, const frag_site *ro
 
 static void mark_group(unsigned char *seen, const eng_mol *e, int x)
 {
-	seen[x] = 1;
+	/* 2: the group is counted (met at its root, or an unclaimed atom); 3: met at another of
+	 * its atoms, which the walk counts as generic atoms, but its root no more */
+	int mark = e->group_root[x] < 0 || e->group_root[x] == x ? 2 : 3;
+	seen[x] = (unsigned char)mark;
 	if (e->group_root[x] < 0)
 		return;
 	for (size_t a = 0; a < e->nat; a++)
-		if (e->group_root[a] == e->group_root[x])
-			seen[a] = 1;
+		if (e->group_root[a] == e->group_root[x] && seen[a] != 2)
+			seen[a] = (unsigned char)mark;
 }
 
 /* Atoms the walk passes through without a term: plain carbon, and aromatic ring atoms no
@@ -284,8 +287,33 @@ static void aryl_ring_effects(term_list *tl, const eng_mol *e, const pred_model 
 typedef void (*walk_visit)(void *ctx, const sigmas *sg, int x, int d, double att,
 			   unsigned char *seen);
 
-/* Breadth-first walk from atom `from`: plain carbons, transparent groups and the site's own
- * atoms are passed through; any other group is marked seen, then visited once, and ends its branch. With
+/* Whether x is an atom of a (non-transparent) group other than its root: a group the walk
+ * reaches at its root and at another atom at one depth is its tabulated self. */
+static int group_member(const eng_mol *e, const pred_model *m, int x)
+{
+	int g = e->group[x];
+	return g >= 0 && e->group_root[x] != x && !m->substs[g].transparent;
+}
+
+/* Orders the n atoms of one depth: group roots and other atoms before the other members of
+ * groups, then by canonical rank, so that the atom order of the input never decides which
+ * atom of a group the walk meets first, or which group takes a shared substituent. */
+static void sort_layer(const eng_mol *e, const pred_model *m, int *q, int n)
+{
+	for (int i = 1; i < n; i++)
+		for (int j = i; j > 0; j--) {
+			int a = q[j - 1], b = q[j], ma = group_member(e, m, a), mb = group_member(e, m, b);
+			if (ma < mb || (ma == mb && (!e->rank || e->rank[a] < e->rank[b])))
+				break;
+			q[j - 1] = b;
+			q[j] = a;
+		}
+}
+
+/* Breadth-first walk from atom `from`, one depth at a time: plain carbons, transparent groups
+ * and the site's own atoms are passed through; any other group is marked seen (mark_group),
+ * then visited once, and ends its branch; the groups of one depth are visited before the
+ * next depth is queued, and a group counted already is not counted again. With
  * `alkyl` set, a transparent group is visited too (its sigma*) and passed through. */
 static void walk_from(const eng_mol *e, const pred_model *m, const eng_site *s, int from,
 		      int alkyl, unsigned char *seen, int *queue, int *depth, walk_visit visit,
@@ -302,36 +330,50 @@ static void walk_from(const eng_mol *e, const pred_model *m, const eng_site *s, 
 			queue[tail++] = nb[j];
 		}
 	while (head < tail) {
-		int x = queue[head], d = depth[head++];
-		int g = e->group[x];
-		int root = g >= 0 && e->group_root[x] == x && !m->substs[g].transparent;
-		/* atoms of the site's own match belong to the parent: passed through, not counted,
-		 * except an sp3 carbon standing for "R" (the R of R-COOH may be a CF3) */
-		int r_position = in_match(s, x) && e->atoms[x].element == 6 && e->atoms[x].hyb == 3;
-		int transparent = !(root && (r_position || !in_match(s, x))) &&
-				  (in_match(s, x) || (g >= 0 ? m->substs[g].transparent
-							     : plain_carbon(e, x)));
-		if (!transparent) {
+		int end = tail, d = depth[head];
+		sort_layer(e, m, queue + head, end - head);
+		for (int i = head; i < end; i++) {
+			int x = queue[i], g = e->group[x];
+			int root = g >= 0 && e->group_root[x] == x && !m->substs[g].transparent;
+			/* atoms of the site's own match belong to the parent: passed through, not
+			 * counted, except an sp3 carbon standing for "R" (the R of R-COOH may be a
+			 * CF3) */
+			int r_position = in_match(s, x) && e->atoms[x].element == 6 &&
+					 e->atoms[x].hyb == 3;
+			int transparent = !(root && (r_position || !in_match(s, x))) &&
+					  (in_match(s, x) || (g >= 0 ? m->substs[g].transparent
+								     : plain_carbon(e, x)));
+			if (transparent)
+				continue;
+			queue[i] = -1; /* a group ends its branch */
+			if (seen[x] == 2 || (seen[x] == 3 && root))
+				continue; /* its group is counted already */
 			sigmas sg;
 			group_sigmas(&sg, e, m, x);
 			mark_group(seen, e, x);
 			visit(ctx, &sg, x, d, pow(f, d - 1), seen);
-			continue;
 		}
-		if (alkyl && g >= 0 && e->group_root[x] == x && !in_match(s, x)) {
-			sigmas sg;
-			group_sigmas(&sg, e, m, x);
-			visit(ctx, &sg, x, d, pow(f, d - 1), seen);
-		}
-		if (d >= WALK_DEPTH)
-			continue;
-		nb = eng_nbrs(e, x, &n);
-		for (int j = 0; j < n; j++)
-			if (!seen[nb[j]]) {
-				seen[nb[j]] = 1;
-				depth[tail] = d + 1;
-				queue[tail++] = nb[j];
+		for (int i = head; i < end; i++) {
+			int x = queue[i];
+			if (x < 0)
+				continue;
+			int g = e->group[x];
+			if (alkyl && g >= 0 && e->group_root[x] == x && !in_match(s, x)) {
+				sigmas sg;
+				group_sigmas(&sg, e, m, x);
+				visit(ctx, &sg, x, d, pow(f, d - 1), seen);
 			}
+			if (d >= WALK_DEPTH)
+				continue;
+			nb = eng_nbrs(e, x, &n);
+			for (int j = 0; j < n; j++)
+				if (!seen[nb[j]]) {
+					seen[nb[j]] = 1;
+					depth[tail] = d + 1;
+					queue[tail++] = nb[j];
+				}
+		}
+		head = end;
 	}
 }
 

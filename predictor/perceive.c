@@ -171,13 +171,32 @@ static int add_site(eng_mol *e, int row, const int *mt, int k, int centre)
 	return 0;
 }
 
+enum { MATCH_SORT_MAX = 64 };
+
+/* The canonical ranks of the k atoms of mt, ascending, into out (k <= MATCH_SORT_MAX). */
+static void sorted_ranks(const eng_mol *e, const int *mt, int k, int *out)
+{
+	for (int i = 0; i < k; i++) {
+		int r = e->rank[mt[i]], j = i;
+		for (; j > 0 && out[j - 1] > r; j--)
+			out[j] = out[j - 1];
+		out[j] = r;
+	}
+}
+
 /* Whether match mt (k atoms) comes before the match of site s in canonical order: the
- * canonical ranks of their atoms in pattern order, compared as words. */
+ * canonical ranks of their atoms as sets (Open Babel keeps one mapping per atom set, in an
+ * order of its own), ascending, compared as words. */
 static int match_before(const eng_mol *e, const int *mt, int k, const eng_site *s)
 {
-	for (int j = 0; j < k && j < s->n_match; j++)
-		if (e->rank[mt[j]] != e->rank[s->match[j]])
-			return e->rank[mt[j]] < e->rank[s->match[j]];
+	if (k != s->n_match || k > MATCH_SORT_MAX)
+		return 0;
+	int a[MATCH_SORT_MAX], b[MATCH_SORT_MAX];
+	sorted_ranks(e, mt, k, a);
+	sorted_ranks(e, s->match, k, b);
+	for (int j = 0; j < k; j++)
+		if (a[j] != b[j])
+			return a[j] < b[j];
 	return 0;
 }
 

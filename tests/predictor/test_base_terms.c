@@ -93,16 +93,22 @@ static int sorted_sites(const char *smiles, double *out, int max)
 
 /* Of a site row's matches at one atom the one first in canonical order is the site: the
  * thione S of 1-methyl-4-thiouracil-type rings has a ring N on either side as its centre,
- * and 3-(dimethylphosphino)phenol's P two of its three carbons in the match; written in
- * another atom order, each gives the same values (common practice: a prediction is a
- * function of the molecule). */
-static void test_base_terms__site_match_does_not_follow_atom_order(void)
+ * and a phosphine's P two of its three carbons in the match. The Taft walk meets the groups
+ * of one depth in canonical order, before it goes deeper (the imine of a 1,2-dihydro-
+ * pyrimidine at 2 bonds by its N and at 3 by its C; the N-methyls of a pyrazolopyrimidine-
+ * dione on its ring met as an aryl). Written in another atom order, each gives the same
+ * values (common practice: a prediction is a function of the molecule). */
+static void test_base_terms__values_do_not_follow_atom_order(void)
 {
 	static const char *const pairs[][2] = {
 		{"Cn1ccc(=S)[nH]c1=S", "n1(c(=S)[nH]c(cc1)=S)C"},
 		{"Cn1c(=O)cn[nH]c1=S", "O=c1n(C)c(=S)[nH]nc1"},
 		{"Oc1cccc(c1)P(C)C", "P(C)(C)c1cccc(O)c1"},
+		{"OS(=O)(=O)c1cccc(c1)P(c1ccccc1)c1ccccc1",
+		 "c1c(P(c2ccccc2)c2cc(S(=O)(O)=O)ccc2)cccc1"},
 		{"Cn1ccc(=N)n(c1=O)C", "c1cn(c(=O)n(c1=N)C)C"},
+		{"CNC1N=CC(=CN1C)Br", "N(C1N(C=C(Br)C=N1)C)C"},
+		{"Cn1c(=O)c2c(C)n[nH]c2n(c1=O)C", "n1(C)c2[nH]nc(c2c(=O)n(C)c1=O)C"},
 	};
 	for (size_t p = 0; p < sizeof pairs / sizeof pairs[0]; p++) {
 		double a[16], b[16];
@@ -112,6 +118,17 @@ static void test_base_terms__site_match_does_not_follow_atom_order(void)
 		for (int i = 0; i < na && i < nb; i++)
 			CHECK_NEAR(a[i], b[i], 1e-9);
 	}
+}
+
+/* A group the Taft walk meets at its root and at another of its atoms at one depth is one
+ * substituent, counted once by its tabulated constant (common practice): the ring C=N of
+ * 5,7-dimethyl-2,3-dihydro-1H-1,4-diazepine is 3 bonds from the enamine N by its C and by
+ * its N. */
+static void test_base_terms__walk_counts_a_group_once(void)
+{
+	const char *smi = "CC1=CC(=NCCN1)C";
+	CHECK_INT_EQ(site_term_count(smi, "enamine", PRED_BASE, "generic_substituent"), 0);
+	CHECK_INT_EQ(site_term_count(smi, "enamine", PRED_BASE, "taft"), 1);
 }
 
 /* The N+ of a nitro group on N or O is no base: a nitramine or a nitrate ester is not
@@ -442,7 +459,8 @@ int main(void)
 	RUN(test_base_terms__azinones_protonate_on_the_chalcogen);
 	RUN(test_base_terms__nitro_on_n_or_o_is_no_base);
 	RUN(test_base_terms__hammett_ring_of_two_aryls);
-	RUN(test_base_terms__site_match_does_not_follow_atom_order);
+	RUN(test_base_terms__values_do_not_follow_atom_order);
+	RUN(test_base_terms__walk_counts_a_group_once);
 	RUN(test_base_terms__acyl_nitro_cyano_guanidines);
 	RUN(test_base_terms__fused_pyrimidine_ring_n);
 	RUN(test_base_terms__pteridine_cations_hydrate);
