@@ -162,6 +162,15 @@ static int route_bfs(const eng_mol *e, route_work *rw, int a, int b)
 	return len;
 }
 
+/* The shortest route from a to b whose interior atoms are all saturated (in par[]; its
+ * length, -1 when there is none); leaves those other atoms blocked. */
+static int saturated_route(const eng_mol *e, route_work *rw, int a, int b)
+{
+	for (size_t x = 0; x < e->nat; x++)
+		rw->blocked[x] = !is_saturated(e, (int)x) && (int)x != a && (int)x != b;
+	return route_bfs(e, rw, a, b);
+}
+
 /* Marks the interior atoms of the route just found that every route must pass (an atom in
  * no ring always is one; a ring atom when blocking it alone cuts a from b). */
 static void mark_shared(const eng_mol *e, route_work *rw, int a, int b, int *path, int len)
@@ -204,8 +213,21 @@ static double extra_routes(const eng_mol *e, const pred_model *m, route_work *rw
 	int len = route_bfs(e, rw, a, b);
 	if (len < 2 || len > ROUTE_MAX_BONDS)
 		return 0;
+	/* of equally short routes the saturated one is the shortest route, so that a route
+	 * through aromatic atoms never counts as a further one (1,2,3,4-tetrahydroquinoxaline:
+	 * the ethano bridge and the benzo ring join its two N by 3 bonds each) and the breadth-
+	 * first order of the atoms does not decide */
+	int saturated = saturated_route(e, rw, a, b) == len;
+	memset(rw->blocked, 0, e->nat);
+	if (!saturated)
+		route_bfs(e, rw, a, b);
 	mark_shared(e, rw, a, b, path, len);
-	route_bfs(e, rw, a, b); /* mark_shared reused par[] */
+	/* mark_shared reused par[]: the same route again */
+	if (saturated)
+		saturated_route(e, rw, a, b);
+	else
+		route_bfs(e, rw, a, b);
+	memset(rw->blocked, 0, e->nat);
 	if (!block_route(rw, a, b))
 		return 0;
 	for (size_t x = 0; x < e->nat; x++)

@@ -83,23 +83,43 @@ static int ring_is_aromatic6(const eng_mol *e, size_t k)
 	return 1;
 }
 
-/* The Hammett ring of a site: an aromatic six-ring holding the centre, or bonded to it. */
-static int hammett_ring(const eng_mol *e, const eng_site *s, int *ipso)
+enum { RING_CHOICES = 8 };
+
+/* The candidate Hammett rings of a site: the aromatic six-rings holding the centre, else
+ * those holding a neighbour of it (ring k[i] with ipso atom ipso[i]). Returns the count. */
+static int hammett_rings(const eng_mol *e, const eng_site *s, int *k, int *ipso)
 {
-	for (size_t k = 0; k < e->rings.n_rings; k++)
-		if (ring_is_aromatic6(e, k) && ring_index_of(&e->rings, k, s->centre) >= 0) {
-			*ipso = s->centre;
-			return (int)k;
+	int found = 0;
+	for (size_t r = 0; r < e->rings.n_rings && found < RING_CHOICES; r++)
+		if (ring_is_aromatic6(e, r) && ring_index_of(&e->rings, r, s->centre) >= 0) {
+			k[found] = (int)r;
+			ipso[found++] = s->centre;
 		}
+	if (found)
+		return found;
 	int n;
 	const int *nb = eng_nbrs(e, s->centre, &n);
 	for (int j = 0; j < n; j++)
-		for (size_t k = 0; k < e->rings.n_rings; k++)
-			if (ring_is_aromatic6(e, k) && ring_index_of(&e->rings, k, nb[j]) >= 0) {
-				*ipso = nb[j];
-				return (int)k;
+		for (size_t r = 0; r < e->rings.n_rings && found < RING_CHOICES; r++)
+			if (ring_is_aromatic6(e, r) && ring_index_of(&e->rings, r, nb[j]) >= 0) {
+				k[found] = (int)r;
+				ipso[found++] = nb[j];
 			}
-	return -1;
+	return found;
+}
+
+/* Whether ring a comes before ring b in canonical order: the lowest rank of the atoms of a
+ * not in b against that of the atoms of b not in a. */
+static int ring_before(const eng_mol *e, int a, int b)
+{
+	int low[2] = {(int)e->nat, (int)e->nat}, k[2] = {a, b};
+	for (int i = 0; i < 2; i++)
+		for (int j = 0; j < e->rings.sizes[k[i]]; j++) {
+			int x = e->rings.atoms[e->rings.offsets[k[i]] + j];
+			if (ring_index_of(&e->rings, (size_t)k[1 - i], x) < 0 && e->rank[x] < low[i])
+				low[i] = e->rank[x];
+		}
+	return low[0] < low[1];
 }
 
 /* Atoms a and x share a ring other than ring k (ring fusion, not a substituent). */
@@ -197,12 +217,15 @@ static void hammett_term(term_list *tl, const pred_model *m, const frag_site *ro
 
 static void mark_group(unsigned char *seen, const eng_mol *e, int x)
 {
-	seen[x] = 1;
+	/* 2: the group is counted (met at its root, or an unclaimed atom); 3: met at another of
+	 * its atoms, which the walk counts as generic atoms, but its root no more */
+	int mark = e->group_root[x] < 0 || e->group_root[x] == x ? 2 : 3;
+	seen[x] = (unsigned char)mark;
 	if (e->group_root[x] < 0)
 		return;
 	for (size_t a = 0; a < e->nat; a++)
-		if (e->group_root[a] == e->group_root[x])
-			seen[a] = 1;
+		if (e->group_root[a] == e->group_root[x] && seen[a] != 2)
+			seen[a] = (unsigned char)mark;
 }
 
 /* Atoms the walk passes through without a term: plain carbon, and aromatic ring atoms no
@@ -264,8 +287,33 @@ static void aryl_ring_effects(term_list *tl, const eng_mol *e, const pred_model 
 typedef void (*walk_visit)(void *ctx, const sigmas *sg, int x, int d, double att,
 			   unsigned char *seen);
 
-/* Breadth-first walk from atom `from`: plain carbons, transparent groups and the site's own
- * atoms are passed through; any other group is marked seen, then visited once, and ends its branch. With
+/* Whether x is an atom of a (non-transparent) group other than its root: a group the walk
+ * reaches at its root and at another atom at one depth is its tabulated self. */
+static int group_member(const eng_mol *e, const pred_model *m, int x)
+{
+	int g = e->group[x];
+	return g >= 0 && e->group_root[x] != x && !m->substs[g].transparent;
+}
+
+/* Orders the n atoms of one depth: group roots and other atoms before the other members of
+ * groups, then by canonical rank, so that the atom order of the input never decides which
+ * atom of a group the walk meets first, or which group takes a shared substituent. */
+static void sort_layer(const eng_mol *e, const pred_model *m, int *q, int n)
+{
+	for (int i = 1; i < n; i++)
+		for (int j = i; j > 0; j--) {
+			int a = q[j - 1], b = q[j], ma = group_member(e, m, a), mb = group_member(e, m, b);
+			if (ma < mb || (ma == mb && (!e->rank || e->rank[a] < e->rank[b])))
+				break;
+			q[j - 1] = b;
+			q[j] = a;
+		}
+}
+
+/* Breadth-first walk from atom `from`, one depth at a time: plain carbons, transparent groups
+ * and the site's own atoms are passed through; any other group is marked seen (mark_group),
+ * then visited once, and ends its branch; the groups of one depth are visited before the
+ * next depth is queued, and a group counted already is not counted again. With
  * `alkyl` set, a transparent group is visited too (its sigma*) and passed through. */
 static void walk_from(const eng_mol *e, const pred_model *m, const eng_site *s, int from,
 		      int alkyl, unsigned char *seen, int *queue, int *depth, walk_visit visit,
@@ -282,36 +330,50 @@ static void walk_from(const eng_mol *e, const pred_model *m, const eng_site *s, 
 			queue[tail++] = nb[j];
 		}
 	while (head < tail) {
-		int x = queue[head], d = depth[head++];
-		int g = e->group[x];
-		int root = g >= 0 && e->group_root[x] == x && !m->substs[g].transparent;
-		/* atoms of the site's own match belong to the parent: passed through, not counted,
-		 * except an sp3 carbon standing for "R" (the R of R-COOH may be a CF3) */
-		int r_position = in_match(s, x) && e->atoms[x].element == 6 && e->atoms[x].hyb == 3;
-		int transparent = !(root && (r_position || !in_match(s, x))) &&
-				  (in_match(s, x) || (g >= 0 ? m->substs[g].transparent
-							     : plain_carbon(e, x)));
-		if (!transparent) {
+		int end = tail, d = depth[head];
+		sort_layer(e, m, queue + head, end - head);
+		for (int i = head; i < end; i++) {
+			int x = queue[i], g = e->group[x];
+			int root = g >= 0 && e->group_root[x] == x && !m->substs[g].transparent;
+			/* atoms of the site's own match belong to the parent: passed through, not
+			 * counted, except an sp3 carbon standing for "R" (the R of R-COOH may be a
+			 * CF3) */
+			int r_position = in_match(s, x) && e->atoms[x].element == 6 &&
+					 e->atoms[x].hyb == 3;
+			int transparent = !(root && (r_position || !in_match(s, x))) &&
+					  (in_match(s, x) || (g >= 0 ? m->substs[g].transparent
+								     : plain_carbon(e, x)));
+			if (transparent)
+				continue;
+			queue[i] = -1; /* a group ends its branch */
+			if (seen[x] == 2 || (seen[x] == 3 && root))
+				continue; /* its group is counted already */
 			sigmas sg;
 			group_sigmas(&sg, e, m, x);
 			mark_group(seen, e, x);
 			visit(ctx, &sg, x, d, pow(f, d - 1), seen);
-			continue;
 		}
-		if (alkyl && g >= 0 && e->group_root[x] == x && !in_match(s, x)) {
-			sigmas sg;
-			group_sigmas(&sg, e, m, x);
-			visit(ctx, &sg, x, d, pow(f, d - 1), seen);
-		}
-		if (d >= WALK_DEPTH)
-			continue;
-		nb = eng_nbrs(e, x, &n);
-		for (int j = 0; j < n; j++)
-			if (!seen[nb[j]]) {
-				seen[nb[j]] = 1;
-				depth[tail] = d + 1;
-				queue[tail++] = nb[j];
+		for (int i = head; i < end; i++) {
+			int x = queue[i];
+			if (x < 0)
+				continue;
+			int g = e->group[x];
+			if (alkyl && g >= 0 && e->group_root[x] == x && !in_match(s, x)) {
+				sigmas sg;
+				group_sigmas(&sg, e, m, x);
+				visit(ctx, &sg, x, d, pow(f, d - 1), seen);
 			}
+			if (d >= WALK_DEPTH)
+				continue;
+			nb = eng_nbrs(e, x, &n);
+			for (int j = 0; j < n; j++)
+				if (!seen[nb[j]]) {
+					seen[nb[j]] = 1;
+					depth[tail] = d + 1;
+					queue[tail++] = nb[j];
+				}
+		}
+		head = end;
 	}
 }
 
@@ -554,6 +616,44 @@ static void fused_ring_effects(term_list *tl, const eng_mol *e, const pred_model
 	}
 }
 
+/* The Hammett ring of a site (its index, -1 none; *ipso its atom bonded to or at the centre).
+ * Where the centre touches several aromatic six-rings (a diaryl ketone or amine, the N of a
+ * phenothiazine, an anthraquinone carbonyl) the ring whose substituents shift the site most
+ * is taken: the other rings then stand for the unsubstituted aryl of the parent class
+ * (diarylamine, aryl ketone). Equal shifts (symmetric rings) go to the lowest canonical rank
+ * of the ipso atom, then of the ring's atoms, so that the atom order of the input never
+ * decides. seen, queue and depth are the caller's (all clear on entry and on return). */
+static int hammett_ring(const eng_mol *e, const pred_model *m, const eng_site *s, int *ipso,
+			unsigned char *seen, int *queue, int *depth)
+{
+	int k[RING_CHOICES], at[RING_CHOICES];
+	int n = hammett_rings(e, s, k, at), best = 0;
+	term_list *tl = n > 1 ? malloc(sizeof *tl) : NULL;
+	double best_shift = 0;
+	for (int i = 0; tl && i < n; i++) {
+		tl->n = 0;
+		tl->extra_var = 0;
+		tl->n_generic = 0;
+		ring_effects(tl, e, m, s, (size_t)k[i], at[i], seen, queue, depth);
+		memset(seen, 0, e->nat + 1);
+		double shift = fabs(terms_sum(tl));
+		int better = i == 0 || shift > best_shift + 1e-9;
+		if (!better && fabs(shift - best_shift) <= 1e-9 && e->rank) {
+			int ri = e->rank[at[i]], rb = e->rank[at[best]];
+			better = ri < rb || (ri == rb && ring_before(e, k[i], k[best]));
+		}
+		if (better) {
+			best = i;
+			best_shift = shift;
+		}
+	}
+	free(tl);
+	if (n == 0)
+		return -1;
+	*ipso = at[best];
+	return k[best];
+}
+
 /* One Taft term per group the walk from the centre meets: -rho* sigma* f^(d-1). */
 typedef struct taft_ctx {
 	term_list *tl;
@@ -625,7 +725,9 @@ void eng_site_effects(term_list *tl, const eng_mol *e, const pred_worker *w, con
 	int *queue = malloc((e->nat + 1) * sizeof *queue);
 	int *depth = malloc((e->nat + 1) * sizeof *depth);
 	if (seen && queue && depth) {
-		int ipso = -1, k = m->params[row->p_rho].value != 0 ? hammett_ring(e, s, &ipso) : -1;
+		int ipso = -1, k = m->params[row->p_rho].value != 0
+					   ? hammett_ring(e, m, s, &ipso, seen, queue, depth)
+					   : -1;
 		if (k >= 0) {
 			ring_effects(tl, e, m, s, (size_t)k, ipso, seen, queue, depth);
 			fused_ring_effects(tl, e, m, s, (size_t)k, seen);

@@ -73,8 +73,8 @@ typedef struct eng_mol {
 	double *qroute; /* n_sites x n_sites: interaction carried by further routes, pKa units */
 	smarts_req elements; /* what the molecule holds, to skip hopeless patterns */
 	int *symclass;   /* symmetry class per atom (identity unless shared_rows) */
-	int *rank;       /* canonical ranks and stereo classes (canon_rank), computed with */
-	int *scls;       /* the symmetry classes when shared_rows, else NULL */
+	int *rank;       /* canonical ranks and stereo classes (canon_rank) of every molecule */
+	int *scls;       /* with sites: ties the atom order must not decide go to the ranks */
 	int shared_rows; /* two sites come from one row: they may be equivalent */
 	int *corr_start; /* CSR: first atoms matched by correction k in corr_atom[..] */
 	int *corr_atom;

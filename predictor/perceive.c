@@ -4,6 +4,7 @@
 #include <stdlib.h>
 #include <string.h>
 
+#include "canon_rank.h"
 #include "engine.h"
 
 static int build_graph(eng_mol *e)
@@ -170,7 +171,39 @@ static int add_site(eng_mol *e, int row, const int *mt, int k, int centre)
 	return 0;
 }
 
-/* Site rows in table order; the first row matching an atom claims it for its kind. */
+enum { MATCH_SORT_MAX = 64 };
+
+/* The canonical ranks of the k atoms of mt, ascending, into out (k <= MATCH_SORT_MAX). */
+static void sorted_ranks(const eng_mol *e, const int *mt, int k, int *out)
+{
+	for (int i = 0; i < k; i++) {
+		int r = e->rank[mt[i]], j = i;
+		for (; j > 0 && out[j - 1] > r; j--)
+			out[j] = out[j - 1];
+		out[j] = r;
+	}
+}
+
+/* Whether match mt (k atoms) comes before the match of site s in canonical order: the
+ * canonical ranks of their atoms as sets (Open Babel keeps one mapping per atom set, in an
+ * order of its own), ascending, compared as words. */
+static int match_before(const eng_mol *e, const int *mt, int k, const eng_site *s)
+{
+	if (k != s->n_match || k > MATCH_SORT_MAX)
+		return 0;
+	int a[MATCH_SORT_MAX], b[MATCH_SORT_MAX];
+	sorted_ranks(e, mt, k, a);
+	sorted_ranks(e, s->match, k, b);
+	for (int j = 0; j < k; j++)
+		if (a[j] != b[j])
+			return a[j] < b[j];
+	return 0;
+}
+
+/* Site rows in table order; the first row matching an atom claims it for its kind. Of the
+ * row's matches rooted at one atom (the thione S of a 2-thiouracil has a ring N on either
+ * side as its centre) the one first in canonical order is the site, never the first in atom
+ * order. */
 static int find_sites(eng_mol *e, pred_worker *w)
 {
 	const pred_model *m = w->m;
@@ -182,9 +215,21 @@ static int find_sites(eng_mol *e, pred_worker *w)
 		int *hits = NULL, *of_kind = sited + (m->sites[r].kind == PRED_ACID ? 0 : e->nat), k;
 		row_pat rp = {&w->site_req[r], w->site_scr[r], &w->site_pat[r], m->sites[r].smarts};
 		int n = pattern_matches(&hits, &k, e, &rp, NULL, of_kind);
+		size_t first = e->n_sites; /* the sites of this row start here */
 		rc = n < 0 ? n : 0;
 		for (int i = 0; i < n && !rc; i++) {
 			const int *mt = hits + (size_t)i * k;
+			eng_site *same = NULL;
+			for (size_t q = first; q < e->n_sites && !same; q++)
+				if (e->sites[q].atom == mt[0])
+					same = &e->sites[q];
+			if (same) {
+				if (match_before(e, mt, k, same)) {
+					memcpy(same->match, mt, (size_t)k * sizeof *mt);
+					same->centre = mt[m->sites[r].centre < k ? m->sites[r].centre : 0];
+				}
+				continue;
+			}
 			if (has_site(e, mt[0], m->sites[r].kind, m))
 				continue;
 			rc = add_site(e, (int)r, mt, k, m->sites[r].centre);
@@ -300,6 +345,16 @@ int eng_perceive(eng_mol *e, pred_worker *w, obw_mol *mol, pred_error *err)
 	int rc = e->group && e->group_root ? build_graph(e) : PRED_ENOMEM;
 	if (!rc)
 		rc = screen_view(e, w);
+	/* canonical ranks and symmetry classes: ties that the atom order must not decide go to
+	 * the ranks (site matches, Hammett rings); they serve the canonical SMILES later */
+	if (!rc) {
+		e->rank = malloc((e->nat + 1) * sizeof *e->rank);
+		e->scls = malloc((e->nat + 1) * sizeof *e->scls);
+		e->symclass = malloc((e->nat + 1) * sizeof *e->symclass);
+		rc = e->rank && e->scls && e->symclass
+			     ? canon_rank(e->symclass, e->scls, e->rank, e->mol, NULL)
+			     : PRED_ENOMEM;
+	}
 	/* sites first: a molecule without one needs no substituent perception */
 	if (!rc)
 		rc = find_sites(e, w);

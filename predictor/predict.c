@@ -8,7 +8,6 @@
 #include <string.h>
 #include <time.h>
 
-#include "canon_rank.h"
 #include "engine.h"
 #include "ionization.h"
 #include "smiles_write.h"
@@ -238,22 +237,15 @@ static int build_sites(pred_result *r, eng_mol *e, pred_worker *w, pred_error *e
 		tls[i].n_generic = 0;
 	}
 	double *micro = calloc(n + 1, sizeof *micro);
-	int *sym = e->symclass = calloc(e->nat + 1, sizeof *sym);
+	int *sym = e->symclass;
 	r->sites = res_alloc(r, (n + 1) * sizeof *r->sites);
 	r->design = res_alloc(r, (n + 1) * sizeof *r->design);
 	r->micro = res_alloc(r, (n + 1) * sizeof *r->micro);
 	int rc = tls && micro && sym && r->sites && r->design && r->micro ? 0 : PRED_ENOMEM;
-	/* only sites of one row can be equivalent; the ranks of the same refinement serve
-	 * the canonical SMILES later */
+	/* only sites of one row can be equivalent: other molecules take no symmetry classes */
 	e->shared_rows = rows_shared(e);
-	for (size_t a = 0; a < e->nat && sym; a++)
+	for (size_t a = 0; a < e->nat && sym && !e->shared_rows; a++)
 		sym[a] = (int)a;
-	if (!rc && e->shared_rows) {
-		e->rank = malloc((e->nat + 1) * sizeof *e->rank);
-		e->scls = malloc((e->nat + 1) * sizeof *e->scls);
-		rc = e->rank && e->scls ? canon_rank(sym, e->scls, e->rank, e->mol, NULL)
-				       : PRED_ENOMEM;
-	}
 	for (size_t i = 0; i < n && !rc; i++)
 		eng_site_effects(&tls[i], e, w, &e->sites[i]);
 	if (!rc && drop_minor_chalcogen_bases(e, tls, w->m))

@@ -7,15 +7,19 @@
 #include <stdlib.h>
 #include <string.h>
 
-/* The shifts, in the order they are tried for each OH / SH. */
+#include "canon_rank.h"
+
+/* The kinds of shift: a lactim or iminol to its lactam or amide (the H goes to an N beside
+ * C-OH), a 4-hydroxy-azine to its azinone (the N para to C-OH), an enol to its ketone. */
 typedef enum { SHIFT_NONE = 0, SHIFT_IMINOL, SHIFT_AZINE, SHIFT_ENOL } shift_kind;
 
-enum { PATH_MAX_ATOMS = 11 };
+enum { PATH_MAX_ATOMS = 15 };
 
 typedef struct shift {
 	shift_kind kind;
 	int path[PATH_MAX_ATOMS]; /* donor O/S, then the atoms to the acceptor; bonds 1,2,1,2.. */
 	int len;                  /* atoms in path */
+	int key;                  /* preference, lower first (shift_key) */
 } shift;
 
 typedef struct graph {
@@ -84,6 +88,12 @@ static int nbr(const graph *g, int x, int ord, int k)
 	return -1;
 }
 
+/* The k-th neighbour of x by any bond, or -1. */
+static int any_nbr(const graph *g, int x, int k)
+{
+	return g->start[x] + k < g->start[x + 1] ? other(g, g->adj[g->start[x] + k], x) : -1;
+}
+
 /* Whether all n atoms lie in one ring of the SSSR. */
 static int in_one_ring(const graph *g, const int *atoms, int n)
 {
@@ -116,43 +126,108 @@ static int donor_carbon(const graph *g, int o)
 	return neutral(g, c1, 6) ? c1 : -1;
 }
 
-/* HO-C=N (iminol, lactim next to the ring N): 1,3 shift to the N. */
-static int find_iminol(const graph *g, int o, int c1, shift *s)
+/* Whether ring N n (bonded to c1) is also bonded to a carbon that carries an exocyclic
+ * N by a single bond (an amino or acylamino group). */
+static int beside_amino_carbon(const graph *g, int n, int c1)
 {
-	for (int k = 0, n; (n = nbr(g, c1, 2, k)) >= 0; k++) {
-		if (!neutral(g, n, 7))
+	for (int i = g->start[n]; i < g->start[n + 1]; i++) {
+		int x = other(g, g->adj[i], n);
+		if (x == c1 || g->a[x].element != 6)
 			continue;
-		*s = (shift){SHIFT_IMINOL, {o, c1, n, 0, 0}, 3};
-		return 1;
-	}
-	return 0;
-}
-
-/* HO-C=A-A=N inside one ring (4-hydroxypyridine type): 1,5 shift to the ring N. */
-static int find_azine(const graph *g, int o, int c1, shift *s)
-{
-	for (int k = 0, a2; (a2 = nbr(g, c1, 2, k)) >= 0; k++) {
-		if (!neutral(g, a2, 6) && !neutral(g, a2, 7))
-			continue;
-		for (int j = 0, a3; (a3 = nbr(g, a2, 1, j)) >= 0; j++) {
-			if (a3 == c1 || !neutral(g, a3, 6))
-				continue;
-			for (int l = 0, n; (n = nbr(g, a3, 2, l)) >= 0; l++) {
-				int ring[4] = {c1, a2, a3, n};
-				if (!neutral(g, n, 7) || !in_one_ring(g, ring, 4))
-					continue;
-				*s = (shift){SHIFT_AZINE, {o, c1, a2, a3, n}, 5};
+		for (int j = 0, y; (y = nbr(g, x, 1, j)) >= 0; j++)
+			if (y != n && neutral(g, y, 7) && !g->a[y].in_ring)
 				return 1;
-			}
-		}
 	}
 	return 0;
 }
 
-/* Extends the alternating path p (len atoms so far; bond k has order 1 for even k, 2 for
- * odd k) through neutral aromatic C or N until it has want atoms and ends at the neutral
- * ring N bonded to C-OH (p[1]). */
-static int extend_ring_path(const graph *g, int *p, int len, int want, shift *s)
+enum { MATCH_BUDGET = 20000 };
+
+/* Whether the atoms with need[] set pair up over aromatic bonds (a Kekule form exists for
+ * them); need[] is as it was on return. Exhaustive within *budget calls, so the answer is
+ * the molecule's, not its atom order's. */
+static int pairs_up(const graph *g, unsigned char *need, int *budget)
+{
+	int x = -1;
+	for (size_t i = 0; i < g->na && x < 0; i++)
+		if (need[i])
+			x = (int)i;
+	if (x < 0)
+		return 1;
+	if (--*budget < 0)
+		return 0;
+	int ok = 0;
+	need[x] = 0;
+	for (int i = g->start[x]; i < g->start[x + 1] && !ok; i++) {
+		int y = other(g, g->adj[i], x);
+		if (!g->b[g->adj[i]].aromatic || !need[y])
+			continue;
+		need[y] = 0;
+		ok = pairs_up(g, need, budget);
+		need[y] = 1;
+	}
+	need[x] = 1;
+	return ok;
+}
+
+/* Six-rings that keep a benzenoid sextet in the tautomer s makes: rings of atoms that
+ * still need a double bond whose other such atoms still pair up without them. Quinazolin-
+ * 2-ol to the 1H-one keeps its benzo ring (N3=C4 pair off), to the 3H-one it would not
+ * (N1 and C4 are left apart): the more aromatic form is the one found in water (common
+ * practice). -1 when out of memory. */
+static int sextets_kept(const graph *g, const shift *s)
+{
+	unsigned char *need = calloc(g->na + 1, 1);
+	if (!need)
+		return -1;
+	for (size_t k = 0; k < g->nb; k++)
+		if (g->b[k].aromatic && g->b[k].order == 2)
+			need[g->b[k].a] = need[g->b[k].b] = 1;
+	need[s->path[1]] = need[s->path[s->len - 1]] = 0;
+	int count = 0;
+	for (size_t r = 0; r < g->rings.n_rings; r++) {
+		const int *ra = g->rings.atoms + g->rings.offsets[r];
+		int all = g->rings.sizes[r] == 6, budget = MATCH_BUDGET;
+		for (int j = 0; j < 6 && all; j++)
+			all = need[ra[j]] && order(g, ra[j], ra[(j + 1) % 6]) &&
+			      g->a[ra[j]].aromatic;
+		if (!all)
+			continue;
+		for (int j = 0; j < 6; j++)
+			need[ra[j]] = 0;
+		count += pairs_up(g, need, &budget);
+		for (int j = 0; j < 6; j++)
+			need[ra[j]] = 1;
+	}
+	free(need);
+	return count;
+}
+
+/* Preference of a shift, lower first: a thiol before a hydroxyl (thioamide tautomers are the
+ * more favoured, common practice), then the lactam whose N-H is beside the C=O (2-pyridone
+ * type; 4(3H)-pyrimidinones, hypoxanthine N1-H, guanine N1-H) before the vinylogous
+ * azinone (4-pyridone type), before an enol's ketone; then the form that keeps more
+ * benzenoid rings (sextets_kept); among ring N beside C-OH, the one not beside a ring
+ * carbon bearing an amino group (cytosine is the 1H amino-oxo tautomer, the amidine N
+ * beside the amino carbon stays free; common practice). Ties go to the canonical ranks of
+ * donor and acceptor, so the choice never depends on the atom order or the Kekule form of
+ * the input. */
+static int shift_key(const graph *g, const shift *s)
+{
+	int o = s->path[0], c1 = s->path[1], n = s->path[s->len - 1];
+	int cls = s->kind == SHIFT_IMINOL ? 0 : s->kind == SHIFT_AZINE ? 1 : 2;
+	int ring = g->a[c1].aromatic, amino = s->kind == SHIFT_IMINOL && ring &&
+						 beside_amino_carbon(g, n, c1);
+	int kept = ring ? sextets_kept(g, s) : 0;
+	if (kept < 0)
+		return -1;
+	kept = kept > 9 ? 9 : kept;
+	return (g->a[o].element == 16 ? 0 : 1000) + 100 * cls + 10 * (9 - kept) + amino;
+}
+
+/* Extends the path p (len atoms so far; bond k has order 1 for even k, 2 for odd k) through
+ * neutral aromatic C or N until it has want atoms and ends at target. */
+static int alternating_path(const graph *g, int *p, int len, int want, int target)
 {
 	int ord = (len - 1) % 2 == 0 ? 1 : 2;
 	for (int k = 0, y; (y = nbr(g, p[len - 1], ord, k)) >= 0; k++) {
@@ -162,34 +237,39 @@ static int extend_ring_path(const graph *g, int *p, int len, int want, shift *s)
 		if (seen || !g->a[y].aromatic || (!neutral(g, y, 6) && !neutral(g, y, 7)))
 			continue;
 		p[len] = y;
-		if (len + 1 < want) {
-			if (extend_ring_path(g, p, len + 1, want, s))
+		if (len + 1 == want) {
+			if (y == target)
 				return 1;
-		} else if (neutral(g, y, 7) && order(g, p[1], y) == 1) {
-			s->kind = SHIFT_IMINOL;
-			memcpy(s->path, p, (size_t)want * sizeof *p);
-			s->len = want;
+		} else if (y != target && alternating_path(g, p, len + 1, want, target)) {
 			return 1;
 		}
 	}
 	return 0;
 }
 
-/* A lactim whose ring N is beside C-OH but whose Kekule form puts the C=N elsewhere
- * (2-hydroxypyridines drawn with C2=C3, quinoxalin-2-ols, isoquinolin-3-ols drawn with
- * C3=C4): an alternating path from the O round the ring, or through a fused ring, reaches
- * that N (O-C2=C3-C4=C5-C6=N1), and shifting the H along it gives the same lactam as the
- * 1,3 shift of the other Kekule form. The shortest such path is taken. */
-static int find_lactim_around(const graph *g, int o, int c1, shift *s)
+/* The shortest alternating path O-C1=..=N from donor o over aromatic c1 to ring N n: one
+ * exists in the drawn Kekule form whenever the tautomer with N-H and C=O has a Kekule form
+ * at all (the path is the difference of the two), so every drawing of one molecule finds
+ * the same acceptors (2-hydroxypyridine drawn C2=N1 or C2=C3, 4-hydroxypyrimidine drawn
+ * with C4=N3 or C4=C5, isoquinolin-3-ol through the benzo ring). */
+static int ring_shift(const graph *g, int o, int c1, int n, shift_kind kind, shift *s)
 {
-	if (!g->a[c1].aromatic)
-		return 0;
-	for (int want = 7; want <= PATH_MAX_ATOMS; want += 2) {
+	for (int want = 3; want <= PATH_MAX_ATOMS; want += 2) {
 		int p[PATH_MAX_ATOMS] = {o, c1};
-		if (extend_ring_path(g, p, 2, want, s))
+		if (alternating_path(g, p, 2, want, n)) {
+			*s = (shift){kind, {0}, want, 0};
+			memcpy(s->path, p, (size_t)want * sizeof *p);
+			s->key = shift_key(g, s);
 			return 1;
+		}
 	}
 	return 0;
+}
+
+/* Whether neighbour x of c1 can stand between C-OH and a para ring N (a neutral C or N). */
+static int ring_link(const graph *g, int x, int element_c_only)
+{
+	return neutral(g, x, 6) || (!element_c_only && neutral(g, x, 7));
 }
 
 /* Whether a neighbour of c1 or c2 (other than o, c1, c2) carries a non-aromatic double or
@@ -215,64 +295,94 @@ static int conjugated(const graph *g, int o, int c1, int c2)
 	return 0;
 }
 
-/* HO-C=C, neither carbon aromatic, not conjugated: 1,3 shift to the carbon. */
-static int find_enol(const graph *g, int o, int c1, shift *s)
+/* Offers s to *best when it is preferred: by key, then by the canonical ranks of donor and
+ * acceptor (computed on first need; *rc gets PRED_ENOMEM on failure). */
+static void offer(const graph *g, const obw_mol *m, int **rank, int *rc, const shift *s,
+		  shift *best)
 {
-	if (g->a[o].element != 8 || g->a[c1].aromatic)
-		return 0;
-	for (int k = 0, c2; (c2 = nbr(g, c1, 2, k)) >= 0; k++) {
-		if (!neutral(g, c2, 6) || g->a[c2].aromatic || conjugated(g, o, c1, c2))
-			continue;
-		*s = (shift){SHIFT_ENOL, {o, c1, c2, 0, 0}, 3};
-		return 1;
-	}
-	return 0;
-}
-
-/* Whether ring N n (bonded to c1) is also bonded to a carbon that carries an exocyclic
- * N by a single bond (an amino or acylamino group). */
-static int beside_amino_carbon(const graph *g, int n, int c1)
-{
-	for (int i = g->start[n]; i < g->start[n + 1]; i++) {
-		int x = other(g, g->adj[i], n);
-		if (x == c1 || g->a[x].element != 6)
-			continue;
-		for (int j = 0, y; (y = nbr(g, x, 1, j)) >= 0; j++)
-			if (y != n && neutral(g, y, 7) && !g->a[y].in_ring)
-				return 1;
-	}
-	return 0;
-}
-
-/* A lactim between two ring N (2-hydroxypyrimidines) becomes the lactam whose N-H is away
- * from a ring carbon bearing an amino group, whichever N the Kekule form bonds to C-OH by
- * the double bond: cytosine is the 1H (amino-oxo) tautomer, and the amidine N beside the
- * amino carbon stays free (common practice). */
-static void prefer_away_from_amino(const graph *g, int o, int c1, shift *s)
-{
-	shift alt;
-	if (!g->a[c1].aromatic || !beside_amino_carbon(g, s->path[s->len - 1], c1) ||
-	    !find_lactim_around(g, o, c1, &alt))
+	if (s->key < 0) {
+		*rc = PRED_ENOMEM;
 		return;
-	if (!beside_amino_carbon(g, alt.path[alt.len - 1], c1))
-		*s = alt;
+	}
+	if (best->kind != SHIFT_NONE && s->key > best->key)
+		return;
+	if (best->kind != SHIFT_NONE && s->key == best->key) {
+		if (!*rank) {
+			*rank = malloc((g->na + 1) * sizeof **rank);
+			if (!*rank || canon_rank(NULL, NULL, *rank, m, NULL)) {
+				*rc = PRED_ENOMEM;
+				return;
+			}
+		}
+		const int *r = *rank;
+		int so = r[s->path[0]], bo = r[best->path[0]];
+		int sn = r[s->path[s->len - 1]], bn = r[best->path[best->len - 1]];
+		if (so > bo || (so == bo && sn >= bn))
+			return;
+	}
+	*best = *s;
 }
 
-static int find_shift(const graph *g, shift *s)
+/* The shifts of donor o on carbon c1, each offered to *best. On an aromatic carbon: to a
+ * neutral ring N beside c1 (lactim) or para to it in one ring (hydroxy-azine), by whichever
+ * path the drawn Kekule form allows. On a non-aromatic carbon: HO-C=N (iminol), or HO-C=C
+ * with neither carbon aromatic and no conjugation (enol). */
+static void donor_shifts(const graph *g, const obw_mol *m, int o, int c1, int **rank, int *rc,
+			 shift *best)
 {
-	for (size_t o = 0; o < g->na; o++) {
-		int c1 = donor_carbon(g, (int)o);
-		if (c1 < 0)
-			continue;
-		if (find_iminol(g, (int)o, c1, s)) {
-			prefer_away_from_amino(g, (int)o, c1, s);
-			return 1;
+	shift s;
+	if (g->a[c1].aromatic) {
+		for (int i = 0, a2; (a2 = any_nbr(g, c1, i)) >= 0; i++) {
+			if (a2 == o || !g->a[a2].aromatic)
+				continue;
+			int pair[2] = {c1, a2};
+			if (neutral(g, a2, 7) && g->a[a2].hcount == 0 && in_one_ring(g, pair, 2) &&
+			    ring_shift(g, o, c1, a2, SHIFT_IMINOL, &s))
+				offer(g, m, rank, rc, &s, best);
+			if (!ring_link(g, a2, 0))
+				continue;
+			for (int j = 0, a3; (a3 = any_nbr(g, a2, j)) >= 0; j++) {
+				if (a3 == c1 || !ring_link(g, a3, 1))
+					continue;
+				for (int l = 0, n; (n = any_nbr(g, a3, l)) >= 0; l++) {
+					int ring[4] = {c1, a2, a3, n};
+					if (n == a2 || !neutral(g, n, 7) || g->a[n].hcount ||
+					    !g->a[n].aromatic || order(g, c1, n) ||
+					    !in_one_ring(g, ring, 4))
+						continue;
+					if (ring_shift(g, o, c1, n, SHIFT_AZINE, &s))
+						offer(g, m, rank, rc, &s, best);
+				}
+			}
 		}
-		if (find_azine(g, (int)o, c1, s) || find_lactim_around(g, (int)o, c1, s) ||
-		    find_enol(g, (int)o, c1, s))
-			return 1;
+		return;
 	}
-	return 0;
+	for (int k = 0, x; (x = nbr(g, c1, 2, k)) >= 0; k++) {
+		if (neutral(g, x, 7)) {
+			s = (shift){SHIFT_IMINOL, {o, c1, x}, 3, 0};
+		} else if (g->a[o].element == 8 && neutral(g, x, 6) && !g->a[x].aromatic &&
+			   !conjugated(g, o, c1, x)) {
+			s = (shift){SHIFT_ENOL, {o, c1, x}, 3, 0};
+		} else {
+			continue;
+		}
+		s.key = shift_key(g, &s);
+		offer(g, m, rank, rc, &s, best);
+	}
+}
+
+/* The preferred shift over all donors (shift_key, then canonical ranks). 1 when there is
+ * one, 0 when none, a PRED_E* code (negative) on failure. */
+static int find_shift(const graph *g, const obw_mol *m, int **rank, shift *best)
+{
+	int rc = 0;
+	best->kind = SHIFT_NONE;
+	for (size_t o = 0; o < g->na && !rc; o++) {
+		int c1 = donor_carbon(g, (int)o);
+		if (c1 >= 0)
+			donor_shifts(g, m, (int)o, c1, rank, &rc, best);
+	}
+	return rc ? rc : best->kind != SHIFT_NONE;
 }
 
 /* Flips the bond orders along the path and moves one H from its first to its last atom. */
@@ -322,9 +432,11 @@ int taut_standardise(obw_mol *m, norm_report *rep, pred_error *err)
 	graph g = {0};
 	shift s;
 	char msg[200] = "";
+	int *rank = NULL, found = 0;
 	int rc = graph_load(&g, m);
 	/* each shift takes the H off one O/S for good, so the loop ends; the bound is a guard */
-	for (size_t it = 0, limit = g.na + 1; !rc && it < limit && find_shift(&g, &s); it++) {
+	for (size_t it = 0, limit = g.na + 1;
+	     !rc && it < limit && (found = find_shift(&g, m, &rank, &s)) > 0; it++) {
 		rc = apply(m, &g, &s);
 		norm_warn(rep, "input tautomer changed: %s at atom %d (H moved to atom %d)",
 			  shift_name(&g, &s), g.a[s.path[0]].orig_index,
@@ -334,7 +446,10 @@ int taut_standardise(obw_mol *m, norm_report *rep, pred_error *err)
 		if (!rc)
 			rc = graph_load(&g, m);
 	}
+	if (!rc && found < 0)
+		rc = found;
 	graph_free(&g);
+	free(rank);
 	if (rc == PRED_ENOMEM)
 		return fail(err, rc, "out of memory");
 	if (rc)

@@ -46,6 +46,91 @@ static void test_base_terms__azinones_protonate_on_the_chalcogen(void)
 	pred_result_free(r);
 }
 
+/* A centre touching two aryl rings takes as its Hammett ring the one whose substituents
+ * shift it most, whichever is drawn first: the 4-nitrophenyl of 4-bromo-N-methyl-N-(4-
+ * nitrophenyl)aniline (measured -4.21, perrin_supp4296 via data/iupac-pka.csv, far under
+ * diphenylamine's 0.79, perrin0603), not the 4-bromophenyl (which gave 2.28 when drawn
+ * first), and the carbonyl O of 4-benzoylbiphenyl (-6.31, perrin3521) one value in either
+ * order. */
+static void test_base_terms__hammett_ring_of_two_aryls(void)
+{
+	double br_first = site_pka("Brc1ccc(cc1)N(c1ccc(cc1)[N+](=O)[O-])C", "aniline", PRED_BASE);
+	double no2_first = site_pka("c1(ccc(N(c2ccc(Br)cc2)C)cc1)[N+](=O)[O-]", "aniline",
+				    PRED_BASE);
+	CHECK_NEAR(br_first, no2_first, 1e-9);
+	CHECK(br_first < 0.79);
+	double k1 = site_pka("O=C(c1ccccc1)c1ccc(cc1)c1ccccc1", "oxygen_base", PRED_BASE);
+	double k2 = site_pka("c1ccc(cc1)-c1ccc(C(c2ccccc2)=O)cc1", "oxygen_base", PRED_BASE);
+	CHECK_NEAR(k1, k2, 1e-9);
+	/* the trifluoromethyl ring of a 2-CF3-phenothiazine's ring N, in either order */
+	double p1 = site_pka("CN(CCCN1c2ccccc2Sc2c1cc(cc2)C(F)(F)F)C", "aniline", PRED_BASE);
+	double p2 = site_pka("N(C)(CCCN1c2c(ccc(C(F)(F)F)c2)Sc2ccccc21)C", "aniline", PRED_BASE);
+	CHECK_NEAR(p1, p2, 1e-9);
+}
+
+/* The site values of a molecule, sorted (kind, then pKa) into out (room for max); the count,
+ * -1 when the prediction fails. */
+static int sorted_sites(const char *smiles, double *out, int max)
+{
+	pred_result *r = NULL;
+	pred_error err = {0};
+	if (pred_predict(&r, worker, smiles, PRED_FMT_SMILES, NULL, &err) != 0 || !r)
+		return -1;
+	int n = 0;
+	for (size_t i = 0; i < pred_result_site_count(r) && n < max; i++) {
+		const pred_site *st = pred_result_site(r, i);
+		out[n++] = st->pka + (st->kind == PRED_BASE ? 1000.0 : 0.0);
+	}
+	pred_result_free(r);
+	for (int i = 1; i < n; i++)
+		for (int j = i; j > 0 && out[j - 1] > out[j]; j--) {
+			double t = out[j];
+			out[j] = out[j - 1];
+			out[j - 1] = t;
+		}
+	return n;
+}
+
+/* Of a site row's matches at one atom the one first in canonical order is the site: the
+ * thione S of 1-methyl-4-thiouracil-type rings has a ring N on either side as its centre,
+ * and a phosphine's P two of its three carbons in the match. The Taft walk meets the groups
+ * of one depth in canonical order, before it goes deeper (the imine of a 1,2-dihydro-
+ * pyrimidine at 2 bonds by its N and at 3 by its C; the N-methyls of a pyrazolopyrimidine-
+ * dione on its ring met as an aryl). Written in another atom order, each gives the same
+ * values (common practice: a prediction is a function of the molecule). */
+static void test_base_terms__values_do_not_follow_atom_order(void)
+{
+	static const char *const pairs[][2] = {
+		{"Cn1ccc(=S)[nH]c1=S", "n1(c(=S)[nH]c(cc1)=S)C"},
+		{"Cn1c(=O)cn[nH]c1=S", "O=c1n(C)c(=S)[nH]nc1"},
+		{"Oc1cccc(c1)P(C)C", "P(C)(C)c1cccc(O)c1"},
+		{"OS(=O)(=O)c1cccc(c1)P(c1ccccc1)c1ccccc1",
+		 "c1c(P(c2ccccc2)c2cc(S(=O)(O)=O)ccc2)cccc1"},
+		{"Cn1ccc(=N)n(c1=O)C", "c1cn(c(=O)n(c1=N)C)C"},
+		{"CNC1N=CC(=CN1C)Br", "N(C1N(C=C(Br)C=N1)C)C"},
+		{"Cn1c(=O)c2c(C)n[nH]c2n(c1=O)C", "n1(C)c2[nH]nc(c2c(=O)n(C)c1=O)C"},
+	};
+	for (size_t p = 0; p < sizeof pairs / sizeof pairs[0]; p++) {
+		double a[16], b[16];
+		int na = sorted_sites(pairs[p][0], a, 16), nb = sorted_sites(pairs[p][1], b, 16);
+		CHECK(na > 0);
+		CHECK_INT_EQ(na, nb);
+		for (int i = 0; i < na && i < nb; i++)
+			CHECK_NEAR(a[i], b[i], 1e-9);
+	}
+}
+
+/* A group the Taft walk meets at its root and at another of its atoms at one depth is one
+ * substituent, counted once by its tabulated constant (common practice): the ring C=N of
+ * 5,7-dimethyl-2,3-dihydro-1H-1,4-diazepine is 3 bonds from the enamine N by its C and by
+ * its N. */
+static void test_base_terms__walk_counts_a_group_once(void)
+{
+	const char *smi = "CC1=CC(=NCCN1)C";
+	CHECK_INT_EQ(site_term_count(smi, "enamine", PRED_BASE, "generic_substituent"), 0);
+	CHECK_INT_EQ(site_term_count(smi, "enamine", PRED_BASE, "taft"), 1);
+}
+
 /* The N+ of a nitro group on N or O is no base: a nitramine or a nitrate ester is not
  * protonated in water (common practice); read as hydrazine and hydroxylamine N they put a
  * cation beside the C-H acid of 2,2-dinitroethylnitramines and made it 2 units too strong. */
@@ -217,6 +302,16 @@ static void test_base_terms__parallel_saturated_routes_add_to_the_interaction(vo
 	 * 5 bonds, that of butane-1,4-diamine (common practice) */
 	diamine_steps("Nc1ccc(N)cc1", &w, &low);
 	CHECK_NEAR(w, w5, 0.01);
+	/* 1,2,3,4-tetrahydroquinoxaline: the ethano bridge and the benzo ring join the N by 3
+	 * bonds each; the saturated one is the shortest route whichever the atom order puts
+	 * first, so the aromatic one never counts as a further route (second step 2.11,
+	 * perrin2340, train row; 0.75 when the benzo ring was taken first) */
+	double wa, wb, lowa, lowb;
+	diamine_steps("C1CNc2c(N1)cccc2", &wa, &lowa);
+	diamine_steps("c1cc2NCCNc2cc1", &wb, &lowb);
+	CHECK_NEAR(wa, wb, 1e-9);
+	CHECK_NEAR(wa, w3, 0.01);
+	CHECK_NEAR(lowa, 2.11, 0.5);
 }
 
 /* An ammonium beside phosphonomethyl arms (corrections.tsv amine_alpha_phosphono, once per
@@ -495,6 +590,9 @@ int main(void)
 		return 1;
 	RUN(test_base_terms__azinones_protonate_on_the_chalcogen);
 	RUN(test_base_terms__nitro_on_n_or_o_is_no_base);
+	RUN(test_base_terms__hammett_ring_of_two_aryls);
+	RUN(test_base_terms__values_do_not_follow_atom_order);
+	RUN(test_base_terms__walk_counts_a_group_once);
 	RUN(test_base_terms__acyl_nitro_cyano_guanidines);
 	RUN(test_base_terms__fused_pyrimidine_ring_n);
 	RUN(test_base_terms__pteridine_cations_hydrate);

@@ -185,6 +185,35 @@ static const norm_case tautomer_cases[] = {
 	{"Oc1nccc(N)n1", "Nc1cc[nH]c(=O)n1", "lactim to lactam", "cytosine, C2=N3 drawn"},
 	{"Sc1ncc(c(n1)N)N", "Nc1nc(=S)[nH]cc1N", "thiolactim to thiolactam",
 	 "4,5-diaminopyrimidine-2(1H)-thione"},
+	/* one tautomer for every Kekule form and atom order: the N-H beside the C=O (4(3H)-
+	 * pyrimidinone, the major form in water; common practice) before the N para to it, a
+	 * thione before a lactam (thioamide tautomers are the more favoured, common practice),
+	 * the para N where there is no N beside C-OH (pyridazin-4(1H)-one) */
+	{"OC1=NC=NC=C1", "O=c1ccnc[nH]1", "lactim to lactam", "4(3H)-pyrimidinone as C4=N3"},
+	{"OC1=CC=NC=N1", "O=c1ccnc[nH]1", "lactim to lactam", "4(3H)-pyrimidinone as C4=C5"},
+	{"C1=NC=NC(O)=C1", "O=c1ccnc[nH]1", "lactim to lactam", "4(3H)-pyrimidinone, OH last"},
+	{"OC1=CC(O)=NC=N1", "O=c1cc(O)nc[nH]1", "lactim to lactam",
+	 "6-hydroxypyrimidin-4(3H)-one as C4=C5"},
+	{"OC1=NC=NC(O)=C1", "O=c1cc(O)nc[nH]1", "lactim to lactam",
+	 "6-hydroxypyrimidin-4(3H)-one as C4=N3"},
+	{"OC1=CC(S)=NC=N1", "S=c1cc(O)nc[nH]1", "thiolactim to thiolactam",
+	 "6-hydroxypyrimidine-4(3H)-thione, SH drawn second"},
+	{"SC1=NC=NC(O)=C1", "S=c1cc(O)nc[nH]1", "thiolactim to thiolactam",
+	 "6-hydroxypyrimidine-4(3H)-thione, SH drawn first"},
+	{"OC1=CC=NN=C1", "O=c1cc[nH]nc1", "hydroxy-azine to azinone",
+	 "pyridazin-4(1H)-one as C4=C5"},
+	{"OC1=CN=NC=C1", "O=c1cc[nH]nc1", "hydroxy-azine to azinone",
+	 "pyridazin-4(1H)-one as C3=C4"},
+	{"Oc1ncnc2c1cccc2", "O=c1[nH]cnc2ccccc12", "lactim to lactam", "quinazolin-4(3H)-one"},
+	/* of two N beside C-OH the one whose N-H keeps the benzo ring benzenoid (the more
+	 * aromatic form, common practice): quinazolin-2(1H)-one, not the o-quinonoid 3H-one */
+	{"Oc1ncc2c(n1)cccc2", "O=c1ncc2ccccc2[nH]1", "lactim to lactam", "quinazolin-2(1H)-one"},
+	{"c1nc(O)nc2ccccc12", "O=c1ncc2ccccc2[nH]1", "lactim to lactam",
+	 "quinazolin-2(1H)-one, other order"},
+	/* 2,4-dihydroxypyridine: the 2-pyridone (N-H beside C=O) keeps the 4-OH */
+	{"Oc1ccnc(c1)O", "O=c1cc(O)cc[nH]1", "lactim to lactam", "4-hydroxypyridin-2(1H)-one"},
+	{"Nc1nc2nc[nH]c2c(O)n1", "Nc1nc2nc[nH]c2c(=O)[nH]1", "lactim to lactam",
+	 "7H-guanine drawn C6=C5 (N1-H, not N3-H)"},
 	{"CCC1(c2ccccc2)C(O)=NC(O)=NC1=O", "CCC1(c2ccccc2)C(=O)NC(=O)NC1=O", "lactim to lactam",
 	 "phenobarbital"},
 	{"CC(O)=N", "CC(N)=O", "input tautomer changed: iminol to amide", "acetamide"},
