@@ -133,6 +133,18 @@ static void take_step(term_list *tls, step_state *st, const eng_mol *e, const pr
 	st->eq_done[st->leader[i]]++;
 }
 
+/* Whether site i goes before site j among equal values: by the canonical rank of the site
+ * atom (the atom order of the input must not decide), then by index (equivalent sites). */
+static int site_before(const eng_mol *e, size_t i, size_t j)
+{
+	if (e->rank) {
+		int ri = e->rank[e->sites[i].atom], rj = e->rank[e->sites[j].atom];
+		if (ri != rj)
+			return ri < rj;
+	}
+	return i < j;
+}
+
 /* Site the greedy order ionises next: the lowest effective value, zwitterion penalty
  * included. */
 static size_t greedy_next(const step_state *st, const eng_mol *e, const pred_model *m)
@@ -146,7 +158,9 @@ static size_t greedy_next(const step_state *st, const eng_mol *e, const pred_mod
 		double stat, inter, pf;
 		double rank = step_value(st, e, m, i, &stat, &inter, &pf, &pp) +
 			      zwitterion_penalty(st, e, m, i);
-		if (rank < best_rank) {
+		/* equal values: the lower canonical rank first, never the input order */
+		if (rank < best_rank - 1e-9 ||
+		    (fabs(rank - best_rank) <= 1e-9 && site_before(e, i, best))) {
 			best_rank = rank;
 			best = i;
 		}
@@ -196,8 +210,7 @@ static double state_penalty(const step_state *st, const eng_mol *e, const pred_m
  * one step ahead only: where the first step that wins (the amine of a nitrilotriacetic acid
  * cation, micro value far below the zwitterion's carboxyl plus the margin) leads to states
  * far from the dominant ones at the next levels, this order takes the carboxyl first, as
- * water does. Equal sums keep the greedy's choice among equivalent sites (lowest index
- * first). order gets n site indices; returns 0 or PRED_ENOMEM. */
+ * water does. Equal sums go by site_before, as in the greedy order. order gets n site indices; returns 0 or PRED_ENOMEM. */
 static int best_order(size_t *order, step_state *st, const eng_mol *e, const pred_model *m)
 {
 	size_t n = e->n_sites, ns = (size_t)1 << n;
@@ -223,12 +236,14 @@ static int best_order(size_t *order, step_state *st, const eng_mol *e, const pre
 		double here = g[s] + state_penalty(st, e, m);
 		best[s] = HUGE_VAL;
 		last[s] = 0;
-		/* the highest index last on ties: the lowest goes first, as in the greedy order */
-		for (size_t j = n; j-- > 0;) {
+		/* on ties the site that goes first in the greedy order (site_before) is not the
+		 * last one */
+		for (size_t j = 0; j < n; j++) {
 			if (!((s >> j) & 1u))
 				continue;
 			double v = best[s & ~((size_t)1 << j)];
-			if (v < best[s] - 1e-9) {
+			if (v < best[s] - 1e-9 || (fabs(v - best[s]) <= 1e-9 &&
+						     site_before(e, last[s], j))) {
 				best[s] = v;
 				last[s] = (unsigned char)j;
 			}

@@ -31,11 +31,11 @@ FAMILIES = {
     "enamine or ring imine": "[$([NX3;!a]-[CX3;!a]=[CX3;!a]),$([NX2;R;!a]=[CX3;R;!a])]",
 }
 
-# Known order dependence that this change does not own: the stepwise titration takes the
-# first of equal effective values by atom index (predictor/stepwise.c), so non-equivalent
-# sites with one micro value (the sulfonic acids of azo-naphthol dyes) share the charge
-# interaction terms by input order. Reported, not counted; listed so that it stays in view.
-KNOWN = {
+# Sites with one micro value that are not equivalent (the sulfonic acids of azo-naphthol dyes):
+# the stepwise titration once took the first of them by atom index, so they shared the charge
+# interaction terms by input order; it now breaks such ties by canonical rank
+# (predictor/stepwise.c site_before). Kept in the sample as a family of their own.
+TIES = {
     "Oc1c(N=Nc2ccc(cc2)S(=O)(=O)O)c(cc2c1c(ccc2)S(=O)(=O)O)S(=O)(=O)O",
     "Oc1c(N=Nc2ccc(cc2)S(=O)(=O)O)cc(c2c1cc(cc2)S(=O)(=O)O)S(=O)(=O)O",
     "Oc1cc(c2c(c1N=Nc1ccc(cc1)S(=O)(=O)O)c(ccc2)S(=O)(=O)O)S(=O)(=O)O",
@@ -45,6 +45,7 @@ KNOWN = {
     "Oc1cc(ccc1N=Nc1c(O)c2c(O)cc(cc2cc1S(=O)(=O)O)S(=O)(=O)O)S(=O)(=O)O",
     "Oc1cc2c(cc1O)oc1-c(c2c2ccccc2O)cc(c(=O)c1)O",
 }
+KNOWN = set()  # order dependence reported but not counted (none now)
 
 
 def load_rdkit():
@@ -88,7 +89,7 @@ def pick(Chem, smiles):
     rest = [(s, m) for s, m in mols if s not in taken]
     rng.shuffle(rest)
     picked += [(s, m, "random") for s, m in rest[:RANDOM]]
-    picked += [(s, Chem.MolFromSmiles(s), "known") for s in sorted(KNOWN)
+    picked += [(s, Chem.MolFromSmiles(s), "stepwise ties") for s in sorted(TIES | KNOWN)
                if s not in taken and s not in {p[0] for p in picked}]
     return picked
 
@@ -146,7 +147,7 @@ def main():
         print("known", k)
     for f in fails[:20]:
         print("FAIL", f)
-    if sum(v for f, v in fams.items() if f not in ("random", "known")) < 150:
+    if sum(v for f, v in fams.items() if f not in ("random", "known", "stepwise ties")) < 150:
         fails.append("only %d family molecules in the sample" % len(picked))
     return 1 if fails else 0
 
