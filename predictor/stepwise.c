@@ -14,6 +14,7 @@ typedef struct step_state {
 	int *eq_done; /* members of that class already ionised (indexed by the class leader) */
 	int *leader;
 	size_t *order; /* titration order, when chosen over all paths (best_order) */
+	double *w;     /* n x n: eng_pair_shift of each pair, computed once */
 } step_state;
 
 /* Sites are equivalent when the same row matches symmetry-equivalent atoms. */
@@ -31,8 +32,7 @@ static void equivalence(step_state *st, const eng_mol *e, const int *symclass)
 	}
 }
 
-static double interaction(const step_state *st, const eng_mol *e, const pred_model *m,
-			  size_t i)
+static double interaction(const step_state *st, const eng_mol *e, size_t i)
 {
 	double sum = 0;
 	for (size_t j = 0; j < e->n_sites; j++) {
@@ -40,7 +40,7 @@ static double interaction(const step_state *st, const eng_mol *e, const pred_mod
 			continue;
 		/* losing a proton lowers the site's charge by one: like charges nearby make that
 		 * easier (positive) or harder (negative). */
-		sum -= st->charge[j] * eng_pair_shift(e, m, i, j);
+		sum -= st->charge[j] * st->w[i * e->n_sites + j];
 	}
 	return sum;
 }
@@ -103,7 +103,7 @@ static double step_value(const step_state *st, const eng_mol *e, const pred_mode
 			 double *stat, double *inter, double *pf, int *pp)
 {
 	*stat = statistical(st, i);
-	*inter = interaction(st, e, m, i);
+	*inter = interaction(st, e, i);
 	*pf = pair_feature(st, e, i, pp);
 	return st->micro[i] + *stat + *inter + (*pp >= 0 ? m->params[*pp].value * *pf : 0);
 }
@@ -185,22 +185,42 @@ static void set_state(step_state *st, const eng_mol *e, const pred_model *m, uns
 	}
 }
 
-/* Zwitterion penalty of a state (ZWITTERION_MARGIN, or 100 with the charges 1-2 bonds apart,
- * as for a step): an acid site ionised while a base site still holds its proton. */
-static double state_penalty(const step_state *st, const eng_mol *e, const pred_model *m)
+/* The sites as bit masks, for the zwitterion penalty of a state (ZWITTERION_MARGIN, or 100
+ * with the charges 1-2 bonds apart, as for a step: an acid site ionised while a base site
+ * still holds its proton). near[i]: the base sites within 2 bonds of acid site i. */
+typedef struct zw_masks {
+	unsigned acid, base, near[ORDER_EXACT_MAX];
+} zw_masks;
+
+static void zw_masks_init(zw_masks *z, const eng_mol *e, const pred_model *m)
 {
-	double pen = 0;
-	for (size_t i = 0; i < e->n_sites; i++) {
-		if (!st->done[i] || m->sites[e->sites[i].row].kind != PRED_ACID)
-			continue;
-		for (size_t j = 0; j < e->n_sites; j++) {
-			if (st->charge[j] <= 0)
-				continue;
-			int d = e->dist[i * e->nat + (size_t)e->sites[j].atom];
-			pen = fmax(pen, d >= 0 && d <= 2 ? 100.0 : ZWITTERION_MARGIN);
-		}
+	size_t n = e->n_sites;
+	z->acid = z->base = 0;
+	for (size_t i = 0; i < n; i++) {
+		z->near[i] = 0;
+		if (m->sites[e->sites[i].row].kind == PRED_ACID)
+			z->acid |= 1u << i;
+		else
+			z->base |= 1u << i;
 	}
-	return pen;
+	for (size_t i = 0; i < n; i++)
+		for (size_t j = 0; j < n; j++) {
+			int d = e->dist[i * e->nat + (size_t)e->sites[j].atom];
+			if (((z->acid >> i) & 1u) && ((z->base >> j) & 1u) && d >= 0 && d <= 2)
+				z->near[i] |= 1u << j;
+		}
+}
+
+/* Penalty of the state whose ionised sites are the bits of s. */
+static double state_penalty(const zw_masks *z, unsigned s, size_t n)
+{
+	unsigned acids = s & z->acid, bases = ~s & z->base;
+	if (!acids || !bases)
+		return 0;
+	for (size_t i = 0; i < n; i++)
+		if (((acids >> i) & 1u) && (z->near[i] & bases))
+			return 100.0;
+	return ZWITTERION_MARGIN;
 }
 
 /* The titration order through the most populated states: of all orders (paths from the
@@ -210,7 +230,8 @@ static double state_penalty(const step_state *st, const eng_mol *e, const pred_m
  * one step ahead only: where the first step that wins (the amine of a nitrilotriacetic acid
  * cation, micro value far below the zwitterion's carboxyl plus the margin) leads to states
  * far from the dominant ones at the next levels, this order takes the carboxyl first, as
- * water does. Equal sums go by site_before, as in the greedy order. order gets n site indices; returns 0 or PRED_ENOMEM. */
+ * water does. Equal sums go by site_before, as in the greedy order. order gets n site
+ * indices; returns 0 or PRED_ENOMEM. */
 static int best_order(size_t *order, step_state *st, const eng_mol *e, const pred_model *m)
 {
 	size_t n = e->n_sites, ns = (size_t)1 << n;
@@ -222,6 +243,8 @@ static int best_order(size_t *order, step_state *st, const eng_mol *e, const pre
 		free(last);
 		return PRED_ENOMEM;
 	}
+	zw_masks z;
+	zw_masks_init(&z, e, m);
 	g[0] = best[0] = 0;
 	for (size_t s = 1; s < ns; s++) {
 		size_t i = 0;
@@ -232,8 +255,7 @@ static int best_order(size_t *order, step_state *st, const eng_mol *e, const pre
 		double stat, inter, pf;
 		set_state(st, e, m, prev);
 		g[s] = g[prev] + step_value(st, e, m, i, &stat, &inter, &pf, &pp);
-		set_state(st, e, m, (unsigned)s);
-		double here = g[s] + state_penalty(st, e, m);
+		double here = g[s] + state_penalty(&z, (unsigned)s, n);
 		best[s] = HUGE_VAL;
 		last[s] = 0;
 		/* on ties the site that goes first in the greedy order (site_before) is not the
@@ -273,19 +295,26 @@ int eng_stepwise(term_list *tls, const eng_mol *e, const pred_model *m, const in
 	st.eq_done = calloc(n + 1, sizeof *st.eq_done);
 	st.leader = calloc(n + 1, sizeof *st.leader);
 	st.order = calloc(n + 1, sizeof *st.order);
-	int rc = st.micro && st.charge && st.done && st.eq_n && st.eq_done && st.leader && st.order
-			 ? 0
-			 : PRED_ENOMEM;
+	st.w = malloc((n * n + 1) * sizeof *st.w);
+	int rc = st.micro && st.charge && st.done && st.eq_n && st.eq_done && st.leader &&
+			 st.order && st.w
+		 ? 0
+		 : PRED_ENOMEM;
 	if (!rc) {
+		for (size_t i = 0; i < n; i++)
+			for (size_t j = 0; j < n; j++)
+				st.w[i * n + j] = i == j ? 0 : eng_pair_shift(e, m, i, j);
 		for (size_t i = 0; i < n; i++) {
 			st.micro[i] = terms_sum(&tls[i]);
 			st.charge[i] = m->sites[e->sites[i].row].kind == PRED_BASE ? 1 : 0;
 		}
 		equivalence(&st, e, symclass);
-		rc = n <= ORDER_EXACT_MAX ? best_order(st.order, &st, e, m) : 0;
+		/* with two sites the path order is the greedy one (the final state is common, so
+		 * the first step decides), and beyond ORDER_EXACT_MAX the paths are too many */
+		int exact = n > 2 && n <= ORDER_EXACT_MAX;
+		rc = exact ? best_order(st.order, &st, e, m) : 0;
 		for (size_t k = 0; k < n && !rc; k++)
-			take_step(tls, &st, e, m,
-				  n <= ORDER_EXACT_MAX ? st.order[k] : greedy_next(&st, e, m));
+			take_step(tls, &st, e, m, exact ? st.order[k] : greedy_next(&st, e, m));
 	}
 	free(st.micro);
 	free(st.charge);
@@ -294,5 +323,6 @@ int eng_stepwise(term_list *tls, const eng_mol *e, const pred_model *m, const in
 	free(st.eq_done);
 	free(st.leader);
 	free(st.order);
+	free(st.w);
 	return rc;
 }
