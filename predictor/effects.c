@@ -381,6 +381,21 @@ static int own_para_oxo(const eng_mol *e, const pred_model *m, const eng_site *s
 	       o->degree == 1 && o->hcount == 0 && o->charge == 0 && !o->in_ring;
 }
 
+/* A second C=O (C=S) of a lactam ring, meta or para to the N-H of a lactam acid site (uracil
+ * N1 with its C4=O, quinoxaline-2,3-diones, the fused pteridinediones): a ring carbonyl, not a
+ * substituent with a tabulated sigma (it read as an unknown "ether-like O" donor); its
+ * effect on the anion is in corrections.tsv (lactam_nh_second_oxo_meta, _para). */
+static int lactam_second_oxo(const eng_mol *e, const pred_model *m, const eng_site *s,
+			     int pos, int a, int x)
+{
+	const obw_atom *c = &e->atoms[s->centre], *o = &e->atoms[x];
+	return (pos == 3 || pos == 4) && m->sites[s->row].kind == PRED_ACID &&
+	       strcmp(m->sites[s->row].group, "lactam") == 0 && c->element == 7 &&
+	       c->aromatic && c->hcount > 0 && e->atoms[a].element == 6 && e->atoms[a].aromatic &&
+	       (o->element == 8 || o->element == 16) && o->degree == 1 && o->hcount == 0 &&
+	       o->charge == 0 && !o->in_ring;
+}
+
 /* Substituents of the Hammett ring k (ipso at ring index i0). Marks what it counted. */
 static void ring_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 			 const eng_site *s, size_t k, int ipso, unsigned char *seen, int *queue,
@@ -408,7 +423,8 @@ static void ring_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 			int x = nb[q];
 			if (ring_index_of(R, k, x) >= 0 || in_match(s, x) || fused_with(e, k, a, x))
 				continue;
-			if (own_para_oxo(e, m, s, ipso, pos, x)) {
+			if (own_para_oxo(e, m, s, ipso, pos, x) ||
+			    lactam_second_oxo(e, m, s, pos, a, x)) {
 				seen[x] = 1;
 				continue;
 			}
