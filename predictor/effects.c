@@ -396,6 +396,23 @@ static int lactam_second_oxo(const eng_mol *e, const pred_model *m, const eng_si
 	       o->charge == 0 && !o->in_ring;
 }
 
+/* A pyrrole-type ring N (N-H or N-R: uracil N3 seen from N1, quinoxaline-2,3-dione N4)
+ * meta or para to the N-H of a lactam acid site: an amide N of the ring, which withdraws far
+ * less than a ring =N-, so it takes no aza term; corrections.tsv (lactam_nh_ring_nr) has it.
+ * Its N-substituent is not a ring substituent either: an alkyl on the amide N changes the
+ * N-H acidity by a few tenths at most (3-methyluracil N1-H 9.85, Serjeant & Dempsey 1979 via
+ * IUPAC dataset, against about 9.75 for each uracil N-H from its macroscopic 9.45, from
+ * memory). */
+static int lactam_ring_nr(const eng_mol *e, const pred_model *m, const eng_site *s, int pos,
+			  int a)
+{
+	const obw_atom *c = &e->atoms[s->centre], *n = &e->atoms[a];
+	return (pos == 3 || pos == 4) && m->sites[s->row].kind == PRED_ACID &&
+	       strcmp(m->sites[s->row].group, "lactam") == 0 && c->element == 7 &&
+	       c->aromatic && c->hcount > 0 && n->element == 7 && n->aromatic && n->charge == 0 &&
+	       n->degree + n->hcount == 3;
+}
+
 /* Substituents of the Hammett ring k (ipso at ring index i0). Marks what it counted. */
 static void ring_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 			 const eng_site *s, size_t k, int ipso, unsigned char *seen, int *queue,
@@ -411,7 +428,8 @@ static void ring_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 		int pos = (d < 6 - d ? d : 6 - d) + 1;
 		if (a == ipso)
 			continue;
-		if (e->atoms[a].element != 6 && !in_match(s, a) && aza >= 0) {
+		if (e->atoms[a].element != 6 && !in_match(s, a) && aza >= 0 &&
+		    !lactam_ring_nr(e, m, s, pos, a)) {
 			sigmas g = {m->substs[aza].sigma_m, m->substs[aza].sigma_p,
 				     m->substs[aza].sigma_p_minus, m->substs[aza].sigma_p_plus, 0,
 				     "aza", 0};
@@ -426,6 +444,10 @@ static void ring_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 			if (own_para_oxo(e, m, s, ipso, pos, x) ||
 			    lactam_second_oxo(e, m, s, pos, a, x)) {
 				seen[x] = 1;
+				continue;
+			}
+			if (lactam_ring_nr(e, m, s, pos, a)) {
+				mark_group(seen, e, x); /* an N-alkyl of the ring amide N */
 				continue;
 			}
 			sigmas g;
