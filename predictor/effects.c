@@ -381,38 +381,6 @@ static int own_para_oxo(const eng_mol *e, const pred_model *m, const eng_site *s
 	       o->degree == 1 && o->hcount == 0 && o->charge == 0 && !o->in_ring;
 }
 
-/* A second C=O (C=S) of a lactam ring, meta or para to the N-H of a lactam acid site (uracil
- * N1 with its C4=O, quinoxaline-2,3-diones, the fused pteridinediones): a ring carbonyl, not a
- * substituent with a tabulated sigma (it read as an unknown "ether-like O" donor); its
- * effect on the anion is in corrections.tsv (lactam_nh_second_oxo_meta, _para). */
-static int lactam_second_oxo(const eng_mol *e, const pred_model *m, const eng_site *s,
-			     int pos, int a, int x)
-{
-	const obw_atom *c = &e->atoms[s->centre], *o = &e->atoms[x];
-	return (pos == 3 || pos == 4) && m->sites[s->row].kind == PRED_ACID &&
-	       strcmp(m->sites[s->row].group, "lactam") == 0 && c->element == 7 &&
-	       c->aromatic && c->hcount > 0 && e->atoms[a].element == 6 && e->atoms[a].aromatic &&
-	       (o->element == 8 || o->element == 16) && o->degree == 1 && o->hcount == 0 &&
-	       o->charge == 0 && !o->in_ring;
-}
-
-/* A pyrrole-type ring N (N-H or N-R: uracil N3 seen from N1, quinoxaline-2,3-dione N4)
- * meta or para to the N-H of a lactam acid site: an amide N of the ring, which withdraws far
- * less than a ring =N-, so it takes no aza term; corrections.tsv (lactam_nh_ring_nr) has it.
- * Its N-substituent is not a ring substituent either: an alkyl on the amide N changes the
- * N-H acidity by a few tenths at most (3-methyluracil N1-H 9.85, Serjeant & Dempsey 1979 via
- * IUPAC dataset, against about 9.75 for each uracil N-H from its macroscopic 9.45, from
- * memory). */
-static int lactam_ring_nr(const eng_mol *e, const pred_model *m, const eng_site *s, int pos,
-			  int a)
-{
-	const obw_atom *c = &e->atoms[s->centre], *n = &e->atoms[a];
-	return (pos == 3 || pos == 4) && m->sites[s->row].kind == PRED_ACID &&
-	       strcmp(m->sites[s->row].group, "lactam") == 0 && c->element == 7 &&
-	       c->aromatic && c->hcount > 0 && n->element == 7 && n->aromatic && n->charge == 0 &&
-	       n->degree + n->hcount == 3;
-}
-
 /* Substituents of the Hammett ring k (ipso at ring index i0). Marks what it counted. */
 static void ring_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 			 const eng_site *s, size_t k, int ipso, unsigned char *seen, int *queue,
@@ -428,8 +396,7 @@ static void ring_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 		int pos = (d < 6 - d ? d : 6 - d) + 1;
 		if (a == ipso)
 			continue;
-		if (e->atoms[a].element != 6 && !in_match(s, a) && aza >= 0 &&
-		    !lactam_ring_nr(e, m, s, pos, a)) {
+		if (e->atoms[a].element != 6 && !in_match(s, a) && aza >= 0) {
 			sigmas g = {m->substs[aza].sigma_m, m->substs[aza].sigma_p,
 				     m->substs[aza].sigma_p_minus, m->substs[aza].sigma_p_plus, 0,
 				     "aza", 0};
@@ -441,13 +408,8 @@ static void ring_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 			int x = nb[q];
 			if (ring_index_of(R, k, x) >= 0 || in_match(s, x) || fused_with(e, k, a, x))
 				continue;
-			if (own_para_oxo(e, m, s, ipso, pos, x) ||
-			    lactam_second_oxo(e, m, s, pos, a, x)) {
+			if (own_para_oxo(e, m, s, ipso, pos, x)) {
 				seen[x] = 1;
-				continue;
-			}
-			if (lactam_ring_nr(e, m, s, pos, a)) {
-				mark_group(seen, e, x); /* an N-alkyl of the ring amide N */
 				continue;
 			}
 			sigmas g;
