@@ -149,6 +149,26 @@ static void test_acid_terms__lactam_nh_on_an_aza_ring(void)
 	CHECK_INT_EQ(site_term_count("CC(=O)Nc1ncnc2c1nccn2", "amide", PRED_ACID, "hammett"), 0);
 }
 
+/* A thione beside or para to a lactam N-H makes it the stronger acid (corrections.tsv,
+ * thiolactam_nh): 2-mercaptopyridine N-H 10.00 against 2-hydroxypyridine 11.99, 2-mercapto-
+ * pyrimidine 7.10 against 2-hydroxypyrimidine 9.20, 4-mercaptoquinoline 8.87 (Perrin 1965 via
+ * IUPAC dataset, entries perrin1176, perrin1159, perrin1751, perrin1741 and perrin2039 of
+ * data/iupac-pka.csv). Without the term a thione and its oxo analogue are predicted alike;
+ * tolerance 0.8 (about the lactam class uncertainty). */
+static void test_acid_terms__thiolactam_nh_is_the_stronger_acid(void)
+{
+	double thione = site_pka("S=c1cccc[nH]1", "lactam", PRED_ACID);
+	double oxo = site_pka("O=c1cccc[nH]1", "lactam", PRED_ACID);
+	double pym_s = site_pka("S=c1nccc[nH]1", "lactam", PRED_ACID);
+	double pym_o = site_pka("O=c1nccc[nH]1", "lactam", PRED_ACID);
+	CHECK(!isnan(thione) && !isnan(oxo) && !isnan(pym_s) && !isnan(pym_o));
+	CHECK(oxo - thione > 0.8);  /* measured 1.99 apart */
+	CHECK(pym_o - pym_s > 0.8); /* measured 2.10 apart */
+	CHECK_NEAR(thione, 10.00, 0.8);
+	CHECK_NEAR(pym_s, 7.10, 0.8);
+	CHECK_NEAR(site_pka("S=c1cc[nH]c2ccccc12", "lactam", PRED_ACID), 8.87, 0.8);
+}
+
 int main(void)
 {
 	if (probe_setup(&model, &worker))
@@ -161,6 +181,7 @@ int main(void)
 	RUN(test_acid_terms__aryl_phosphate_second_step_is_lower);
 	RUN(test_acid_terms__fused_azole_nh_counts_ring_substituents_once);
 	RUN(test_acid_terms__lactam_nh_on_an_aza_ring);
+	RUN(test_acid_terms__thiolactam_nh_is_the_stronger_acid);
 	probe_teardown(model, worker);
 	return harness_done();
 }
