@@ -145,6 +145,24 @@ static int site_before(const eng_mol *e, size_t i, size_t j)
 	return i < j;
 }
 
+/* Effective value of site i for the greedy order: its step value, zwitterion penalty
+ * included. */
+static double greedy_value(const step_state *st, const eng_mol *e, const pred_model *m,
+			   size_t i)
+{
+	int pp;
+	double stat, inter, pf;
+	return step_value(st, e, m, i, &stat, &inter, &pf, &pp) + zwitterion_penalty(st, e, m, i);
+}
+
+/* Whether the greedy order takes site i before site j now. */
+static int greedy_before(const step_state *st, const eng_mol *e, const pred_model *m,
+			 size_t i, size_t j)
+{
+	double vi = greedy_value(st, e, m, i), vj = greedy_value(st, e, m, j);
+	return vi < vj - 1e-9 || (fabs(vi - vj) <= 1e-9 && site_before(e, i, j));
+}
+
 /* Site the greedy order ionises next: the lowest effective value, zwitterion penalty
  * included. */
 static size_t greedy_next(const step_state *st, const eng_mol *e, const pred_model *m)
@@ -154,10 +172,7 @@ static size_t greedy_next(const step_state *st, const eng_mol *e, const pred_mod
 	for (size_t i = 0; i < e->n_sites; i++) {
 		if (st->done[i])
 			continue;
-		int pp;
-		double stat, inter, pf;
-		double rank = step_value(st, e, m, i, &stat, &inter, &pf, &pp) +
-			      zwitterion_penalty(st, e, m, i);
+		double rank = greedy_value(st, e, m, i);
 		/* equal values: the lower canonical rank first, never the input order */
 		if (rank < best_rank - 1e-9 ||
 		    (fabs(rank - best_rank) <= 1e-9 && site_before(e, i, best))) {
@@ -168,8 +183,15 @@ static size_t greedy_next(const step_state *st, const eng_mol *e, const pred_mod
 	return best;
 }
 
-/* Sites up to which the order is chosen over all titration paths (2^n states). */
-enum { ORDER_EXACT_MAX = 14 };
+/* Sites of the water window up to which their order is chosen over all titration paths
+ * (2^k states), and sites in all up to which that is tried (bit masks of the state). */
+enum { ORDER_EXACT_MAX = 14, ORDER_SITES_MAX = 32 };
+
+/* The water window of the path order: sites whose micro value lies outside it (the O of a
+ * carbonyl near -7, a C-H acid near 20) ionise before or after every site inside it in any
+ * order that matters, so they take the greedy order and do not double the paths searched. */
+#define ORDER_WINDOW_LO (-2.0)
+#define ORDER_WINDOW_HI 16.0
 
 /* Puts st in the state of the sites in mask ionised (from the fully protonated form). */
 static void set_state(step_state *st, const eng_mol *e, const pred_model *m, unsigned mask)
@@ -189,7 +211,7 @@ static void set_state(step_state *st, const eng_mol *e, const pred_model *m, uns
  * with the charges 1-2 bonds apart, as for a step: an acid site ionised while a base site
  * still holds its proton). near[i]: the base sites within 2 bonds of acid site i. */
 typedef struct zw_masks {
-	unsigned acid, base, near[ORDER_EXACT_MAX];
+	unsigned acid, base, near[ORDER_SITES_MAX];
 } zw_masks;
 
 static void zw_masks_init(zw_masks *z, const eng_mol *e, const pred_model *m)
@@ -232,9 +254,10 @@ static double state_penalty(const zw_masks *z, unsigned s, size_t n)
  * far from the dominant ones at the next levels, this order takes the carboxyl first, as
  * water does. Equal sums go by site_before, as in the greedy order. order gets n site
  * indices; returns 0 or PRED_ENOMEM. */
-static int best_order(size_t *order, step_state *st, const eng_mol *e, const pred_model *m)
+static int best_order(size_t *order, step_state *st, const eng_mol *e, const pred_model *m,
+		      const size_t *idx, size_t k, unsigned base)
 {
-	size_t n = e->n_sites, ns = (size_t)1 << n;
+	size_t n = e->n_sites, ns = (size_t)1 << k;
 	double *g = malloc(ns * sizeof *g), *best = malloc(ns * sizeof *best);
 	unsigned char *last = malloc(ns);
 	if (!g || !best || !last) {
@@ -245,27 +268,32 @@ static int best_order(size_t *order, step_state *st, const eng_mol *e, const pre
 	}
 	zw_masks z;
 	zw_masks_init(&z, e, m);
+	unsigned full = base; /* the full mask of state s, kept in step with s */
 	g[0] = best[0] = 0;
 	for (size_t s = 1; s < ns; s++) {
 		size_t i = 0;
 		while (!((s >> i) & 1u))
 			i++;
 		unsigned prev = (unsigned)(s & ~((size_t)1 << i));
+		full = base;
+		for (size_t j = 0; j < k; j++)
+			if ((prev >> j) & 1u)
+				full |= 1u << idx[j];
 		int pp;
 		double stat, inter, pf;
-		set_state(st, e, m, prev);
-		g[s] = g[prev] + step_value(st, e, m, i, &stat, &inter, &pf, &pp);
-		double here = g[s] + state_penalty(&z, (unsigned)s, n);
+		set_state(st, e, m, full);
+		g[s] = g[prev] + step_value(st, e, m, idx[i], &stat, &inter, &pf, &pp);
+		double here = g[s] + state_penalty(&z, full | 1u << idx[i], n);
 		best[s] = HUGE_VAL;
 		last[s] = 0;
 		/* on ties the site that goes first in the greedy order (site_before) is not the
 		 * last one */
-		for (size_t j = 0; j < n; j++) {
+		for (size_t j = 0; j < k; j++) {
 			if (!((s >> j) & 1u))
 				continue;
 			double v = best[s & ~((size_t)1 << j)];
 			if (v < best[s] - 1e-9 || (fabs(v - best[s]) <= 1e-9 &&
-						     site_before(e, last[s], j))) {
+						     site_before(e, idx[last[s]], idx[j]))) {
 				best[s] = v;
 				last[s] = (unsigned char)j;
 			}
@@ -273,15 +301,57 @@ static int best_order(size_t *order, step_state *st, const eng_mol *e, const pre
 		best[s] += here;
 	}
 	size_t s = ns - 1;
-	for (size_t k = n; k-- > 0;) {
-		order[k] = last[s];
+	for (size_t q = k; q-- > 0;) {
+		order[q] = idx[last[s]];
 		s &= ~((size_t)1 << last[s]);
 	}
 	free(g);
 	free(best);
 	free(last);
-	set_state(st, e, m, 0);
+	set_state(st, e, m, base);
 	return 0;
+}
+
+/* Titrates the sites whose micro value is below the window (greedy), then those inside it
+ * (best_order when there are 3 to ORDER_EXACT_MAX of them, else greedy), then the rest
+ * (greedy). */
+static int titrate(term_list *tls, step_state *st, const eng_mol *e, const pred_model *m)
+{
+	size_t n = e->n_sites, k = 0, idx[ORDER_EXACT_MAX];
+	int in[ORDER_SITES_MAX];
+	for (size_t i = 0; i < n && n <= ORDER_SITES_MAX; i++) {
+		in[i] = st->micro[i] >= ORDER_WINDOW_LO && st->micro[i] <= ORDER_WINDOW_HI;
+		if (in[i] && k < ORDER_EXACT_MAX)
+			idx[k] = i;
+		k += in[i];
+	}
+	if (n > ORDER_SITES_MAX || k < 3 || k > ORDER_EXACT_MAX) {
+		for (size_t q = 0; q < n; q++)
+			take_step(tls, st, e, m, greedy_next(st, e, m));
+		return 0;
+	}
+	size_t done = 0;
+	unsigned base = 0;
+	/* below the window: greedy among those sites */
+	for (size_t q = 0; q < n; q++)
+		if (st->micro[q] < ORDER_WINDOW_LO) {
+			size_t pick = n;
+			for (size_t i = 0; i < n; i++)
+				if (!st->done[i] && st->micro[i] < ORDER_WINDOW_LO &&
+				    (pick == n || greedy_before(st, e, m, i, pick)))
+					pick = i;
+			if (pick == n)
+				break;
+			take_step(tls, st, e, m, pick);
+			base |= 1u << pick;
+			done++;
+		}
+	int rc = best_order(st->order, st, e, m, idx, k, base);
+	for (size_t q = 0; q < k && !rc; q++, done++)
+		take_step(tls, st, e, m, st->order[q]);
+	for (; done < n && !rc; done++)
+		take_step(tls, st, e, m, greedy_next(st, e, m));
+	return rc;
 }
 
 int eng_stepwise(term_list *tls, const eng_mol *e, const pred_model *m, const int *symclass)
@@ -309,12 +379,9 @@ int eng_stepwise(term_list *tls, const eng_mol *e, const pred_model *m, const in
 			st.charge[i] = m->sites[e->sites[i].row].kind == PRED_BASE ? 1 : 0;
 		}
 		equivalence(&st, e, symclass);
-		/* with two sites the path order is the greedy one (the final state is common, so
-		 * the first step decides), and beyond ORDER_EXACT_MAX the paths are too many */
-		int exact = n > 2 && n <= ORDER_EXACT_MAX;
-		rc = exact ? best_order(st.order, &st, e, m) : 0;
-		for (size_t k = 0; k < n && !rc; k++)
-			take_step(tls, &st, e, m, exact ? st.order[k] : greedy_next(&st, e, m));
+		/* with two window sites the path order is the greedy one (the final state is
+		 * common, so the first step decides) */
+		rc = titrate(tls, &st, e, m);
 	}
 	free(st.micro);
 	free(st.charge);
