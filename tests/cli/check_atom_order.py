@@ -10,11 +10,11 @@
 # of the sites, and the same canonical "smiles".
 # Usage: check_atom_order.py [PKAD_BIN] ; exits 77 (skip) without rdkit.
 import csv
-import json
 import os
 import random
-import subprocess
 import sys
+
+from pkad_run import run_pkad
 
 SEED = 20261202
 ORDERS = 8        # random atom orders per molecule, besides the reference SMILES itself
@@ -92,14 +92,6 @@ def pick(Chem, smiles):
     picked += [(s, Chem.MolFromSmiles(s), "stepwise ties") for s in sorted(TIES | KNOWN)
                if s not in taken and s not in {p[0] for p in picked}]
     return picked
-
-
-def run_pkad(pkad, lines):
-    p = subprocess.run([pkad, "predict", "--threads", "2", "--no-progress", "-"],
-                       input="".join(lines), capture_output=True, text=True, timeout=600)
-    if p.returncode not in (0, 1):
-        sys.exit("pkad predict exited with %d: %s" % (p.returncode, p.stderr))
-    return [json.loads(x) for x in p.stdout.splitlines()]
 
 
 def answer(res):

@@ -7,11 +7,11 @@
 # SMILES, and RDKit must read pkad's "smiles" back to the input molecule (RDKit canonical
 # SMILES with stereo equal) where pkad did not rewrite the input (no warnings).
 # Usage: check_canonical_smiles.py [PKAD_BIN] ; exits 77 (skip) without rdkit or the set.
-import json
 import os
 import random
-import subprocess
 import sys
+
+from pkad_run import run_pkad
 
 NCI_SET = "/usr/share/RDKit/Data/NCI/first_5K.smi"
 MOLECULES = 300   # molecules checked
@@ -52,14 +52,6 @@ def pick_molecules(Chem, enum, options):
             if len(out) == MOLECULES:
                 break
     return out
-
-
-def run_pkad(pkad, lines):
-    p = subprocess.run([pkad, "predict", "--threads", "2", "--no-progress", "-"],
-                       input="".join(lines), capture_output=True, text=True, timeout=600)
-    if p.returncode not in (0, 1):
-        sys.exit("pkad predict exited with %d: %s" % (p.returncode, p.stderr))
-    return [json.loads(x) for x in p.stdout.splitlines()]
 
 
 def species_of(res):
