@@ -584,6 +584,24 @@ static void test_base_terms__para_thioethers_donate_to_the_azinium(void)
 	CHECK_NEAR(site_pka("CSc1ccnc2c1cccc2", "quinoline", PRED_BASE), 5.85, 0.5);
 }
 
+/* A tertiary phosphine counts each of its carbon groups (fragments/sites.tsv
+ * phosphine_tertiary: only the P in the match): trimethylphosphine 8.65, dimethylphenyl-
+ * phosphine 6.5, methyldiphenylphosphine 4.6, triphenylphosphine 2.73 (all from memory;
+ * Perrin 1965 via IUPAC dataset lists trimethylphosphine 8.8, graded B). With two of the
+ * three carbons in the match, PPh3 and PhPMe2 had read alike (0.9). */
+static void test_base_terms__phosphines_count_each_aryl(void)
+{
+	double me3 = site_pka("CP(C)C", "phosphine", PRED_BASE);
+	double me2ph = site_pka("CP(C)c1ccccc1", "phosphine", PRED_BASE);
+	double meph2 = site_pka("CP(c1ccccc1)c1ccccc1", "phosphine", PRED_BASE);
+	double ph3 = site_pka("c1ccccc1P(c1ccccc1)c1ccccc1", "phosphine", PRED_BASE);
+	CHECK_NEAR(me3, 8.65, 0.6);
+	CHECK_NEAR(me2ph, 6.5, 0.8);
+	CHECK_NEAR(meph2, 4.6, 0.8);
+	CHECK_NEAR(ph3, 2.73, 0.8);
+	CHECK(me3 > me2ph && me2ph > meph2 && meph2 > ph3);
+}
+
 int main(void)
 {
 	if (probe_setup(&model, &worker))
@@ -611,6 +629,7 @@ int main(void)
 	RUN(test_base_terms__para_esters_conjugate_with_an_aniline);
 	RUN(test_base_terms__aryl_groups_claim_one_ring_atom);
 	RUN(test_base_terms__guanidine_on_an_aza_aryl);
+	RUN(test_base_terms__phosphines_count_each_aryl);
 	RUN(test_base_terms__fused_ring_substituents_reach_the_ring_n);
 	RUN(test_base_terms__meta_amino_beside_a_conjugating_one_saturates);
 	RUN(test_base_terms__para_alkylamino_groups_and_their_twist);
