@@ -42,6 +42,7 @@ CLASS_GROUPS = {
     "benzoic_acid": {"benzoic_acid"},
     "phenol": {"phenol"}, "polynitrophenol": {"phenol"},
     "alcohol": {"alcohol"}, "amide": {"amide"}, "c_h_acid": {"c_h_acid"},
+    "vinylogous_acid": {"vinylogous_acid"},
     "sulfonamide": {"sulfonamide"}, "thiol": {"thiol"}, "thiophenol": {"thiophenol"},
     "barbiturate": {"barbiturate"}, "hydantoin": {"hydantoin"},
     "amino_acid_zwitterion": {"carboxylic_acid", "primary_amine", "secondary_amine", "guanidine"},

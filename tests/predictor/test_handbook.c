@@ -28,6 +28,7 @@ static const struct {
 	{"alcohol", "alcohol", 0},
 	{"amide", "amide", 0},
 	{"c_h_acid", "c_h_acid", 0},
+	{"vinylogous_acid", "vinylogous_acid", 0},
 	{"sulfonamide", "sulfonamide", 0},
 	{"thiol", "thiol", 0},
 	{"thiophenol", "thiophenol", 0},
