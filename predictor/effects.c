@@ -429,6 +429,32 @@ static void amine_n_effects(term_list *tl, const eng_mol *e, const pred_model *m
 	tl->extra_var += acc.generic_var;
 }
 
+/* A ring substituent that is a plain sp3 carbon (the generic alkyl row, or no row): its
+ * own groups pull on the ring by induction, so its sigma rises by global.alkyl_inductive x
+ * the sigma* they give it (attenuated per bond from the carbon, as in the walk). The prior
+ * 0.068 is 0.17 x 0.4: across CH3, CH2OH, CH2OCH3, CH2Cl and CH2CN, sigma_m rises by about
+ * 0.17 per unit sigma*(CH2X) (HLT1991 Table I and Taft sigma*, substituent-constants.csv,
+ * own arithmetic), and sigma*(CH2X) is about 0.4 sigma*(X). */
+static void alkyl_c_effects(term_list *tl, const eng_mol *e, const pred_model *m,
+			    const eng_site *s, int x, int pos, unsigned char *seen, int *queue,
+			    int *depth)
+{
+	const obw_atom *c = &e->atoms[x];
+	int g = e->group[x];
+	if (m->p_alkyl_inductive < 0 || c->element != 6 || c->aromatic || c->charge != 0 ||
+	    e->hetero_pi[x] || (g >= 0 && !m->substs[g].transparent))
+		return;
+	star_sum acc = {0, 0};
+	walk_from(e, m, s, x, 1, seen, queue, depth, add_star, &acc);
+	if (fabs(acc.star) < 1e-9)
+		return;
+	const frag_site *row = &m->sites[s->row];
+	double rho = m->params[pos == 4 ? row->p_rho_para : row->p_rho].value;
+	terms_add(tl, m, "hammett", m->p_alkyl_inductive, -rho * acc.star,
+		  "%d-alkyl groups beyond its carbon, sigma* %.2f, rho %.2f", pos, acc.star, rho);
+	tl->extra_var += acc.generic_var;
+}
+
 /* The C=O (C=S) para to the ring N-H of an acid site matched as the N alone is that site's
  * own acceptor (the carbonyl of a 4-pyridone takes the anion's charge), not a substituent of
  * its ring. A site whose match holds a C=O beside the N (2-pyridones, uracil N1) keeps a para
@@ -480,6 +506,8 @@ static void ring_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 			mark_group(seen, e, x);
 			if (is_amine_n(e, x, a))
 				amine_n_effects(tl, e, m, s, x, pos, seen, queue, depth);
+			else
+				alkyl_c_effects(tl, e, m, s, x, pos, seen, queue, depth);
 		}
 	}
 }

@@ -387,10 +387,15 @@ static int add_globals(pred_model *m)
 	 * via IUPAC dataset (quinoline 4.90; 5-hydroxy- 5.18, 7-hydroxy- 5.46, methyl
 	 * quinoline-6-carboxylate 3.80: 0.2-0.5 of the pyridine-ring term); fitted. */
 	m->p_fused_transmission = model_param_add(m, "global.fused_transmission", 0.4, 0.15);
+	/* Rise of a ring alkyl carbon's sigma per unit sigma* of its own groups (effects.c
+	 * alkyl_c_effects): 0.17 x 0.4 from HLT1991 Table I sigma_m of CH3, CH2OH, CH2OCH3,
+	 * CH2Cl, CH2CN against Taft sigma* (substituent-constants.csv, own arithmetic); fitted. */
+	m->p_alkyl_inductive = model_param_add(m, "global.alkyl_inductive", 0.068, 0.03);
 	return m->p_falloff < 0 || m->p_interaction < 0 || m->p_interaction_decay < 0 ||
 		       m->p_interaction_route < 0 || m->p_aryl_transmission < 0 ||
 		       m->p_unc_scale < 0 || m->p_unc_size < 0 || m->p_unc_sites < 0 ||
-		       m->p_unc_floor < 0 || m->p_amine_n < 0 || m->p_fused_transmission < 0
+		       m->p_unc_floor < 0 || m->p_amine_n < 0 || m->p_fused_transmission < 0 ||
+		       m->p_alkyl_inductive < 0
 		       ? PRED_ENOMEM
 		       : 0;
 }
