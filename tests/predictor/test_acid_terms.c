@@ -169,6 +169,23 @@ static void test_acid_terms__thiolactam_nh_is_the_stronger_acid(void)
 	CHECK_NEAR(site_pka("S=c1cc[nH]c2ccccc12", "lactam", PRED_ACID), 8.87, 0.8);
 }
 
+/* A carboxyl beside the ring C=O of a 4-pyridone-type ring donates a hydrogen bond to it
+ * (corrections.tsv, benzoic_ortho_ring_oxo), so the acid is the weaker one:
+ * 2-(ethylthio)-6-oxo-1,6-dihydropyrimidine-5-carboxylic acid 6.01 (Serjeant & Dempsey 1979 via
+ * IUPAC dataset, train row of data/iupac-pka.csv) and nalidixic acid 6.0 (Avdeef 2003, from
+ * memory; data/handbook-additions.csv) against benzoic acid 4.20. Without the term both read
+ * about 3.2; 2-acetylbenzoic acid, whose C=O is no ring atom, keeps the plain ortho term. */
+static void test_acid_terms__carboxyl_beside_a_ring_oxo_is_held(void)
+{
+	double pyrimidinone = site_pka("CCSc1nc(=O)c(c[nH]1)C(=O)O", "benzoic_acid", PRED_ACID);
+	double nalidixic = site_pka("CCn1cc(C(=O)O)c(=O)c2ccc(C)nc12", "benzoic_acid", PRED_ACID);
+	double acetyl = site_pka("OC(=O)c1ccccc1C(C)=O", "benzoic_acid", PRED_ACID);
+	CHECK(!isnan(pyrimidinone) && !isnan(nalidixic) && !isnan(acetyl));
+	CHECK(acetyl < 4.2);
+	CHECK_NEAR(pyrimidinone, 6.01, 1.0);
+	CHECK_NEAR(nalidixic, 6.0, 1.0);
+}
+
 int main(void)
 {
 	if (probe_setup(&model, &worker))
@@ -182,6 +199,7 @@ int main(void)
 	RUN(test_acid_terms__fused_azole_nh_counts_ring_substituents_once);
 	RUN(test_acid_terms__lactam_nh_on_an_aza_ring);
 	RUN(test_acid_terms__thiolactam_nh_is_the_stronger_acid);
+	RUN(test_acid_terms__carboxyl_beside_a_ring_oxo_is_held);
 	probe_teardown(model, worker);
 	return harness_done();
 }
