@@ -346,9 +346,11 @@ static void test_obwrap__bond_cis_reads_the_drawn_configuration(void)
 	/* hydrogens drawn and folded: the H's cis, so the carboxyls (C 1 on C 0, C 5 on C 4) */
 	CHECK_INT_EQ(butenedioic_cis("[H]/C(C(=O)O)=C(\\[H])C(=O)O", 1, 0, 4, 5), 1);
 	CHECK_INT_EQ(butenedioic_cis("[H]/C(C(=O)O)=C(/[H])C(=O)O", 1, 0, 4, 5), 0);
-	/* a ring C=C carries no configuration: cis by the ring, but read as not given
-	 * (cyclohex-1-ene-1,2-dicarboxylic acid, carboxyl C 1 on C 3, C 9 on C 4) */
+	/* an unmarked ring C=C carries no configuration: cis by the ring, but read as not given
+	 * (cyclohex-1-ene-1,2-dicarboxylic acid, carboxyl C 1 on C 3, C 9 on C 4); drawn with
+	 * marks it keeps them (carboxyl C 5 on C 4) */
 	CHECK_INT_EQ(butenedioic_cis("OC(=O)C1=C(CCCC1)C(=O)O", 1, 3, 4, 9), 0);
+	CHECK_INT_EQ(butenedioic_cis("OC(=O)/C1=C(\\C(=O)O)CCCC1", 1, 3, 4, 5), 1);
 	/* a mol block gives it by its coordinates; the "either" stereo field leaves it open */
 	for (int either = 0; either < 2; either++) {
 		obw_mol *m = NULL;
