@@ -732,7 +732,9 @@ static void correction_effects(term_list *tl, const eng_mol *e, const pred_worke
 			if (!c->per_match)
 				break;
 		}
-		if (!hits)
+		/* a Z pair row needs a cis partner, which the pattern cannot see */
+		if (!hits || (c->pair == CORR_PAIR_Z &&
+			      !eng_pair_row_holds(e, w, (size_t)k, (size_t)(s - e->sites))))
 			continue;
 		/* a per-match row (one carboxymethyl arm of an ammonium, say) scales with the
 		 * count, and so does the design column the fit regresses on */

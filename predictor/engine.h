@@ -35,7 +35,7 @@ struct pred_worker {
 	unsigned char *corr_ok; /* corr_ok[k * n_sites + r]: correction k applies to site row r */
 	int *row_corr_start, *row_corrs; /* the corrections of row r, in table order:
 					  * row_corrs[row_corr_start[r] .. row_corr_start[r + 1]) */
-	int *pair_corrs; /* the hbond_pair rows of the corrections, in table order */
+	int *pair_corrs; /* the hbond_pair(_z) rows of the corrections, in table order */
 	size_t n_pair_corrs;
 };
 
@@ -130,8 +130,11 @@ double terms_sum(const term_list *tl);
 /* Hammett ring, Taft walk and corrections of site s. */
 void eng_site_effects(term_list *tl, const eng_mol *e, const pred_worker *w, const eng_site *s);
 
-/* Fills e->pair_param from the hbond_pair rows of corrections.tsv (pair_hbond.c). */
+/* Fills e->pair_param from the hbond_pair(_z) rows of corrections.tsv (pair_hbond.c). */
 int eng_pair_hbonds(eng_mol *e, const pred_worker *w);
+/* 1 unless correction k is an hbond_pair_z row that no other site pairs with site i (a
+ * Z row adds its value to a site only with a cis partner; pair_hbond.c). */
+int eng_pair_row_holds(const eng_mol *e, const pred_worker *w, size_t k, size_t i);
 /* Indices of the hbond_pair rows of m's corrections, in table order, into out (room for
  * m->n_corrs); returns the count. */
 size_t eng_pair_rows(int *out, const pred_model *m);

@@ -270,6 +270,12 @@ static int parse_corr_row(pred_model *m, frag_corr *k, const tsv_table *t, const
 		return tsv_fail(err, PRED_EDATA, t, r->line, "count '%s' is not site or match",
 				count);
 	k->per_match = !strcmp(count, "match");
+	k->pair = !strcmp(k->term, "hbond_pair")     ? CORR_PAIR_ANY
+		  : !strcmp(k->term, "hbond_pair_z") ? CORR_PAIR_Z
+						     : CORR_PAIR_NONE;
+	if (k->pair && k->per_match)
+		return tsv_fail(err, PRED_EDATA, t, r->line,
+				"a %s row counts once per site (count site)", k->term);
 	char id[128];
 	snprintf(id, sizeof id, "corr.%s", k->id);
 	k->p_value = model_param_add(m, id, value, 0.5);

@@ -49,8 +49,15 @@ typedef struct frag_corr {
 	int p_value;
 	double unc;
 	int per_match; /* 1: the term counts every match at the site (count "match") */
+	int pair;      /* CORR_PAIR_*: a monoanion hydrogen-bond pair row (pair_hbond.c) */
 	char *source;
 } frag_corr;
+
+/* The pair kinds of corrections.tsv, read from the term column: "hbond_pair" rows take any
+ * two sites the pattern matches; "hbond_pair_z" rows only two sites on the two ends of a
+ * C=C whose configuration is given as cis (Z), since a SMARTS pattern does not read the
+ * '/' '\\' marks of the input. */
+enum { CORR_PAIR_NONE = 0, CORR_PAIR_ANY = 1, CORR_PAIR_Z = 2 };
 
 /* Reagent bases for base matching (fragments/bases.tsv). */
 typedef struct frag_base {

@@ -1,20 +1,25 @@
 /* SPDX-License-Identifier: MIT */
 /* pair_hbond.c: acid pairs whose monoanion is held by an intramolecular hydrogen bond. */
 #include <stdlib.h>
-#include <string.h>
 
 #include "engine.h"
 
-/* Pair rows of corrections.tsv carry this term. The row's value v (negative) is added to
- * both sites as an ordinary correction: the first proton leaves more easily because the
- * anion is bonded to the other OH. Once one site is ionised, the other holds its proton in
- * a hydrogen bond to that anion, and gains -2v (eng_stepwise, and the pair shift of the
- * microstate model), so pKa1 falls by |v| and pKa2 rises by |v|: the monoanions of
- * 2,2-dialkylmalonic and cyclopentene-1,2-dicarboxylic acids. */
-static const char PAIR_TERM[] = "hbond_pair";
+/* Pair rows of corrections.tsv (frag_corr.pair, set by the loader from the term column).
+ * The row's value v (negative) is added to both sites as an ordinary correction: the first
+ * proton leaves more easily because the anion is bonded to the other OH. Once one site is
+ * ionised, the other holds its proton in a hydrogen bond to that anion, and gains -2v
+ * (eng_stepwise, and the pair shift of the microstate model), so pKa1 falls by |v| and pKa2
+ * rises by |v|: the monoanions of 2,2-dialkylmalonic and cyclopentene-1,2-dicarboxylic
+ * acids. An "hbond_pair_z" row holds only for two sites on the two ends of a C=C drawn cis
+ * (maleic, not fumaric acid): the pattern cannot tell the two apart, the drawn
+ * configuration can (obw_mol_bond_cis; an unmarked double bond reads not cis). */
 
 /* Sites of one pair lie within this many bonds (O-C-C-C-C-C-O of a glutaric acid). */
 enum { PAIR_MAX_BONDS = 6 };
+
+/* A site sits on an end of a double bond when its ionizable atom is at most this many
+ * bonds from that carbon (O-C(=O)-C= of an acrylic acid). */
+enum { ENE_MAX_BONDS = 2 };
 
 static int corr_has_atom(const eng_mol *e, size_t k, int atom)
 {
@@ -31,26 +36,93 @@ static int site_takes(const eng_mol *e, const pred_worker *w, size_t k, size_t i
 	       w->corr_ok[k * w->m->n_sites + (size_t)s->row] && corr_has_atom(e, k, s->atom);
 }
 
+/* Bonds from site i's ionizable atom to atom a; -1 when not connected. */
+static int site_dist(const eng_mol *e, size_t i, int a)
+{
+	return e->dist[i * e->nat + (size_t)a];
+}
+
+/* The neighbour of atom b (not c) one bond nearer to site i, -1 none: the substituent on b
+ * that leads to the site. */
+static int toward_site(const eng_mol *e, size_t i, int b, int c)
+{
+	int n;
+	const int *nb = eng_nbrs(e, b, &n);
+	for (int k = 0; k < n; k++)
+		if (nb[k] != c && site_dist(e, i, nb[k]) == site_dist(e, i, b) - 1)
+			return nb[k];
+	return -1;
+}
+
+/* Site i on carbon b and site j on carbon c of the non-aromatic double bond b=c, each
+ * nearer its own end, and the two substituents that lead to them drawn cis. */
+static int cis_on_bond(const eng_mol *e, size_t i, size_t j, int b, int c)
+{
+	int db = site_dist(e, i, b), dc = site_dist(e, j, c);
+	if (db < 1 || db > ENE_MAX_BONDS || dc < 1 || dc > ENE_MAX_BONDS ||
+	    site_dist(e, i, c) != db + 1 || site_dist(e, j, b) != dc + 1)
+		return 0;
+	int x = toward_site(e, i, b, c), y = toward_site(e, j, c, b);
+	return x >= 0 && y >= 0 && obw_mol_bond_cis(e->mol, x, b, c, y);
+}
+
+/* Sites i and j sit cis on the two ends of a C=C (either way round). */
+static int cis_on_ene(const eng_mol *e, size_t i, size_t j)
+{
+	for (size_t k = 0; k < e->nbonds; k++) {
+		const obw_bond *bd = &e->bonds[k];
+		if (bd->order != 2 || bd->aromatic || e->atoms[bd->a].element != 6 ||
+		    e->atoms[bd->b].element != 6)
+			continue;
+		if (cis_on_bond(e, i, j, bd->a, bd->b) || cis_on_bond(e, i, j, bd->b, bd->a))
+			return 1;
+	}
+	return 0;
+}
+
+/* Pair row k holds for sites i and j. */
+static int row_pairs(const eng_mol *e, const pred_worker *w, size_t k, size_t i, size_t j)
+{
+	if (e->corr_start[k] == e->corr_start[k + 1] || !site_takes(e, w, k, i) ||
+	    !site_takes(e, w, k, j))
+		return 0;
+	return w->m->corrs[k].pair != CORR_PAIR_Z || cis_on_ene(e, i, j);
+}
+
+static int pair_near(const eng_mol *e, size_t i, size_t j)
+{
+	int d = site_dist(e, i, e->sites[j].atom);
+	return d > 0 && d <= PAIR_MAX_BONDS;
+}
+
 /* Parameter of the first pair row shared by sites i and j, or -1. */
 static int pair_param(const eng_mol *e, const pred_worker *w, size_t i, size_t j)
 {
-	int d = e->dist[i * e->nat + (size_t)e->sites[j].atom];
-	if (d <= 0 || d > PAIR_MAX_BONDS)
+	if (!pair_near(e, i, j))
 		return -1;
 	for (size_t p = 0; p < w->n_pair_corrs; p++) {
 		size_t k = (size_t)w->pair_corrs[p];
-		if (e->corr_start[k] < e->corr_start[k + 1] && site_takes(e, w, k, i) &&
-		    site_takes(e, w, k, j))
+		if (row_pairs(e, w, k, i, j))
 			return w->m->corrs[k].p_value;
 	}
 	return -1;
+}
+
+int eng_pair_row_holds(const eng_mol *e, const pred_worker *w, size_t k, size_t i)
+{
+	if (w->m->corrs[k].pair != CORR_PAIR_Z)
+		return 1;
+	for (size_t j = 0; j < e->n_sites; j++)
+		if (j != i && pair_near(e, i, j) && row_pairs(e, w, k, i, j))
+			return 1;
+	return 0;
 }
 
 size_t eng_pair_rows(int *out, const pred_model *m)
 {
 	size_t n = 0;
 	for (size_t k = 0; k < m->n_corrs; k++)
-		if (!strcmp(m->corrs[k].term, PAIR_TERM))
+		if (m->corrs[k].pair)
 			out[n++] = (int)k;
 	return n;
 }

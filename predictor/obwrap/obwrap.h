@@ -89,6 +89,13 @@ typedef struct obw_tetra {
 size_t obw_mol_tetra(const obw_mol *m, const obw_tetra **out);
 /** Number of double bonds with a specified cis/trans configuration. */
 size_t obw_mol_cistrans_count(const obw_mol *m);
+/** 1 when atom a (a neighbour of b) and atom d (a neighbour of c) lie cis about the double
+ *  bond b=c, as the input specified it (Open Babel's cis/trans stereo: '/' '\\' marks, or
+ *  coordinates of a mol block); 0 when they are trans, when the configuration is unknown
+ *  (an unmarked bond, also a ring double bond drawn without marks: cis by the ring, but the
+ *  input does not say so), when b=c is no double bond, or a or d is not bonded to it. Unknown is read as not cis: a caller must
+ *  never assume a geometry that the input did not give. Reads the molecule only. */
+int obw_mol_bond_cis(const obw_mol *m, int a, int b, int c, int d);
 /** Element symbol of atomic number z ("C", "Cl"; "" when unknown). Static storage. */
 const char *obw_element_symbol(int z);
 

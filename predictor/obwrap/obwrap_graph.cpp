@@ -13,6 +13,7 @@
 #include <openbabel/parsmart.h>
 #include <openbabel/ring.h>
 #include <openbabel/stereo/cistrans.h>
+#include <openbabel/stereo/stereo.h>
 #include <openbabel/stereo/tetrahedral.h>
 
 #include <algorithm>
@@ -275,6 +276,45 @@ extern "C" size_t obw_mol_tetra(const obw_mol *m, const obw_tetra **out)
 extern "C" size_t obw_mol_cistrans_count(const obw_mol *m)
 {
 	return m->n_cistrans;
+}
+
+/* Place of atom id among the four references of a cis/trans configuration, -1 none. */
+static int ref_place(const OBCisTransStereo::Config &cfg, unsigned long id)
+{
+	for (size_t k = 0; k < cfg.refs.size() && k < 4; k++)
+		if (cfg.refs[k] == id)
+			return (int)k;
+	return -1;
+}
+
+/* The facade is built without perception (perceive false): a SMILES or mol block reader
+ * has stored the configurations it read, and perceiving here would run the symmetry
+ * classes on every call, and from daemon threads. The places are read in the U shape
+ * (refs 0, 1 on the begin atom, 2, 3 on the end atom; 0-3 and 1-2 cis) rather than with
+ * OBCisTransStereo::IsCis, which answers "not cis" for the two heavy atoms of a double bond
+ * whose hydrogens were drawn explicit and then folded (their places hold ImplicitRef). */
+extern "C" int obw_mol_bond_cis(const obw_mol *m, int a, int b, int c, int d)
+{
+	try {
+		int n = (int)m->atoms.size();
+		if (a < 0 || b < 0 || c < 0 || d < 0 || a >= n || b >= n || c >= n || d >= n)
+			return 0;
+		OBMol &mol = const_cast<OBMol &>(m->mol);
+		OBBond *bond = mol.GetBond(b + 1, c + 1);
+		if (!bond || bond->GetBondOrder() != 2 || !mol.GetBond(a + 1, b + 1) ||
+		    !mol.GetBond(c + 1, d + 1))
+			return 0;
+		OBStereoFacade facade(&mol, false);
+		OBCisTransStereo *ct = facade.GetCisTransStereo(bond->GetId());
+		if (!ct)
+			return 0;
+		OBCisTransStereo::Config cfg = ct->GetConfig(OBStereo::ShapeU);
+		int x = ref_place(cfg, mol.GetAtom(a + 1)->GetId());
+		int y = ref_place(cfg, mol.GetAtom(d + 1)->GetId());
+		return cfg.specified && x >= 0 && y >= 0 && x + y == 3;
+	} catch (...) {
+		return 0;
+	}
 }
 
 extern "C" const char *obw_element_symbol(int z)

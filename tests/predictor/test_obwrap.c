@@ -298,6 +298,71 @@ static void test_obwrap__molblock_parse(void)
 	CHECK(m == NULL);
 }
 
+/* Cis or not of two substituents about the C=C of a butenedioic acid: maleic acid is the
+ * cis (Z) and fumaric acid the trans (E) isomer, citraconic acid the cis methylmaleic acid
+ * (common practice). Atoms of "OC(=O)C=CC(=O)O": carboxyl C 1 on alkene C 3, carboxyl C 5
+ * on alkene C 4; -1 when the SMILES does not parse. */
+static int butenedioic_cis(const char *smi, int a, int b, int c, int d)
+{
+	obw_mol *m = parse(smi);
+	int cis = m ? obw_mol_bond_cis(m, a, b, c, d) : -1;
+	obw_mol_free(m);
+	return cis;
+}
+
+/* Maleic acid drawn in 2D ("either" bond: the same with stereo field 3 on the C=C). */
+static const char *maleic_mol(int either)
+{
+	static char buf[2][1024];
+	snprintf(buf[either], sizeof buf[either],
+		 "maleic acid\n  handmade\n\n"
+		 "  8  7  0  0  0  0  0  0  0  0999 V2000\n"
+		 "   -1.7321    2.0000    0.0000 O   0  0  0  0  0  0  0  0  0  0  0  0\n"
+		 "   -2.5981    1.5000    0.0000 C   0  0  0  0  0  0  0  0  0  0  0  0\n"
+		 "   -3.4641    2.0000    0.0000 O   0  0  0  0  0  0  0  0  0  0  0  0\n"
+		 "   -2.5981    0.5000    0.0000 C   0  0  0  0  0  0  0  0  0  0  0  0\n"
+		 "   -1.7321    0.0000    0.0000 C   0  0  0  0  0  0  0  0  0  0  0  0\n"
+		 "   -0.8660    0.5000    0.0000 C   0  0  0  0  0  0  0  0  0  0  0  0\n"
+		 "   -0.8660    1.5000    0.0000 O   0  0  0  0  0  0  0  0  0  0  0  0\n"
+		 "    0.0000    0.0000    0.0000 O   0  0  0  0  0  0  0  0  0  0  0  0\n"
+		 "  1  2  1  0  0  0  0\n  2  3  2  0  0  0  0\n  2  4  1  0  0  0  0\n"
+		 "  4  5  2  %d  0  0  0\n  5  6  1  0  0  0  0\n  6  7  2  0  0  0  0\n"
+		 "  6  8  1  0  0  0  0\nM  END\n$$$$\n",
+		 either ? 3 : 0);
+	return buf[either];
+}
+
+static void test_obwrap__bond_cis_reads_the_drawn_configuration(void)
+{
+	CHECK_INT_EQ(butenedioic_cis("OC(=O)/C=C\\C(=O)O", 1, 3, 4, 5), 1); /* maleic */
+	CHECK_INT_EQ(butenedioic_cis("OC(=O)/C=C\\C(=O)O", 5, 4, 3, 1), 1); /* either way round */
+	CHECK_INT_EQ(butenedioic_cis("OC(=O)/C=C/C(=O)O", 1, 3, 4, 5), 0);  /* fumaric */
+	CHECK_INT_EQ(butenedioic_cis("OC(=O)C=CC(=O)O", 1, 3, 4, 5), 0);    /* not given */
+	CHECK_INT_EQ(butenedioic_cis("OC(=O)/C=C/C(=O)O", 1, 3, 4, 2), 0);  /* not bonded to c */
+	/* citraconic acid: the methyl (C 0 on C 1) is trans, the carboxyl C 2 cis to C 6 */
+	CHECK_INT_EQ(butenedioic_cis("C/C(C(=O)O)=C/C(=O)O", 2, 1, 5, 6), 1);
+	CHECK_INT_EQ(butenedioic_cis("C/C(C(=O)O)=C/C(=O)O", 0, 1, 5, 6), 0);
+	CHECK_INT_EQ(butenedioic_cis("OC(=O)/C=C\\C(=O)O", 0, 1, 3, 4), 0); /* single bond */
+	/* hydrogens drawn and folded: the H's cis, so the carboxyls (C 1 on C 0, C 5 on C 4) */
+	CHECK_INT_EQ(butenedioic_cis("[H]/C(C(=O)O)=C(\\[H])C(=O)O", 1, 0, 4, 5), 1);
+	CHECK_INT_EQ(butenedioic_cis("[H]/C(C(=O)O)=C(/[H])C(=O)O", 1, 0, 4, 5), 0);
+	/* an unmarked ring C=C carries no configuration: cis by the ring, but read as not given
+	 * (cyclohex-1-ene-1,2-dicarboxylic acid, carboxyl C 1 on C 3, C 9 on C 4); drawn with
+	 * marks it keeps them (carboxyl C 5 on C 4) */
+	CHECK_INT_EQ(butenedioic_cis("OC(=O)C1=C(CCCC1)C(=O)O", 1, 3, 4, 9), 0);
+	CHECK_INT_EQ(butenedioic_cis("OC(=O)/C1=C(\\C(=O)O)CCCC1", 1, 3, 4, 5), 1);
+	/* a mol block gives it by its coordinates; the "either" stereo field leaves it open */
+	for (int either = 0; either < 2; either++) {
+		obw_mol *m = NULL;
+		char msg[256] = "";
+		CHECK_INT_EQ(obw_mol_parse(&m, ctx, maleic_mol(either), OBW_MOLBLOCK, msg,
+					   sizeof msg), 0);
+		CHECK_INT_EQ(m ? obw_mol_bond_cis(m, 1, 3, 4, 5) : -1, either ? 0 : 1);
+		obw_mol_free(m);
+	}
+	CHECK_INT_EQ(butenedioic_cis("OC(=O)/C=C\\C(=O)O", 1, 3, 4, 99), 0); /* out of range */
+}
+
 static void test_obwrap__bad_smiles_rejected(void)
 {
 	static const char *bad[] = {"", "   ", "C1CC", "C(C", "CC)", "[Xx]", "c1cccc1", "Cl-",
@@ -371,6 +436,7 @@ int main(void)
 	RUN(test_obwrap__bond_order_edit_and_clone);
 	RUN(test_obwrap__components_and_keep_atoms);
 	RUN(test_obwrap__molblock_parse);
+	RUN(test_obwrap__bond_cis_reads_the_drawn_configuration);
 	RUN(test_obwrap__bad_smiles_rejected);
 	RUN(test_obwrap__nci_first_1000_parse);
 	obw_ctx_free(ctx);
