@@ -95,6 +95,8 @@ int eng_charge_routes(eng_mol *e, const pred_model *m);
 /* Interaction of the charges of sites i and j: W of their charge distance plus the further
  * routes of e->qroute; 0 for one atom or separate fragments. */
 double eng_pair_shift(const eng_mol *e, const pred_model *m, size_t i, size_t j);
+/* Share of that interaction the pair takes: the product of the sites' charge scales. */
+double eng_pair_scale(const eng_mol *e, const pred_model *m, size_t i, size_t j);
 
 /* Builds graph, claims and sites from a normalised molecule. */
 int eng_perceive(eng_mol *e, pred_worker *w, obw_mol *mol, pred_error *err);

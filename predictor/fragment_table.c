@@ -119,7 +119,7 @@ static int site_param(pred_model *m, const frag_site *s, const char *suffix, dou
 static int parse_site_row(pred_model *m, frag_site *s, const tsv_table *t, const tsv_row *r,
 			  const int *c, pred_error *err)
 {
-	double parent, rho, rho_star, centre, rho_para = 0;
+	double parent, rho, rho_star, centre, rho_para = 0, charge_scale = 1;
 	int rc;
 	if ((rc = copy_id(s->id, sizeof s->id, t, r, c[0], err)) ||
 	    (rc = copy_id(s->group, sizeof s->group, t, r, c[2], err)) ||
@@ -128,10 +128,15 @@ static int parse_site_row(pred_model *m, frag_site *s, const tsv_table *t, const
 	    (rc = tsv_number(&rho, t, r, c[6], 1, 0, err)) ||
 	    (rc = tsv_number(&rho_star, t, r, c[8], 1, 0, err)) ||
 	    (rc = tsv_number(&s->unc, t, r, c[9], 0, 0, err)) ||
-	    (c[11] >= 0 && (rc = tsv_number(&rho_para, t, r, c[11], 1, 0, err))))
+	    (c[11] >= 0 && (rc = tsv_number(&rho_para, t, r, c[11], 1, 0, err))) ||
+	    (c[12] >= 0 && (rc = tsv_number(&charge_scale, t, r, c[12], 1, 1, err))))
 		return rc;
 	if (rho_para != 0 && rho == 0)
 		return tsv_fail(err, PRED_EDATA, t, r->line, "rho_para without rho");
+	if (!(charge_scale > 0 && charge_scale <= 1))
+		return tsv_fail(err, PRED_EDATA, t, r->line, "charge_scale %g is not in (0, 1]",
+				charge_scale);
+	s->charge_scale = charge_scale;
 	const char *kind = r->fields[c[1]], *sig = r->fields[c[7]];
 	if (strcmp(kind, "acid") && strcmp(kind, "base"))
 		return tsv_fail(err, PRED_EDATA, t, r->line, "kind '%s' is not acid or base", kind);
@@ -171,17 +176,22 @@ static int parse_sites(pred_model *m, const tsv_table *t, pred_error *err)
 	static const char *const names[] = {"id", "kind", "group", "smarts", "centre", "parent",
 					    "rho", "sigma_para", "rho_star", "unc", "source",
 					    NULL};
-	int c[12];
+	int c[13];
 	if (columns(c, t, names, err))
 		return PRED_EDATA;
-	/* rho_para is optional: a table without the column gives every site one slope. */
-	c[11] = -1;
-	for (size_t j = 0; j < t->n_cols; j++)
+	/* rho_para and charge_scale are optional: without rho_para every site has one slope,
+	 * without charge_scale every site's charge counts in full. */
+	c[11] = c[12] = -1;
+	for (size_t j = 0; j < t->n_cols; j++) {
 		if (!strcmp(t->header[j], "rho_para"))
 			c[11] = (int)j;
-	if (t->n_cols != (c[11] >= 0 ? 12u : 11u))
-		return tsv_fail(err, PRED_EDATA, t, 0, "expected %d columns, got %zu",
-				c[11] >= 0 ? 12 : 11, t->n_cols);
+		if (!strcmp(t->header[j], "charge_scale"))
+			c[12] = (int)j;
+	}
+	size_t want = 11u + (c[11] >= 0) + (c[12] >= 0);
+	if (t->n_cols != want)
+		return tsv_fail(err, PRED_EDATA, t, 0, "expected %zu columns, got %zu", want,
+				t->n_cols);
 	m->sites = calloc(t->n_rows ? t->n_rows : 1, sizeof *m->sites);
 	if (!m->sites)
 		return PRED_ENOMEM;

@@ -29,6 +29,7 @@ typedef struct frag_site {
 	int p_parent, p_rho, p_rho_star, p_ortho; /* parameter indices */
 	int p_rho_para; /* slope of para substituents: its own parameter, or p_rho */
 	sigma_scale sigma_para;
+	double charge_scale; /* share of a unit charge the interaction counts at this site (1) */
 	double unc;
 	char *source;
 } frag_site;

@@ -294,15 +294,20 @@ static int out_of_time(double start, const pred_options *opt, pred_error *err)
 
 /* The microstate model's share of the monoanion hydrogen bonds (the pair term that
  * eng_stepwise gives the second site, -2 v, pair_hbond.c) and of the interaction through
- * further routes (charge_dist.c), as extra pair shifts. */
+ * further routes and the charge scales of the two sites (charge_dist.c), as extra pair
+ * shifts: the model adds W of the charge distance itself, so the extra is the stepwise
+ * pair shift less that W. */
 static double *pair_extra(const eng_mol *e, const pred_model *m)
 {
 	size_t n = e->n_sites;
 	double *x = calloc(n * n + 1, sizeof *x);
 	for (size_t k = 0; x && k < n * n; k++) {
+		size_t i = k / n, j = k % n;
+		int d = eng_charge_bonds(e->qdist, e->nat, i, e->sites[i].atom, j, e->sites[j].atom);
 		if (e->pair_param && e->pair_param[k] >= 0)
 			x[k] = -2.0 * m->params[e->pair_param[k]].value;
-		x[k] += e->qroute ? e->qroute[k] : 0;
+		if (i != j && d > 0)
+			x[k] += eng_pair_shift(e, m, i, j) - ionization_pair_shift(m, d);
 	}
 	return x;
 }

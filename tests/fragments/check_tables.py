@@ -29,7 +29,7 @@ SRC = os.environ.get("PKAD_SOURCE_DIR", os.path.join(os.path.dirname(__file__), 
 FRAG = os.path.join(SRC, "fragments")
 COLUMNS = {
     "sites.tsv": ["id", "kind", "group", "smarts", "centre", "parent", "rho", "rho_para",
-                  "sigma_para", "rho_star", "unc", "source"],
+                  "sigma_para", "rho_star", "unc", "charge_scale", "source"],
     "substituents.tsv": ["id", "smarts", "sigma_m", "sigma_p", "sigma_p_minus", "sigma_p_plus",
                          "sigma_star", "sigma_i", "transparent", "source"],
     "corrections.tsv": ["id", "term", "sites", "smarts", "value", "unc", "count", "source"],
@@ -147,6 +147,7 @@ def check_fields(tables, rep):
         for col in ("centre", "parent", "rho", "rho_star", "unc"):
             number(rep, "sites.tsv", r, col)
         number(rep, "sites.tsv", r, "rho_para", blank_ok=True)
+        number(rep, "sites.tsv", r, "charge_scale", blank_ok=True)
         if r["kind"] not in ("acid", "base"):
             rep.fail(f"fragments/sites.tsv:{r['line']}: kind '{r['kind']}'")
         if r["sigma_para"] not in ("sigma", "sigma_minus", "sigma_plus"):

@@ -317,36 +317,70 @@ static int copy_file(const char *from, const char *to)
 	return rc;
 }
 
-/* Loads the fixture's sites and substituents with this corrections.tsv text, from a scratch
+/* Loads the fixture's tables with the one named `name` replaced by this text, from a scratch
  * directory under the working directory (removed again). */
-static int load_with_corrections(pred_model **m, const char *corrections, pred_error *err)
+static int load_with_table(pred_model **m, const char *name, const char *text,
+			   pred_error *err)
 {
 	const char *src = getenv("PKAD_SOURCE_DIR");
-	static const char *const tables[] = {"sites.tsv", "substituents.tsv"};
-	char dir[] = "fixture-corrections-XXXXXX", from[1024], to[1024];
+	static const char *const tables[] = {"sites.tsv", "substituents.tsv", "corrections.tsv"};
+	char dir[] = "fixture-tables-XXXXXX", from[1024], to[1024];
 	*m = NULL;
 	if (!mkdtemp(dir))
 		return -1;
 	int rc = 0;
-	for (size_t i = 0; i < 2 && !rc; i++) {
+	for (size_t i = 0; i < 3 && !rc; i++) {
+		if (!strcmp(tables[i], name))
+			continue;
 		snprintf(from, sizeof from, "%s/tests/predictor/fixture/%s", src ? src : ".",
 			 tables[i]);
 		snprintf(to, sizeof to, "%s/%s", dir, tables[i]);
 		rc = copy_file(from, to);
 	}
-	snprintf(to, sizeof to, "%s/corrections.tsv", dir);
+	snprintf(to, sizeof to, "%s/%s", dir, name);
 	FILE *f = rc ? NULL : fopen(to, "wb");
 	if (f) {
-		fputs(corrections, f);
+		fputs(text, f);
 		fclose(f);
 		rc = pred_model_load(m, dir, err);
 	}
 	for (size_t i = 0; i < 3; i++) {
-		snprintf(to, sizeof to, "%s/%s", dir, i < 2 ? tables[i] : "corrections.tsv");
+		snprintf(to, sizeof to, "%s/%s", dir, tables[i]);
 		remove(to);
 	}
 	rmdir(dir);
 	return rc;
+}
+
+static int load_with_corrections(pred_model **m, const char *corrections, pred_error *err)
+{
+	return load_with_table(m, "corrections.tsv", corrections, err);
+}
+
+/* The optional charge_scale column of sites.tsv: a blank reads 1, a value outside (0, 1]
+ * fails the load (the interaction never grows past a unit charge's, nor changes sign). */
+static void test_model__charge_scale_column(void)
+{
+	static const char *const hdr =
+	    "id\tkind\tgroup\tsmarts\tcentre\tparent\trho\tsigma_para\trho_star\tunc\t"
+	    "charge_scale\tsource\n";
+	const char *values[] = {"", "0.8", "0", "1.5"};
+	for (int k = 0; k < 4; k++) {
+		char text[512];
+		snprintf(text, sizeof text,
+			 "%sthiol\tacid\tthiol\t[SX2H1][CX4]\t0\t10.6\t0\tsigma\t3.5\t0.5\t%s"
+			 "\tdemonstration row\n",
+			 hdr, values[k]);
+		pred_model *m = NULL;
+		pred_error err = {0};
+		int rc = load_with_table(&m, "sites.tsv", text, &err);
+		CHECK_INT_EQ(rc, k < 2 ? 0 : PRED_EDATA);
+		if (k < 2 && !rc)
+			CHECK_NEAR(m->sites[0].charge_scale, k == 0 ? 1.0 : 0.8, 1e-12);
+		else if (k >= 2)
+			CHECK(strstr(err.msg, "sites.tsv:2: charge_scale") != NULL);
+		pred_model_free(m);
+	}
 }
 
 /* A corrections.tsv row with count "match" adds its value once per match of its pattern at
@@ -406,6 +440,7 @@ int main(void)
 	RUN(test_model__ring_nitrogen_counts_as_aza);
 	RUN(test_model__para_substituents_take_rho_para_where_the_row_has_one);
 	RUN(test_model__per_match_correction_counts_its_matches);
+	RUN(test_model__charge_scale_column);
 	RUN(test_model__equivalent_sites_get_statistical_terms);
 	RUN(test_model__azinium_charge_is_shared_with_ortho_and_para_carbons);
 	RUN(test_model__hbond_pair_lowers_the_first_step_and_raises_the_second);
