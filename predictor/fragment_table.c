@@ -116,15 +116,33 @@ static int site_param(pred_model *m, const frag_site *s, const char *suffix, dou
 	return model_param_add(m, id, v, sd);
 }
 
+/* A parent written "=other_id" shares the parent parameter of an earlier row (a second
+ * drawing of the same molecule, e.g. the enol of a 1,3-diketone): *shared gets its index. */
+static int shared_parent(const pred_model *m, const tsv_table *t, const tsv_row *r, int col,
+			 int *shared, pred_error *err)
+{
+	const char *f = r->fields[col];
+	*shared = -1;
+	if (f[0] != '=')
+		return 0;
+	for (size_t j = 0; j < m->n_sites; j++)
+		if (!strcmp(m->sites[j].id, f + 1)) {
+			*shared = m->sites[j].p_parent;
+			return 0;
+		}
+	return tsv_fail(err, PRED_EDATA, t, r->line, "parent '%s' names no earlier site row", f);
+}
+
 static int parse_site_row(pred_model *m, frag_site *s, const tsv_table *t, const tsv_row *r,
 			  const int *c, pred_error *err)
 {
-	double parent, rho, rho_star, centre, rho_para = 0, charge_scale = 1;
-	int rc;
+	double parent = 0, rho, rho_star, centre, rho_para = 0, charge_scale = 1;
+	int rc, shared;
 	if ((rc = copy_id(s->id, sizeof s->id, t, r, c[0], err)) ||
 	    (rc = copy_id(s->group, sizeof s->group, t, r, c[2], err)) ||
 	    (rc = tsv_number(&centre, t, r, c[4], 0, 0, err)) ||
-	    (rc = tsv_number(&parent, t, r, c[5], 0, 0, err)) ||
+	    (rc = shared_parent(m, t, r, c[5], &shared, err)) ||
+	    (shared < 0 && (rc = tsv_number(&parent, t, r, c[5], 0, 0, err))) ||
 	    (rc = tsv_number(&rho, t, r, c[6], 1, 0, err)) ||
 	    (rc = tsv_number(&rho_star, t, r, c[8], 1, 0, err)) ||
 	    (rc = tsv_number(&s->unc, t, r, c[9], 0, 0, err)) ||
@@ -154,7 +172,7 @@ static int parse_site_row(pred_model *m, frag_site *s, const tsv_table *t, const
 	    (rc = dup_field(&s->source, t, r, c[10], err)) ||
 	    (rc = check_smarts(t, r, s->smarts, err)))
 		return rc;
-	s->p_parent = site_param(m, s, "parent", parent, 1.0);
+	s->p_parent = shared >= 0 ? shared : site_param(m, s, "parent", parent, 1.0);
 	s->p_rho = site_param(m, s, "rho", rho, rho != 0 ? 0.2 * (rho < 0 ? -rho : rho) : 0);
 	s->p_rho_star = site_param(m, s, "rho_star", rho_star,
 				   rho_star != 0 ? 0.3 * (rho_star < 0 ? -rho_star : rho_star) : 0);

@@ -143,9 +143,16 @@ def check_fields(tables, rep):
             seen[r["id"]] = r["line"]
             if not SOURCE_WORDS.search(r["source"]):
                 rep.fail(f"fragments/{name}:{r['line']}: source '{r['source']}' names no source")
+    earlier = set()
     for r in tables["sites.tsv"]:
-        for col in ("centre", "parent", "rho", "rho_star", "unc"):
+        for col in ("centre", "rho", "rho_star", "unc"):
             number(rep, "sites.tsv", r, col)
+        if r["parent"].startswith("="):
+            if r["parent"][1:] not in earlier:
+                rep.fail(f"fragments/sites.tsv:{r['line']}: parent '{r['parent']}' names no earlier row")
+        else:
+            number(rep, "sites.tsv", r, "parent")
+        earlier.add(r["id"])
         number(rep, "sites.tsv", r, "rho_para", blank_ok=True)
         number(rep, "sites.tsv", r, "charge_scale", blank_ok=True)
         if r["kind"] not in ("acid", "base"):

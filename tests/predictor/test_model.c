@@ -120,14 +120,16 @@ static double diamine_shift(const char *smiles)
 static void test_model__azinium_charge_is_shared_with_ortho_and_para_carbons(void)
 {
 	/* 4-(aminomethyl)pyridine: the ammonium N is 5 bonds from N1 but 2 from C4, which holds
-	 * a share of the pyridinium charge (common practice), counted one bond further: the
-	 * shift of two charges 3 bonds apart (ethane-1,2-diamine), not 5 (butane-1,4-diamine).
-	 * 4-(dimethylaminomethyl)pyridine, second step 3.39 (Perrin 1965, entry perrin1128,
-	 * train row of handbook-bases.csv), lies 2.6 below 4-methylpyridine (6.0, from memory). */
-	double w3 = diamine_shift("NCCN"), w5 = diamine_shift("NCCCCN");
-	CHECK(w3 < w5 - 0.5);
+	 * a share of the pyridinium charge (common practice), counted two bonds further (the para
+	 * carbon is the farthest from N1; charge_dist.c): the shift of two charges 4 bonds apart
+	 * (propane-1,3-diamine), not 5 (butane-1,4-diamine). The second steps of
+	 * 4-(dimethylaminomethyl)pyridine 3.39 and 4-(pyrrolidinylmethyl)pyridine 3.38 (Perrin
+	 * 1965 via IUPAC dataset, train rows) read 2.88 and 2.98 with the para carbon one bond
+	 * further, 3.76 and 3.87 with it two further. */
+	double w3 = diamine_shift("NCCN"), w4 = diamine_shift("NCCCN"), w5 = diamine_shift("NCCCCN");
+	CHECK(w4 < w5 - 0.2);
 	pred_result *r = predict("NCc1ccncc1");
-	CHECK_NEAR(site_term(r, "pyridine", "interaction"), w3, 0.01);
+	CHECK_NEAR(site_term(r, "pyridine", "interaction"), w4, 0.01);
 	/* the microstate model counts the same distance: its first macro pKa is the site's */
 	CHECK_INT_EQ(pred_result_macro_count(r), 2);
 	if (pred_result_macro_count(r) == 2)
