@@ -344,6 +344,23 @@ static void test_base_terms__propargylic_amines(void)
 	CHECK_INT_EQ((int)n, 0);
 }
 
+/* Amines with only sp3 carbons within four bonds sit above the Taft line of the substituted
+ * ones (corrections.tsv amine_alkyl_only): the fitted primary parent is the line's intercept,
+ * near the 10.15 of Perrin, Dempsey & Serjeant 1981 (from memory). Perrin 1965 via IUPAC
+ * dataset (handbook-bases.csv): methylamine 10.66, propylamine 10.69, cyclohexylamine 10.68,
+ * dimethylamine 10.73, 2-aminoethanol 9.50, 3-aminopropan-1-ol 9.96 (from memory). */
+static void test_base_terms__alkyl_only_amines_sit_above_the_taft_line(void)
+{
+	CHECK_NEAR(site_pka("CN", "primary_amine", PRED_BASE), 10.66, 0.3);
+	CHECK_NEAR(site_pka("CCCN", "primary_amine", PRED_BASE), 10.69, 0.3);
+	CHECK_NEAR(site_pka("NC1CCCCC1", "primary_amine", PRED_BASE), 10.68, 0.3);
+	CHECK_NEAR(site_pka("CNC", "secondary_amine", PRED_BASE), 10.73, 0.4);
+	CHECK_NEAR(site_pka("NCCO", "primary_amine", PRED_BASE), 9.50, 0.4);
+	CHECK_NEAR(site_pka("NCCCO", "primary_amine", PRED_BASE), 9.96, 0.4);
+	CHECK(corr_value("NCCCO", "primary_amine", "amine_alkyl_only") == 0);
+	CHECK(corr_value("NCCCCCO", "primary_amine", "amine_alkyl_only") > 0.1);
+}
+
 /* The piperazine ring term counts each six-ring joining the two N (corrections.tsv
  * amine_piperazine): DABCO's N see each other through three, a piperazine's through one.
  * DABCO 8.82 (Perrin 1965 via IUPAC dataset, train row of data/iupac-pka.csv); its second
@@ -665,6 +682,7 @@ int main(void)
 	RUN(test_base_terms__para_thioethers_donate_to_the_azinium);
 	RUN(test_base_terms__ring_alkyl_carbon_passes_on_its_groups);
 	RUN(test_base_terms__aryl_amine_n_pulls_like_an_amide_n);
+	RUN(test_base_terms__alkyl_only_amines_sit_above_the_taft_line);
 	probe_teardown(model, worker);
 	return harness_done();
 }
