@@ -15,7 +15,8 @@ static pred_worker *worker;
 
 /* Diazines and their amino derivatives, most basic site: 2-aminopyrimidine 3.54,
  * pyrimidine-2,4-diamine 7.23, pyrazine 0.65, aminopyrazine 2.93 (handbook-bases.csv: Perrin
- * 1965 via IUPAC dataset, train split); 4-aminopyrimidine 5.71 (Perrin 1965, from memory).
+ * 1965 via IUPAC dataset, train split); 4-aminopyrimidine 5.71 (Albert, Heterocyclic Chemistry,
+ * table of basic strengths of azines, from memory; handbook-additions.csv).
  * Tolerance 0.5, about the class error of the monocyclic pyrimidine rows. */
 static void test_azines__diazine_handbook_values(void)
 {
@@ -27,7 +28,7 @@ static void test_azines__diazine_handbook_values(void)
 }
 
 /* An amino group para to a pyrimidine N conjugates with it more than one between the two N
- * (4-aminopyrimidine 5.71 against 2-aminopyrimidine 3.54, as above): the para slope must keep
+ * (4-aminopyrimidine 5.71 against 2-aminopyrimidine 3.54, sources as above): the para slope must keep
  * the order. */
 static void test_azines__para_amino_beats_two_amino(void)
 {
