@@ -1,8 +1,8 @@
 /* SPDX-License-Identifier: MIT */
 /* test_sulfonamides.c: N-H acidity of N-aryl sulfonamides, with substituents on either side of
  * the S(=O)(=O)-N-H, against reference rows of data/handbook-acids.csv (Serjeant & Dempsey
- * 1979 via the IUPAC dataset, entry named; A. V. Willi 1956 for most). Tolerance 0.5, a little
- * under the class uncertainty. */
+ * 1979 via the IUPAC dataset, entry named; A. V. Willi 1956 for most; tolerance 0.5, a little
+ * under the class uncertainty), and sulfa drugs of data/handbook-additions.csv (from memory). */
 #include <math.h>
 
 #include "harness.h"
@@ -43,12 +43,31 @@ static void test_sulfonamides__n_aryl_ring_is_the_stronger_path(void)
 	CHECK(s_no2 - n_no2 > 0.6);
 }
 
+/* Sulfa drugs (N1-heteroaryl sulfanilamides), data/handbook-additions.csv rows from memory of
+ * the handbook sulfonamide tables: sulfadiazine 6.48 and sulfathiazole 7.12 (Bell & Roblin
+ * 1942), sulfamethoxazole 5.7 (drug monograph tables). A ring N of a five-membered heteroaryl
+ * on N takes up the charge (sulfonamide_n_azolyl); without the row sulfathiazole reads 9.0,
+ * about the N-phenyl value. Tolerance 0.6, the class uncertainty. */
+static void test_sulfonamides__sulfa_drugs(void)
+{
+	double phenyl = site_pka("Nc1ccc(cc1)S(=O)(=O)Nc1ccccc1", "sulfonamide", PRED_ACID);
+	double diazine = site_pka("Nc1ccc(cc1)S(=O)(=O)Nc1ncccn1", "sulfonamide", PRED_ACID);
+	double thiazole = site_pka("Nc1ccc(cc1)S(=O)(=O)Nc1nccs1", "sulfonamide", PRED_ACID);
+	double isoxazole = site_pka("Cc1cc(NS(=O)(=O)c2ccc(N)cc2)no1", "sulfonamide", PRED_ACID);
+	CHECK(!isnan(phenyl) && !isnan(diazine) && !isnan(thiazole) && !isnan(isoxazole));
+	CHECK_NEAR(diazine, 6.48, 0.6);
+	CHECK_NEAR(thiazole, 7.12, 0.6);
+	CHECK_NEAR(isoxazole, 5.7, 0.6);
+	CHECK(thiazole < phenyl - 1.0 && isoxazole < thiazole);
+}
+
 int main(void)
 {
 	if (probe_setup(&model, &worker))
 		return 1;
 	RUN(test_sulfonamides__s_aryl_substituents_count);
 	RUN(test_sulfonamides__n_aryl_ring_is_the_stronger_path);
+	RUN(test_sulfonamides__sulfa_drugs);
 	probe_teardown(model, worker);
 	return harness_done();
 }
