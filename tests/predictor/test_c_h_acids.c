@@ -71,12 +71,30 @@ static void test_c_h_acids__hydroxyquinones(void)
 	CHECK(trichloro < lawsone - 1.5);
 }
 
+/* A formyl group in place of one acyl of a 1,3-diketone: propanedial 4.46 (from memory),
+ * 2-oxocyclohexanecarbaldehyde 6.35 and 2-oxocyclopentanecarbaldehyde 5.83 (serjeant entries,
+ * iupac-pka.csv), all well below pentane-2,4-dione 8.9 (from memory) and 3-alkyl-pentane-
+ * 2,4-diones about 11 (from memory); these had no acid site before. */
+static void test_c_h_acids__keto_aldehydes(void)
+{
+	double dial = site_pka("O=CCC=O", "c_h_acid", PRED_ACID);
+	double six = site_pka("O=CC1CCCCC1=O", "c_h_acid", PRED_ACID);
+	double five = site_pka("O=CC1CCCC1=O", "c_h_acid", PRED_ACID);
+	double acac = site_pka("CC(=O)CC(C)=O", "c_h_acid", PRED_ACID);
+	CHECK(!isnan(dial) && !isnan(six) && !isnan(five) && !isnan(acac));
+	CHECK_NEAR(dial, 4.46, 1.0);
+	CHECK_NEAR(six, 6.35, 1.0);
+	CHECK_NEAR(five, 5.83, 1.0);
+	CHECK(six < acac - 1.5);
+}
+
 int main(void)
 {
 	if (probe_setup(&model, &worker))
 		return 1;
 	RUN(test_c_h_acids__nitromethanes_and_malononitrile);
 	RUN(test_c_h_acids__hydroxyquinones);
+	RUN(test_c_h_acids__keto_aldehydes);
 	probe_teardown(model, worker);
 	return harness_done();
 }
