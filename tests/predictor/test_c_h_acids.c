@@ -1,0 +1,100 @@
+/* SPDX-License-Identifier: MIT */
+/* test_c_h_acids.c: carbon acids and the vinylogous acids filed with them (2-hydroxy-1,4-
+ * quinones) against handbook values. Values of data/iupac-pka.csv and data/handbook-acids.csv
+ * are Serjeant & Dempsey 1979 via the IUPAC dataset (entry named); "from memory" marks a
+ * handbook value recalled, not read from a file here. */
+#include <math.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "harness.h"
+#include "predictor.h"
+#include "site_probe.h"
+
+static pred_model *model;
+static pred_worker *worker;
+
+/* Lowest pKa among the acid sites of group `group` (the first step); NAN when none. */
+static double lowest(const char *smiles, const char *group)
+{
+	pred_result *r = NULL;
+	pred_error err = {0};
+	double v = NAN;
+	if (pred_predict(&r, worker, smiles, PRED_FMT_SMILES, NULL, &err))
+		return v;
+	for (size_t i = 0; i < pred_result_site_count(r); i++) {
+		const pred_site *s = pred_result_site(r, i);
+		if (s->kind == PRED_ACID && !strcmp(s->group, group) && (isnan(v) || s->pka < v))
+			v = s->pka;
+	}
+	pred_result_free(r);
+	return v;
+}
+
+/* Nitromethane 10.24, dinitromethane 3.57, trinitromethane 0.06, propanedinitrile 11.2
+ * (Serjeant & Dempsey 1979 via IUPAC dataset; handbook-acids.csv). Each nitro group added to
+ * the carbon lowers the pKa by several units. */
+static void test_c_h_acids__nitromethanes_and_malononitrile(void)
+{
+	double one = site_pka("C[N+](=O)[O-]", "c_h_acid", PRED_ACID);
+	double two = site_pka("[O-][N+](=O)C[N+](=O)[O-]", "c_h_acid", PRED_ACID);
+	double three = site_pka("[O-][N+](=O)C([N+](=O)[O-])[N+](=O)[O-]", "c_h_acid", PRED_ACID);
+	double cn = site_pka("N#CCC#N", "c_h_acid", PRED_ACID);
+	CHECK(!isnan(one) && !isnan(two) && !isnan(three) && !isnan(cn));
+	CHECK_NEAR(one, 10.24, 0.5);
+	CHECK_NEAR(two, 3.57, 0.5);
+	CHECK_NEAR(three, 0.06, 0.5);
+	CHECK_NEAR(cn, 11.2, 0.6);
+	CHECK(one > two + 4.0 && two > three + 2.0);
+}
+
+/* A 2-hydroxy-1,4-quinone is a vinylogous carboxylic acid: 2-hydroxy-1,4-naphthoquinone about
+ * 4.0 (from memory); halogens on the ring lower it: 3,5,6-trichloro-2-hydroxy-1,4-
+ * benzoquinone 1.09 (serjeant entry, iupac-pka.csv), 2,5-difluoro-3,6-dihydroxy-1,4-
+ * benzoquinone 1.4 and 3.3 (iupac-pka.csv), chloranilic acid about 0.8 and 3.1 (from memory).
+ * The old enol row (parent of pentane-2,4-dione less a ring term) left all of them near 5. */
+static void test_c_h_acids__hydroxyquinones(void)
+{
+	double lawsone = site_pka("OC1=CC(=O)c2ccccc2C1=O", "c_h_acid", PRED_ACID);
+	double trichloro = site_pka("O=C1C(=C(Cl)C(=O)C(=C1Cl)Cl)O", "c_h_acid", PRED_ACID);
+	double fluoro1 = lowest("OC1=C(F)C(=O)C(=C(C1=O)F)O", "c_h_acid");
+	double fluoro2 = site_max("OC1=C(F)C(=O)C(=C(C1=O)F)O", "c_h_acid", PRED_ACID);
+	double chloranilic = lowest("OC1=C(Cl)C(=O)C(=C(C1=O)Cl)O", "c_h_acid");
+	CHECK(!isnan(lawsone) && !isnan(trichloro) && !isnan(fluoro1) && !isnan(chloranilic));
+	CHECK_NEAR(lawsone, 4.0, 1.0);
+	CHECK_NEAR(trichloro, 1.09, 1.0);
+	CHECK_NEAR(fluoro1, 1.4, 1.0);
+	CHECK_NEAR(fluoro2, 3.3, 1.0);
+	CHECK_NEAR(chloranilic, 0.8, 1.2);
+	CHECK(fluoro2 > fluoro1 + 1.0);
+	CHECK(trichloro < lawsone - 1.5);
+}
+
+/* A formyl group in place of one acyl of a 1,3-diketone: propanedial 4.46 (from memory),
+ * 2-oxocyclohexanecarbaldehyde 6.35 and 2-oxocyclopentanecarbaldehyde 5.83 (serjeant entries,
+ * iupac-pka.csv), all well below pentane-2,4-dione 8.9 (from memory) and 3-alkyl-pentane-
+ * 2,4-diones about 11 (from memory); these had no acid site before. */
+static void test_c_h_acids__keto_aldehydes(void)
+{
+	double dial = site_pka("O=CCC=O", "c_h_acid", PRED_ACID);
+	double six = site_pka("O=CC1CCCCC1=O", "c_h_acid", PRED_ACID);
+	double five = site_pka("O=CC1CCCC1=O", "c_h_acid", PRED_ACID);
+	double acac = site_pka("CC(=O)CC(C)=O", "c_h_acid", PRED_ACID);
+	CHECK(!isnan(dial) && !isnan(six) && !isnan(five) && !isnan(acac));
+	CHECK_NEAR(dial, 4.46, 1.0);
+	CHECK_NEAR(six, 6.35, 1.0);
+	CHECK_NEAR(five, 5.83, 1.0);
+	CHECK(six < acac - 1.5);
+}
+
+int main(void)
+{
+	if (probe_setup(&model, &worker))
+		return 1;
+	RUN(test_c_h_acids__nitromethanes_and_malononitrile);
+	RUN(test_c_h_acids__hydroxyquinones);
+	RUN(test_c_h_acids__keto_aldehydes);
+	probe_teardown(model, worker);
+	return harness_done();
+}
