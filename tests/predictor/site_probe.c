@@ -105,7 +105,8 @@ int site_term_count(const char *smiles, const char *group, pred_kind kind,
 
 /* Highest pKa among the sites of this group and kind (the last step of a polyprotic group);
  * NAN when the molecule has none. */
-double site_max(const char *smiles, const char *group, pred_kind kind)
+/* Highest (sign 1) or lowest (sign -1) pKa among the sites of this group and kind. */
+static double site_extreme(const char *smiles, const char *group, pred_kind kind, int sign)
 {
 	pred_result *r = NULL;
 	pred_error err = {0};
@@ -114,11 +115,22 @@ double site_max(const char *smiles, const char *group, pred_kind kind)
 		return v;
 	for (size_t i = 0; i < pred_result_site_count(r); i++) {
 		const pred_site *s = pred_result_site(r, i);
-		if (s->kind == kind && !strcmp(s->group, group) && (isnan(v) || s->pka > v))
+		if (s->kind == kind && !strcmp(s->group, group) &&
+		    (isnan(v) || sign * (s->pka - v) > 0))
 			v = s->pka;
 	}
 	pred_result_free(r);
 	return v;
+}
+
+double site_max(const char *smiles, const char *group, pred_kind kind)
+{
+	return site_extreme(smiles, group, kind, 1);
+}
+
+double site_min(const char *smiles, const char *group, pred_kind kind)
+{
+	return site_extreme(smiles, group, kind, -1);
 }
 
 /* Interaction term of the site that ionises with another's charge present (the lower step

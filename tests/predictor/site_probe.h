@@ -31,6 +31,9 @@ int site_term_count(const char *smiles, const char *group, pred_kind kind,
  * NAN when the molecule has none. */
 double site_max(const char *smiles, const char *group, pred_kind kind);
 
+/* Lowest pKa among the sites of this group and kind (the first step); NAN when none. */
+double site_min(const char *smiles, const char *group, pred_kind kind);
+
 /* Interaction term of the site that ionises with another's charge present (the lower step
  * of a diamine), 0 when none; and the lowest site pKa (NAN: no site). */
 void diamine_steps(const char *smiles, double *inter, double *low);
