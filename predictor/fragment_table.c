@@ -151,8 +151,8 @@ static int parse_site_row(pred_model *m, frag_site *s, const tsv_table *t, const
 		return rc;
 	if (rho_para != 0 && rho == 0)
 		return tsv_fail(err, PRED_EDATA, t, r->line, "rho_para without rho");
-	if (!(charge_scale > 0 && charge_scale <= 1))
-		return tsv_fail(err, PRED_EDATA, t, r->line, "charge_scale %g is not in (0, 1]",
+	if (!(charge_scale >= 0 && charge_scale <= 1))
+		return tsv_fail(err, PRED_EDATA, t, r->line, "charge_scale %g is not in [0, 1]",
 				charge_scale);
 	s->charge_scale = charge_scale;
 	const char *kind = r->fields[c[1]], *sig = r->fields[c[7]];

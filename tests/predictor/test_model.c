@@ -359,15 +359,17 @@ static int load_with_corrections(pred_model **m, const char *corrections, pred_e
 	return load_with_table(m, "corrections.tsv", corrections, err);
 }
 
-/* The optional charge_scale column of sites.tsv: a blank reads 1, a value outside (0, 1]
- * fails the load (the interaction never grows past a unit charge's, nor changes sign). */
+/* The optional charge_scale column of sites.tsv: a blank reads 1, a value outside [0, 1]
+ * fails the load (the interaction never grows past a unit charge's, nor changes sign); 0 is
+ * a class whose charge the substituent constants already hold (sulfonic acids). */
 static void test_model__charge_scale_column(void)
 {
 	static const char *const hdr =
 	    "id\tkind\tgroup\tsmarts\tcentre\tparent\trho\tsigma_para\trho_star\tunc\t"
 	    "charge_scale\tsource\n";
-	const char *values[] = {"", "0.8", "0", "1.5"};
-	for (int k = 0; k < 4; k++) {
+	const char *values[] = {"", "0.8", "0", "-0.1", "1.5"};
+	const double read[] = {1.0, 0.8, 0.0};
+	for (int k = 0; k < 5; k++) {
 		char text[512];
 		snprintf(text, sizeof text,
 			 "%sthiol\tacid\tthiol\t[SX2H1][CX4]\t0\t10.6\t0\tsigma\t3.5\t0.5\t%s"
@@ -376,10 +378,10 @@ static void test_model__charge_scale_column(void)
 		pred_model *m = NULL;
 		pred_error err = {0};
 		int rc = load_with_table(&m, "sites.tsv", text, &err);
-		CHECK_INT_EQ(rc, k < 2 ? 0 : PRED_EDATA);
-		if (k < 2 && !rc)
-			CHECK_NEAR(m->sites[0].charge_scale, k == 0 ? 1.0 : 0.8, 1e-12);
-		else if (k >= 2)
+		CHECK_INT_EQ(rc, k < 3 ? 0 : PRED_EDATA);
+		if (k < 3 && !rc)
+			CHECK_NEAR(m->sites[0].charge_scale, read[k], 1e-12);
+		else if (k >= 3)
 			CHECK(strstr(err.msg, "sites.tsv:2: charge_scale") != NULL);
 		pred_model_free(m);
 	}

@@ -139,10 +139,10 @@ static void test_oh_acids__gem_disubstituted_succinic_monoanion_is_hydrogen_bond
 }
 
 /* The Hammett constants of SO3- already hold the field of its charge, so a phenol does not
- * take the stepwise interaction with it as well (phenol_sulfonate_*_bonds): across the ring
+ * take the stepwise interaction with it as well (sulfonic_acid charge_scale 0): across the ring
  * fusion a sulfonate acidifies a naphthol, 5-hydroxynaphthalene-1-sulfonic acid 9.11 against
  * 1-naphthol 9.39 (Serjeant & Dempsey 1979 via IUPAC dataset, entries serjeant5104 and
- * serjeant4956 of data/iupac-pka.csv); 9.72 without the rows. Tolerance 1.5 x the phenol
+ * serjeant4956 of data/iupac-pka.csv); 9.72 with the interaction. Tolerance 1.5 x the phenol
  * class uncertainty (0.3). */
 static void test_oh_acids__sulfonate_charge_is_counted_once(void)
 {
