@@ -3,7 +3,8 @@
  * A fully substituted carbon on the short sp3 link between two carboxyl groups holds them
  * close (corrections.tsv, acid_crowded_link, term steric, beside the hbond_pair rows); a
  * carbon group or a carbonyl on the far end of a conjugated C=C (acid_ene_beta_carbon,
- * acid_conjugated_acceptor); a sulfonate anion on the chain (acid_alkyl_sulfonate). */
+ * acid_conjugated_acceptor); the malonic monoanion (diacid_malonic); a sulfonate anion on
+ * the chain (acid_alkyl_sulfonate). */
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -102,6 +103,20 @@ static void test_crowded_diacids__half_ester_and_malonic_acids(void)
 	CHECK_INT_EQ(wf, 0);
 }
 
+/* Malonic acid 2.847 / 5.696 (Serjeant & Dempsey 1979, entry 2137, row of
+ * data/handbook-acids.csv): the monoanion closes a six-membered H-bonded ring (diacid_malonic),
+ * so its steps lie 2.85 apart, where the charge interaction alone gave 2.3 (3.08 / 5.37). */
+static void test_crowded_diacids__malonic_monoanion(void)
+{
+	double m[2];
+	int wm;
+	CHECK_INT_EQ(acid_steps("OC(=O)CC(=O)O", "hbond", m, &wm), 2);
+	CHECK_INT_EQ(wm, 1);
+	CHECK(m[1] - m[0] > 2.4); /* measured 2.85 */
+	CHECK_NEAR(m[0], 2.847, 0.5);
+	CHECK_NEAR(m[1], 5.696, 0.5);
+}
+
 /* Conjugated acids: but-2-enoic acid 4.72 (E; Serjeant & Dempsey 1979 via IUPAC dataset,
  * entry serjeant2310b) above prop-2-enoic acid 4.25 (aqion table, row of
  * data/handbook-acids.csv): the methyl donates through the C=C; fumaric acid 3.095 / 4.602
@@ -153,6 +168,7 @@ int main(void)
 	}
 	RUN(test_crowded_diacids__quaternary_link_raises_the_second_step);
 	RUN(test_crowded_diacids__half_ester_and_malonic_acids);
+	RUN(test_crowded_diacids__malonic_monoanion);
 	RUN(test_crowded_diacids__far_end_of_a_conjugated_ene);
 	RUN(test_crowded_diacids__sulfonate_anion_on_the_chain);
 	pred_worker_free(worker);
