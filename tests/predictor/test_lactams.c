@@ -74,6 +74,35 @@ static void test_lactams__amidine_amino_raises_the_nh(void)
 	CHECK(site_term_count("Nc1nccc(=O)[nH]1", "lactam", PRED_ACID, "aza") <= 0);
 }
 
+/* Monocyclic azinones and the pyridones (lactam_ring_nh_azinone): 2-pyridone 11.70
+ * (perrin_supp5164) and 11.99 (perrin1159), mean 11.85; 2-quinolone 11.76 (perrin2005);
+ * 5-chloro- 9.87 (perrin_supp5089), 5-bromo- 10.03 (perrin_supp5075), 3-nitro-2-pyridone 8.52
+ * (perrin_supp5161); a second ring N meta to the N-H, 2-pyrimidinone 9.20 (perrin1741), para,
+ * 2-pyrazinone 8.25 (perrin1504); the thiones lie below the oxo rings: 2-mercaptopyridine 10.00
+ * (perrin1176), pyrimidine-2-thione 7.10 (perrin1751). */
+static void test_lactams__azinone_family(void)
+{
+	double pyridone = site_pka("O=c1cccc[nH]1", "lactam", PRED_ACID);
+	double quinolone = site_pka("O=c1ccc2ccccc2[nH]1", "lactam", PRED_ACID);
+	double pyrimidinone = site_pka("O=c1nccc[nH]1", "lactam", PRED_ACID);
+	double pyrazinone = site_pka("O=c1cncc[nH]1", "lactam", PRED_ACID);
+	double thione = site_pka("S=c1cccc[nH]1", "lactam", PRED_ACID);
+	double pyrimidinethione = site_pka("S=c1nccc[nH]1", "lactam", PRED_ACID);
+	CHECK(!isnan(pyridone) && !isnan(quinolone) && !isnan(thione) && !isnan(pyrimidinethione));
+	CHECK_NEAR(pyridone, 11.85, 0.5);
+	CHECK_NEAR(quinolone, 11.76, 0.5);
+	CHECK_NEAR(site_pka("Clc1ccc(=O)[nH]c1", "lactam", PRED_ACID), 9.87, 0.5);
+	CHECK_NEAR(site_pka("Brc1ccc(=O)[nH]c1", "lactam", PRED_ACID), 10.03, 0.5);
+	CHECK_NEAR(site_pka("[O-][N+](=O)c1ccc[nH]c1=O", "lactam", PRED_ACID), 8.52, 0.5);
+	CHECK(!isnan(pyrimidinone) && !isnan(pyrazinone));
+	CHECK_NEAR(pyrimidinone, 9.20, 0.8);
+	CHECK_NEAR(pyrazinone, 8.25, 1.0);
+	CHECK(pyridone > pyrimidinone + 1.5 && pyrimidinone > pyrazinone);
+	CHECK_NEAR(thione, 10.00, 0.6);
+	CHECK_NEAR(pyrimidinethione, 7.10, 0.7);
+	CHECK(thione < pyridone - 0.8 && pyrimidinethione < pyrimidinone - 0.8);
+}
+
 int main(void)
 {
 	if (probe_setup(&model, &worker))
@@ -81,6 +110,7 @@ int main(void)
 	RUN(test_lactams__uracil_and_thymine);
 	RUN(test_lactams__two_and_four_pyridone);
 	RUN(test_lactams__amidine_amino_raises_the_nh);
+	RUN(test_lactams__azinone_family);
 	probe_teardown(model, worker);
 	return harness_done();
 }
