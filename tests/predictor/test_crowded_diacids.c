@@ -12,6 +12,7 @@
 
 #include "harness.h"
 #include "predictor.h"
+#include "site_probe.h"
 
 static pred_worker *worker;
 
@@ -156,22 +157,14 @@ static void test_crowded_diacids__sulfonate_anion_on_the_chain(void)
 
 int main(void)
 {
-	const char *src = getenv("PKAD_SOURCE_DIR");
-	char dir[1024];
-	snprintf(dir, sizeof dir, "%s/fragments", src ? src : ".");
 	pred_model *model = NULL;
-	pred_error err = {0};
-	if (pred_global_init(&err) || pred_model_load(&model, dir, &err) ||
-	    pred_worker_new(&worker, model, &err)) {
-		fprintf(stderr, "setup: %s\n", err.msg);
+	if (probe_setup(&model, &worker))
 		return 1;
-	}
 	RUN(test_crowded_diacids__quaternary_link_raises_the_second_step);
 	RUN(test_crowded_diacids__half_ester_and_malonic_acids);
 	RUN(test_crowded_diacids__malonic_monoanion);
 	RUN(test_crowded_diacids__far_end_of_a_conjugated_ene);
 	RUN(test_crowded_diacids__sulfonate_anion_on_the_chain);
-	pred_worker_free(worker);
-	pred_model_free(model);
+	probe_teardown(model, worker);
 	return harness_done();
 }
