@@ -97,6 +97,92 @@ static void charge_row(eng_mol *e, const pred_model *m, size_t i, int *tmp, int 
 	}
 }
 
+/* An exocyclic =O or =S on ring atom c (the C=O of a ring amide). */
+static int has_ring_oxo(const eng_mol *e, int c)
+{
+	int n;
+	const int *nb = eng_nbrs(e, c, &n);
+	for (int k = 0; k < n; k++) {
+		const obw_atom *o = &e->atoms[nb[k]];
+		if ((o->element == 8 || o->element == 16) && o->degree == 1 && o->hcount == 0 &&
+		    o->charge == 0 && !o->in_ring)
+			return 1;
+	}
+	return 0;
+}
+
+/* A ring =N- (two-connected, no H, uncharged) of an aromatic six-ring. */
+static int is_ring_imine_n(const obw_atom *a)
+{
+	return a->element == 7 && a->aromatic && a->degree == 2 && a->hcount == 0 &&
+	       a->charge == 0;
+}
+
+/* Where the anion of a ring N-H acid site matched as the N alone (4-pyridone type) sits when
+ * its six-ring holds a ring =N- meta to it and beside the C=O para to it (N1-H, N3, C4=O of
+ * a pyrimidin-4(1H)-one): the anion is that of the 3H tautomer, an amide anion on N3 and O4,
+ * so its charge is counted from N3. Pteridine-4,7-diones drawn 1H,8H (4,7-dihydroxy-
+ * pteridine 6.08 / 9.62, 6-formyl- 5.93 / 9.31, Serjeant & Dempsey 1979 via IUPAC dataset,
+ * train rows) took the interaction of N1, two bonds from N8, and read the second step 2.3-2.7
+ * too high. Of two such N the lower canonical rank; -1 for other sites. */
+static int tautomer_charge_atom(const eng_mol *e, const pred_model *m, const eng_site *s)
+{
+	const obw_atom *a = &e->atoms[s->atom];
+	if (m->sites[s->row].kind != PRED_ACID || s->n_match != 1 || a->element != 7 ||
+	    !a->aromatic || a->hcount == 0)
+		return -1;
+	const obw_rings *R = &e->rings;
+	int best = -1;
+	for (size_t k = 0; k < R->n_rings; k++) {
+		if (R->sizes[k] != 6)
+			continue;
+		const int *ra = R->atoms + R->offsets[k];
+		int i0 = -1;
+		for (int j = 0; j < 6; j++)
+			if (ra[j] == s->atom)
+				i0 = j;
+		if (i0 < 0 || !has_ring_oxo(e, ra[(i0 + 3) % 6]) ||
+		    e->atoms[ra[(i0 + 3) % 6]].element != 6)
+			continue;
+		for (int d = 2; d <= 4; d += 2) {
+			int x = ra[(i0 + d) % 6];
+			if (is_ring_imine_n(&e->atoms[x]) &&
+			    (best < 0 || (e->rank && e->rank[x] < e->rank[best])))
+				best = x;
+		}
+	}
+	return best;
+}
+
+/* Moves the charge of such sites to their tautomer's N for the interaction with the other
+ * acid sites: both rows of each pair count the bonds between the two charges. Base partners
+ * keep the N-H distance (an azinium beside the anion is the neutral tautomer itself). */
+static void tautomer_charges(eng_mol *e, const pred_model *m, int *tmp, int *queue)
+{
+	size_t n = e->n_sites, nat = e->nat;
+	int *at = malloc((n + 1) * sizeof *at), any = 0;
+	if (!at)
+		return;
+	for (size_t i = 0; i < n; i++) {
+		int x = tautomer_charge_atom(e, m, &e->sites[i]);
+		any |= x >= 0;
+		at[i] = x >= 0 ? x : e->sites[i].atom;
+	}
+	for (size_t i = 0; any && i < n; i++) {
+		if (at[i] == e->sites[i].atom)
+			continue;
+		eng_bfs(e, at[i], tmp, queue);
+		for (size_t j = 0; j < n; j++) {
+			if (j == i || m->sites[e->sites[j].row].kind != PRED_ACID)
+				continue;
+			int d = tmp[at[j]];
+			e->qdist[i * nat + (size_t)e->sites[j].atom] = d;
+			e->qdist[j * nat + (size_t)e->sites[i].atom] = d;
+		}
+	}
+	free(at);
+}
+
 int eng_charge_distances(eng_mol *e, const pred_model *m)
 {
 	e->qdist = malloc((e->n_sites * e->nat + 1) * sizeof *e->qdist);
@@ -105,6 +191,8 @@ int eng_charge_distances(eng_mol *e, const pred_model *m)
 	int rc = e->qdist && tmp && queue ? 0 : PRED_ENOMEM;
 	for (size_t i = 0; !rc && i < e->n_sites; i++)
 		charge_row(e, m, i, tmp, queue);
+	if (!rc)
+		tautomer_charges(e, m, tmp, queue);
 	free(tmp);
 	free(queue);
 	return rc;
