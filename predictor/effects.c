@@ -578,35 +578,14 @@ static int fused_own_row(const eng_mol *e, int x, int a)
 	return n_atom->charge == 0;
 }
 
-/* Ring q is an azine ring: its hetero atoms are all pyridine-type N (no H, no charge) and no
- * ring atom carries an exocyclic double bond (a pteridine's pyrazine ring, not that of a
- * pteridinone). */
-static int azine_ring(const eng_mol *e, size_t q)
-{
-	const obw_rings *R = &e->rings;
-	for (int j = 0; j < 6; j++) {
-		int b = R->atoms[R->offsets[q] + j];
-		const obw_atom *x = &e->atoms[b];
-		if (x->element != 6 && (x->element != 7 || x->hcount || x->charge || x->degree != 2))
-			return 0;
-		for (int t = e->adj_start[b]; t < e->adj_start[b + 1]; t++)
-			if (e->bonds[e->adj_bond[t]].order >= 2 && ring_index_of(R, q, e->adj[t]) < 0)
-				return 0;
-	}
-	return 1;
-}
-
 /* Substituents on a benzo ring (aromatic, all carbon) fused to the Hammett ring of a
  * quinoline-, isoquinoline-, quinoxaline-, cinnoline- or phthalazine-type ring N (and both
  * outer rings of an acridine or phenazine): they reach the N through the ring fusion as
  * global.fused_transmission x rho x sigma, with sigma_p (the row's para scale) where the
  * cation's charge reaches their carbon (odd bond distance from the N: quinoline 5-, 7-;
  * isoquinoline 6-, 8-) and sigma_m elsewhere; not at the peri carbon of a ring N. The
- * quinazolines (pyrimidine group) are left out: their covalent hydration has its own rows;
- * a pyrimidine-group N takes the groups of a fused azine ring instead (pteridine 6- and 7-,
- * pyrido[2,3-d]pyrimidine groups: 2-amino-7-methylpteridine 4.03 and the 6,7-dimethyl rows
- * read 0.2-1.1 low without them, 2-amino-7-chloro- 0.9 high; Perrin via IUPAC dataset, train
- * rows). Marks what it counted. */
+ * quinazolines (pyrimidine group) are left out: their covalent hydration has its own rows.
+ * Marks what it counted. */
 static void fused_ring_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 			       const eng_site *s, size_t k, unsigned char *seen)
 {
@@ -615,10 +594,8 @@ static void fused_ring_effects(term_list *tl, const eng_mol *e, const pred_model
 	if (m->p_fused_transmission < 0 || row->kind != PRED_BASE || c->element != 7 ||
 	    !c->aromatic || ring_index_of(&e->rings, k, s->centre) < 0 ||
 	    (strcmp(row->group, "quinoline") != 0 && strcmp(row->group, "isoquinoline") != 0 &&
-	     strcmp(row->group, "pyrazine") != 0 && strcmp(row->group, "pyridazine") != 0 &&
-	     strcmp(row->group, "pyrimidine") != 0))
+	     strcmp(row->group, "pyrazine") != 0 && strcmp(row->group, "pyridazine") != 0))
 		return;
-	int aza_fused = strcmp(row->group, "pyrimidine") == 0;
 	const obw_rings *R = &e->rings;
 	double rho = m->params[row->p_rho].value;
 	for (size_t q = 0; q < R->n_rings; q++) {
@@ -630,7 +607,7 @@ static void fused_ring_effects(term_list *tl, const eng_mol *e, const pred_model
 			shared += ring_index_of(R, k, b) >= 0;
 			hetero += e->atoms[b].element != 6;
 		}
-		if (shared != 2 || (aza_fused ? !hetero || !azine_ring(e, q) : hetero != 0))
+		if (shared != 2 || hetero)
 			continue;
 		for (int j = 0; j < 6; j++) {
 			int a = R->atoms[R->offsets[q] + j], n;
