@@ -10,8 +10,10 @@
 #include "canon_rank.h"
 
 /* The kinds of shift: a lactim or iminol to its lactam or amide (the H goes to an N beside
- * C-OH), a 4-hydroxy-azine to its azinone (the N para to C-OH), an enol to its ketone. */
-typedef enum { SHIFT_NONE = 0, SHIFT_IMINOL, SHIFT_AZINE, SHIFT_ENOL } shift_kind;
+ * C-OH), a 4-hydroxy-azine to its azinone (the N para to C-OH), an enol to its ketone, the
+ * ring N-H of a 4(1H)-azinone to the free ring N beside its C=O (4(1H)- to 4(3H)-
+ * pyrimidinone). */
+typedef enum { SHIFT_NONE = 0, SHIFT_IMINOL, SHIFT_AZINE, SHIFT_ENOL, SHIFT_AZINONE_NH } shift_kind;
 
 enum { PATH_MAX_ATOMS = 15 };
 
@@ -94,12 +96,14 @@ static int any_nbr(const graph *g, int x, int k)
 	return g->start[x] + k < g->start[x + 1] ? other(g, g->adj[g->start[x] + k], x) : -1;
 }
 
-/* Whether all n atoms lie in one ring of the SSSR. */
-static int in_one_ring(const graph *g, const int *atoms, int n)
+/* Whether all n atoms lie in one ring of the SSSR (of size ring_size; 0: any size). */
+static int in_ring_of(const graph *g, const int *atoms, int n, int ring_size)
 {
 	for (size_t r = 0; r < g->rings.n_rings; r++) {
 		const int *ra = g->rings.atoms + g->rings.offsets[r];
 		int found = 0;
+		if (ring_size && g->rings.sizes[r] != ring_size)
+			continue;
 		for (int i = 0; i < n; i++)
 			for (int j = 0; j < g->rings.sizes[r]; j++)
 				found += ra[j] == atoms[i];
@@ -107,6 +111,11 @@ static int in_one_ring(const graph *g, const int *atoms, int n)
 			return 1;
 	}
 	return 0;
+}
+
+static int in_one_ring(const graph *g, const int *atoms, int n)
+{
+	return in_ring_of(g, atoms, n, 0);
 }
 
 static int neutral(const graph *g, int x, int element)
@@ -203,9 +212,10 @@ static int sextets_kept(const graph *g, const shift *s)
 	return count;
 }
 
-/* Preference of a shift, lower first: a thiol before a hydroxyl (thioamide tautomers are the
- * more favoured, common practice), then the lactam whose N-H is beside the C=O (2-pyridone
- * type; 4(3H)-pyrimidinones, hypoxanthine N1-H, guanine N1-H) before the vinylogous
+/* Preference of a shift, lower first (an azinone N-H shift after all others): a thiol
+ * before a hydroxyl (thioamide tautomers are the more favoured, common practice), then the
+ * lactam whose N-H is beside the C=O (2-pyridone type; 4(3H)-pyrimidinones, hypoxanthine
+ * N1-H, guanine N1-H) before the vinylogous
  * azinone (4-pyridone type), before an enol's ketone; then the form that keeps more
  * benzenoid rings (sextets_kept); among ring N beside C-OH, the one not beside a ring
  * carbon bearing an amino group (cytosine is the 1H amino-oxo tautomer, the amidine N
@@ -215,6 +225,8 @@ static int sextets_kept(const graph *g, const shift *s)
 static int shift_key(const graph *g, const shift *s)
 {
 	int o = s->path[0], c1 = s->path[1], n = s->path[s->len - 1];
+	if (s->kind == SHIFT_AZINONE_NH)
+		return 2000;
 	int cls = s->kind == SHIFT_IMINOL ? 0 : s->kind == SHIFT_AZINE ? 1 : 2;
 	int ring = g->a[c1].aromatic, amino = s->kind == SHIFT_IMINOL && ring &&
 						 beside_amino_carbon(g, n, c1);
@@ -371,6 +383,58 @@ static void donor_shifts(const graph *g, const obw_mol *m, int o, int c1, int **
 	}
 }
 
+/* Whether carbon c carries an exocyclic C=O or C=S. */
+static int oxo_carbon(const graph *g, int c)
+{
+	if (!neutral(g, c, 6))
+		return 0;
+	for (int k = 0, y; (y = nbr(g, c, 2, k)) >= 0; k++)
+		if ((neutral(g, y, 8) || neutral(g, y, 16)) && g->a[y].degree == 1)
+			return 1;
+	return 0;
+}
+
+/* The shift of the H of aromatic ring N-H n1 of a 4(1H)-pyrimidinone (n1 para to the C=O
+ * or C=S carbon c4 in one six-ring) over n1-C2=N3 to the free ring N3 beside c4: the lactam
+ * whose N-H is beside the C=O is the main tautomer in water, as shift_key prefers it for
+ * drawn hydroxy-azines (4(3H)-pyrimidinone, quinazolin-4(3H)-one, hypoxanthine N1-H; common
+ * practice), so that every drawing of one molecule is one input. Only where both ring
+ * neighbours of n1 are carbons with no C=O, C=S, OH or SH of their own: the 1,2,4-triazin-
+ * 5(2H)-ones (N-H beside N) are named in their drawn form by the compilations, and a 6-
+ * mercapto group beside the N-H has a tautomer question of its own. After every O/S shift
+ * (shift_key). */
+static void azinone_nh_shifts(const graph *g, const obw_mol *m, int n1, int **rank, int *rc,
+			      shift *best)
+{
+	const obw_atom *x = &g->a[n1];
+	if (!neutral(g, n1, 7) || !x->aromatic || x->hcount != 1 || x->degree != 2)
+		return;
+	for (int i = 0, c; (c = any_nbr(g, n1, i)) >= 0; i++) {
+		if (!neutral(g, c, 6) || oxo_carbon(g, c))
+			return;
+		for (int k = 0, y; (y = nbr(g, c, 1, k)) >= 0; k++)
+			if (y != n1 && donor_carbon(g, y) == c)
+				return;
+	}
+	for (int i = 0, c2; (c2 = nbr(g, n1, 1, i)) >= 0; i++) {
+		if (!neutral(g, c2, 6) || !g->a[c2].aromatic)
+			continue;
+		for (int j = 0, n3; (n3 = nbr(g, c2, 2, j)) >= 0; j++) {
+			if (!neutral(g, n3, 7) || !g->a[n3].aromatic || g->a[n3].hcount ||
+			    g->a[n3].degree != 2)
+				continue;
+			for (int k = 0, c4; (c4 = nbr(g, n3, 1, k)) >= 0; k++) {
+				int ring[4] = {n1, c2, n3, c4};
+				if (c4 == c2 || !oxo_carbon(g, c4) || !in_ring_of(g, ring, 4, 6))
+					continue;
+				shift s = {SHIFT_AZINONE_NH, {n1, c2, n3}, 3, 0};
+				s.key = shift_key(g, &s);
+				offer(g, m, rank, rc, &s, best);
+			}
+		}
+	}
+}
+
 /* The preferred shift over all donors (shift_key, then canonical ranks). 1 when there is
  * one, 0 when none, a PRED_E* code (negative) on failure. */
 static int find_shift(const graph *g, const obw_mol *m, int **rank, shift *best)
@@ -381,6 +445,8 @@ static int find_shift(const graph *g, const obw_mol *m, int **rank, shift *best)
 		int c1 = donor_carbon(g, (int)o);
 		if (c1 >= 0)
 			donor_shifts(g, m, (int)o, c1, rank, &rc, best);
+		else
+			azinone_nh_shifts(g, m, (int)o, rank, &rc, best);
 	}
 	return rc ? rc : best->kind != SHIFT_NONE;
 }
@@ -413,6 +479,8 @@ static const char *shift_name(const graph *g, const shift *s)
 		return sulfur ? "mercapto-azine to azinethione" : "hydroxy-azine to azinone";
 	case SHIFT_ENOL:
 		return "enol to ketone";
+	case SHIFT_AZINONE_NH:
+		return "4(1H)-azinone to the N-H beside the C=O";
 	default:
 		return "none";
 	}

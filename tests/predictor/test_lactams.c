@@ -157,6 +157,33 @@ static void test_lactams__pyrimidinone_anion_on_n3(void)
 	CHECK_NEAR(site_min(dione, "lactam", PRED_ACID), 6.08, 0.8);
 	CHECK_NEAR(site_max(dione, "lactam", PRED_ACID), 9.62, 0.6);
 	CHECK(inter > 1.0 && inter < 2.5);
+/* A 4(1H)-pyrimidinone drawing is read as the 4(3H) tautomer (the N-H beside the C=O, the
+ * major form in water; common practice), so both drawings give one molecule: 6-methylthio-
+ * pyrimidin-4-one N-H 8.52 (serjeant2778, drawn 1H, and perrin_supp6358, drawn as the
+ * 4-hydroxy form; Serjeant and Perrin via IUPAC dataset), 5,6,7,8-tetrahydroquinazolin-4-one
+ * N-H 9.64 and ring N 2.69 (serjeant4311, drawn 1H); 4(3H)-pyrimidinone N-H 8.6 and ring N
+ * 1.85 (from memory, Albert's tables). */
+static void test_lactams__pyrimidin4one_drawings(void)
+{
+	double sme1 = site_pka("CSc1cc(=O)nc[nH]1", "lactam", PRED_ACID);
+	double sme3 = site_pka("CSc1cc(=O)[nH]cn1", "lactam", PRED_ACID);
+	double thq1 = site_pka("O=c1nc[nH]c2c1CCCC2", "lactam", PRED_ACID);
+	double thq3 = site_pka("O=c1[nH]cnc2CCCCc12", "lactam", PRED_ACID);
+	double thq_n1 = site_pka("O=c1nc[nH]c2c1CCCC2", "pyrimidine", PRED_BASE);
+	double thq_n3 = site_pka("O=c1[nH]cnc2CCCCc12", "pyrimidine", PRED_BASE);
+	double p1 = site_pka("O=c1cc[nH]cn1", "lactam", PRED_ACID);
+	double p3 = site_pka("O=c1ccnc[nH]1", "lactam", PRED_ACID);
+	double pn = site_pka("O=c1cc[nH]cn1", "pyrimidine", PRED_BASE);
+	CHECK(!isnan(sme1) && !isnan(thq1) && !isnan(thq_n1) && !isnan(p1) && !isnan(pn));
+	CHECK_NEAR(sme1, sme3, 0.01);
+	CHECK_NEAR(thq1, thq3, 0.01);
+	CHECK_NEAR(thq_n1, thq_n3, 0.01);
+	CHECK_NEAR(p1, p3, 0.01);
+	CHECK_NEAR(sme1, 8.52, 0.6);
+	CHECK_NEAR(thq1, 9.64, 1.3);
+	CHECK_NEAR(thq_n1, 2.69, 0.6);
+	CHECK_NEAR(p1, 8.6, 0.6);
+	CHECK_NEAR(pn, 1.85, 0.6);
 }
 
 int main(void)
@@ -171,6 +198,7 @@ int main(void)
 	RUN(test_lactams__alkoxy_beside_the_nh);
 	RUN(test_lactams__nitrouracil_n1_first);
 	RUN(test_lactams__pyrimidinone_anion_on_n3);
+	RUN(test_lactams__pyrimidin4one_drawings);
 	probe_teardown(model, worker);
 	return harness_done();
 }

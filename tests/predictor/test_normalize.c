@@ -205,6 +205,20 @@ static const norm_case tautomer_cases[] = {
 	{"OC1=CN=NC=C1", "O=c1cc[nH]nc1", "hydroxy-azine to azinone",
 	 "pyridazin-4(1H)-one as C3=C4"},
 	{"Oc1ncnc2c1cccc2", "O=c1[nH]cnc2ccccc12", "lactim to lactam", "quinazolin-4(3H)-one"},
+	/* a drawn 4(1H)-pyrimidinone goes to the 4(3H) form too (the same preference for the
+	 * N-H beside the C=O), in monocyclic and fused rings; the N-H stays where it is beside
+	 * another N (1,2,4-triazin-5(2H)-ones) or beside C-SH */
+	{"O=c1cc[nH]cn1", "O=c1ccnc[nH]1", "4(1H)-azinone to the N-H beside the C=O",
+	 "4(3H)-pyrimidinone from the 1H form"},
+	{"CSc1cc(=O)nc[nH]1", "CSc1cc(=O)[nH]cn1", "4(1H)-azinone", "6-methylthio-4(3H)-one"},
+	{"S=c1cc[nH]cn1", "S=c1ccnc[nH]1", "4(1H)-azinone", "pyrimidine-4(3H)-thione"},
+	{"O=c1nc[nH]c2ccccc12", "O=c1[nH]cnc2ccccc12", "4(1H)-azinone",
+	 "quinazolin-4(3H)-one from the 1H form"},
+	{"O=c1nc[nH]c2nc[nH]c12", "O=c1[nH]cnc2nc[nH]c12", "4(1H)-azinone",
+	 "hypoxanthine N3-H to N1-H"},
+	{"O=c1cn[nH]c(n1)N", "Nc1nc(=O)cn[nH]1", NULL, "3-amino-1,2,4-triazin-5(2H)-one stays"},
+	{"O=c1cc(S)[nH]cn1", "O=c1cc(S)[nH]cn1", NULL, "6-mercapto-4(1H)-one stays"},
+	{"Cn1cnc(=O)cc1", "Cn1ccc(=O)nc1", NULL, "1-methyl-4(1H)-pyrimidinone stays"},
 	/* of two N beside C-OH the one whose N-H keeps the benzo ring benzenoid (the more
 	 * aromatic form, common practice): quinazolin-2(1H)-one, not the o-quinonoid 3H-one */
 	{"Oc1ncc2c(n1)cccc2", "O=c1ncc2ccccc2[nH]1", "lactim to lactam", "quinazolin-2(1H)-one"},
