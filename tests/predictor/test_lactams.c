@@ -157,6 +157,8 @@ static void test_lactams__pyrimidinone_anion_on_n3(void)
 	CHECK_NEAR(site_min(dione, "lactam", PRED_ACID), 6.08, 0.8);
 	CHECK_NEAR(site_max(dione, "lactam", PRED_ACID), 9.62, 0.6);
 	CHECK(inter > 1.0 && inter < 2.5);
+}
+
 /* A 4(1H)-pyrimidinone drawing is read as the 4(3H) tautomer (the N-H beside the C=O, the
  * major form in water; common practice), so both drawings give one molecule: 6-methylthio-
  * pyrimidin-4-one N-H 8.52 (serjeant2778, drawn 1H, and perrin_supp6358, drawn as the
