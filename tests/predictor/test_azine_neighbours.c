@@ -1,7 +1,8 @@
 /* SPDX-License-Identifier: MIT */
-/* test_azine_neighbours.c: anilines twisted by an ortho acceptor, picolylamines and
- * halogenated 8-hydroxyquinolines (aniline_nn_ortho_acceptor, amine_azinylmethyl and
- * quinolinol_8_halogen of fragments/corrections.tsv) against reference rows. */
+/* test_azine_neighbours.c: anilines twisted by an ortho acceptor, picolylamines, halogenated
+ * 8-hydroxyquinolines and flanked 4-alkylaminopyridines (aniline_nn_ortho_acceptor,
+ * amine_azinylmethyl, quinolinol_8_halogen and pyridine_para_nr_flanked of
+ * fragments/corrections.tsv) against reference rows. */
 #include <math.h>
 
 #include "harness.h"
@@ -63,6 +64,24 @@ static void test_azine_neighbours__halogenated_8_hydroxyquinolines(void)
 	CHECK(corr_value("Oc1cccc2c1nccc2", "quinoline", "quinolinol_8_halogen") == 0);
 }
 
+/* 2,3,5,6-tetramethyl-4-methylaminopyridine 10.07 (Perrin 1965 via IUPAC dataset, perrin1259
+ * of data/iupac-pka.csv): the methylamino group between two methyls turns out of the ring;
+ * 4-amino-2,3,5,6-tetramethylpyridine 10.57 (same source) keeps its NH2 resonance and takes
+ * no term, nor does 4-methylaminopyridine (one side free). Tolerance 0.5. */
+static void test_azine_neighbours__flanked_para_alkylamino(void)
+{
+	const char *nhme = "CNc1c(C)c(C)nc(c1C)C";
+	const char *nh2 = "Cc1nc(C)c(c(c1C)N)C";
+	double v = site_pka(nhme, "pyridine", PRED_BASE);
+	double w = site_pka(nh2, "pyridine", PRED_BASE);
+	CHECK(!isnan(v) && !isnan(w));
+	CHECK_NEAR(v, 10.07, 0.5);
+	CHECK_NEAR(w, 10.57, 0.5);
+	CHECK(corr_value(nhme, "pyridine", "pyridine_para_nr_flanked") < 0);
+	CHECK(corr_value(nh2, "pyridine", "pyridine_para_nr_flanked") == 0);
+	CHECK(corr_value("CNc1ccncc1", "pyridine", "pyridine_para_nr_flanked") == 0);
+}
+
 int main(void)
 {
 	if (probe_setup(&model, &worker))
@@ -70,6 +89,7 @@ int main(void)
 	RUN(test_azine_neighbours__ortho_acceptor_twisted_nme2);
 	RUN(test_azine_neighbours__picolylamines);
 	RUN(test_azine_neighbours__halogenated_8_hydroxyquinolines);
+	RUN(test_azine_neighbours__flanked_para_alkylamino);
 	probe_teardown(model, worker);
 	return harness_done();
 }
