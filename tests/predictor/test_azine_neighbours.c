@@ -1,8 +1,8 @@
 /* SPDX-License-Identifier: MIT */
 /* test_azine_neighbours.c: anilines twisted by an ortho acceptor, picolylamines, halogenated
  * 8-hydroxyquinolines and flanked 4-alkylaminopyridines (aniline_nn_ortho_acceptor,
- * amine_azinylmethyl, quinolinol_8_halogen and pyridine_para_nr_flanked of
- * fragments/corrections.tsv) against reference rows. */
+ * aniline_nn_ortho_carboxyl_hbond, amine_azinylmethyl, quinolinol_8_halogen and
+ * pyridine_para_nr_flanked of fragments/corrections.tsv) against reference rows. */
 #include <math.h>
 
 #include "harness.h"
@@ -24,6 +24,19 @@ static void test_azine_neighbours__ortho_acceptor_twisted_nme2(void)
 	CHECK(corr_value(ortho, "aniline", "aniline_nn_ortho_acceptor") > 0.5);
 	CHECK(corr_value("CCOC(=O)c1ccc(cc1)N(C)C", "aniline", "aniline_nn_ortho_acceptor") == 0);
 	CHECK(corr_value("CN(C)c1ccccc1C", "aniline", "aniline_nn_ortho_acceptor") == 0);
+	CHECK(corr_value(ortho, "aniline", "aniline_nn_ortho_carboxyl_hbond") == 0);
+}
+
+/* N,N-dimethylanthranilic acid 8.51 (Serjeant & Dempsey 1979 via IUPAC dataset, serjeant4778
+ * of data/iupac-pka.csv): the ammonium step of the zwitterion, its N-H+ hydrogen-bonded to the
+ * carboxylate, takes both ortho rows. Tolerance 0.8 (about the class uncertainty of the
+ * aminocarboxylates). */
+static void test_azine_neighbours__twisted_anthranilate(void)
+{
+	const char *acid = "OC(=O)c1ccccc1N(C)C";
+	CHECK(corr_value(acid, "aniline", "aniline_nn_ortho_acceptor") > 0.5);
+	CHECK(corr_value(acid, "aniline", "aniline_nn_ortho_carboxyl_hbond") > 0.5);
+	CHECK_NEAR(last_macro(acid), 8.51, 0.8);
 }
 
 /* N,N-diethyl-2-, 3- and 4-picolylamine 8.74, 8.55, 8.18 and bis(3-pyridylmethyl)amine 7.15
@@ -87,6 +100,7 @@ int main(void)
 	if (probe_setup(&model, &worker))
 		return 1;
 	RUN(test_azine_neighbours__ortho_acceptor_twisted_nme2);
+	RUN(test_azine_neighbours__twisted_anthranilate);
 	RUN(test_azine_neighbours__picolylamines);
 	RUN(test_azine_neighbours__halogenated_8_hydroxyquinolines);
 	RUN(test_azine_neighbours__flanked_para_alkylamino);
