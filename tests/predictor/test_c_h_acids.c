@@ -104,6 +104,9 @@ static void test_c_h_acids__acyl_branching(void)
 	CHECK(site_term_count("CC(=O)CC(=O)C(C)(C)C", "c_h_acid", PRED_ACID, "steric") == 1);
 	CHECK(site_term_count("CC(=O)CC(=O)C", "c_h_acid", PRED_ACID, "steric") == 0);
 	CHECK(site_term_count("O=C1CC(C)(C)CC(=O)C1", "c_h_acid", PRED_ACID, "steric") == 0);
+	/* the drawn enol, either way round, is the same molecule */
+	CHECK_NEAR(site_pka("CC(O)=CC(=O)C(C)(C)C", "c_h_acid", PRED_ACID), tbu, 0.05);
+	CHECK_NEAR(site_pka("CC(C)(C)C(O)=CC(=O)C", "c_h_acid", PRED_ACID), tbu, 0.05);
 }
 
 /* An aryl on the carbon of a malononitrile takes the carbanion's charge into the ring
