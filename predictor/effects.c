@@ -83,15 +83,28 @@ static int ring_is_aromatic6(const eng_mol *e, size_t k)
 	return 1;
 }
 
+/* An aromatic seven-ring: the Hammett ring of a tropolone (ring_position). */
+static int ring_is_aromatic7(const eng_mol *e, size_t k)
+{
+	if (e->rings.sizes[k] != 7)
+		return 0;
+	for (int j = 0; j < 7; j++)
+		if (!e->atoms[e->rings.atoms[e->rings.offsets[k] + j]].aromatic)
+			return 0;
+	return 1;
+}
+
 enum { RING_CHOICES = 8 };
 
-/* The candidate Hammett rings of a site: the aromatic six-rings holding the centre, else
- * those holding a neighbour of it (ring k[i] with ipso atom ipso[i]). Returns the count. */
+/* The candidate Hammett rings of a site: the aromatic six- (and seven-) rings holding the
+ * centre, else those holding a neighbour of it (ring k[i] with ipso atom ipso[i]). Returns
+ * the count. */
 static int hammett_rings(const eng_mol *e, const eng_site *s, int *k, int *ipso)
 {
 	int found = 0;
 	for (size_t r = 0; r < e->rings.n_rings && found < RING_CHOICES; r++)
-		if (ring_is_aromatic6(e, r) && ring_index_of(&e->rings, r, s->centre) >= 0) {
+		if ((ring_is_aromatic6(e, r) || ring_is_aromatic7(e, r)) &&
+		    ring_index_of(&e->rings, r, s->centre) >= 0) {
 			k[found] = (int)r;
 			ipso[found++] = s->centre;
 		}
@@ -101,7 +114,8 @@ static int hammett_rings(const eng_mol *e, const eng_site *s, int *k, int *ipso)
 	const int *nb = eng_nbrs(e, s->centre, &n);
 	for (int j = 0; j < n; j++)
 		for (size_t r = 0; r < e->rings.n_rings && found < RING_CHOICES; r++)
-			if (ring_is_aromatic6(e, r) && ring_index_of(&e->rings, r, nb[j]) >= 0) {
+			if ((ring_is_aromatic6(e, r) || ring_is_aromatic7(e, r)) &&
+			    ring_index_of(&e->rings, r, nb[j]) >= 0) {
 				k[found] = (int)r;
 				ipso[found++] = nb[j];
 			}
@@ -469,6 +483,25 @@ static int own_para_oxo(const eng_mol *e, const pred_model *m, const eng_site *s
 	       o->degree == 1 && o->hcount == 0 && o->charge == 0 && !o->in_ring;
 }
 
+/* Hammett position (2 ortho, 3 meta, 4 para) of ring index j of ring k: bonds from the ipso
+ * (index i0) + 1. On a seven-ring (tropolone) the bonds count from the nearest ring atom of
+ * the match: the anion spreads its charge over both C-O carbons and is symmetric, so C3 and
+ * C7 are ortho, C4 and C6 meta, C5, which the charge reaches from either O, para. */
+static int ring_position(const eng_mol *e, const eng_site *s, size_t k, int i0, int j)
+{
+	const obw_rings *R = &e->rings;
+	int n = R->sizes[k], best = n;
+	for (int i = 0; i < n; i++) {
+		if (i != i0 && (n == 6 || !in_match(s, R->atoms[R->offsets[k] + i])))
+			continue;
+		int d = abs(j - i);
+		d = d < n - d ? d : n - d;
+		if (d < best)
+			best = d;
+	}
+	return best + 1;
+}
+
 /* Substituents of the Hammett ring k (ipso at ring index i0). Marks what it counted. */
 static void ring_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 			 const eng_site *s, size_t k, int ipso, unsigned char *seen, int *queue,
@@ -476,13 +509,13 @@ static void ring_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 {
 	const frag_site *row = &m->sites[s->row];
 	const obw_rings *R = &e->rings;
-	int i0 = ring_index_of(R, k, ipso), aza = m->subst_aza;
-	for (int j = 0; j < 6; j++)
+	int i0 = ring_index_of(R, k, ipso), aza = m->subst_aza, size = R->sizes[k];
+	for (int j = 0; j < size; j++)
 		seen[R->atoms[R->offsets[k] + j]] = 1;
-	for (int j = 0; j < 6; j++) {
-		int a = R->atoms[R->offsets[k] + j], d = abs(j - i0);
-		int pos = (d < 6 - d ? d : 6 - d) + 1;
-		if (a == ipso)
+	for (int j = 0; j < size; j++) {
+		int a = R->atoms[R->offsets[k] + j];
+		int pos = ring_position(e, s, k, i0, j);
+		if (a == ipso || (size == 7 && in_match(s, a)))
 			continue;
 		if (e->atoms[a].element != 6 && !in_match(s, a) && aza >= 0) {
 			sigmas g = {m->substs[aza].sigma_m, m->substs[aza].sigma_p,

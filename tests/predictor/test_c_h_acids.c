@@ -84,6 +84,67 @@ static void test_c_h_acids__acyl_cycloalkanones(void)
 	CHECK(five < six - 1.5);
 }
 
+/* Alkyl branching on the alpha carbon of an open-chain acyl group raises a 1,3-diketone
+ * (corr.diketone_acyl_branching, once per carbon on that alpha carbon): pentane-2,4-dione 8.95
+ * (serjeant entry, iupac-pka.csv), heptane-3,5-dione 9.69 (serjeant3463), 5,5-dimethylhexane-
+ * 2,4-dione 10.01 (serjeant4079), the sec-butyl tert-butyl diketone 11.77 (serjeant5383); all
+ * read 9.2 before the row. A ring CH2 beside the C=O (dimedone) has its own ring row. */
+static void test_c_h_acids__acyl_branching(void)
+{
+	double acac = site_pka("CC(=O)CC(=O)C", "c_h_acid", PRED_ACID);
+	double ethyl = site_pka("CCC(=O)CC(=O)CC", "c_h_acid", PRED_ACID);
+	double tbu = site_pka("CC(=O)CC(=O)C(C)(C)C", "c_h_acid", PRED_ACID);
+	double both = site_pka("CCC(C)C(=O)CC(=O)C(C)(C)C", "c_h_acid", PRED_ACID);
+	CHECK(!isnan(acac) && !isnan(ethyl) && !isnan(tbu) && !isnan(both));
+	CHECK_NEAR(acac, 8.95, 0.5);
+	CHECK_NEAR(ethyl, 9.69, 0.6);
+	CHECK_NEAR(tbu, 10.01, 0.6);
+	CHECK_NEAR(both, 11.77, 1.2);
+	CHECK(acac < ethyl && ethyl < tbu && tbu < both);
+	CHECK(site_term_count("CC(=O)CC(=O)C(C)(C)C", "c_h_acid", PRED_ACID, "steric") == 1);
+	CHECK(site_term_count("CC(=O)CC(=O)C", "c_h_acid", PRED_ACID, "steric") == 0);
+	CHECK(site_term_count("O=C1CC(C)(C)CC(=O)C1", "c_h_acid", PRED_ACID, "steric") == 0);
+	/* the drawn enol, either way round, is the same molecule */
+	CHECK_NEAR(site_pka("CC(O)=CC(=O)C(C)(C)C", "c_h_acid", PRED_ACID), tbu, 0.05);
+	CHECK_NEAR(site_pka("CC(C)(C)C(O)=CC(=O)C", "c_h_acid", PRED_ACID), tbu, 0.05);
+}
+
+/* An aryl on the carbon of a malononitrile takes the carbanion's charge into the ring
+ * (corr.dinitrile_aryl) and makes its ring the Hammett ring of the site: 2-(4-dicyanomethyl-
+ * phenyl)ethene-1,1,2-tricarbonitrile 0.75 (serjeant5924; the tricyanovinyl group sigma_p
+ * 0.98, HLT1991, from memory) read 11.2, the value of malononitrile itself (serjeant entry,
+ * iupac-pka.csv), before the row. Phenylmalononitrile 4.2 in DMSO against 11.1 for
+ * malononitrile (Bordwell, from memory): far below malononitrile in water too. */
+static void test_c_h_acids__aryl_malononitriles(void)
+{
+	double plain = site_pka("N#CCC#N", "c_h_acid", PRED_ACID);
+	double phenyl = site_pka("N#CC(C#N)c1ccccc1", "c_h_acid", PRED_ACID);
+	double tcv = site_pka("N#CC(=C(c1ccc(cc1)C(C#N)C#N)C#N)C#N", "c_h_acid", PRED_ACID);
+	CHECK(!isnan(plain) && !isnan(phenyl) && !isnan(tcv));
+	CHECK_NEAR(tcv, 0.75, 2.0);
+	CHECK(phenyl < plain - 3.0 && tcv < phenyl - 2.0);
+	CHECK(site_term_count("N#CC(C#N)c1ccccc1", "c_h_acid", PRED_ACID, "resonance") == 1);
+	CHECK(site_term_count("N#CCC#N", "c_h_acid", PRED_ACID, "resonance") == 0);
+	CHECK(site_term_count("N#CC(=C(c1ccc(cc1)C(C#N)C#N)C#N)C#N", "c_h_acid", PRED_ACID,
+			      "hammett") == 1);
+}
+
+/* A branched carbon on the carbon of a 1,1-dinitroalkane crowds the two nitro groups of the
+ * planar anion (corr.dinitroalkane_alpha_branch): 2-methyl-1,1-dinitropropane 6.77 against
+ * 1,1-dinitropropane 5.65 (Serjeant & Dempsey 1979 via IUPAC dataset, train rows); the
+ * isopropyl compound read 5.0 before the row, a CH2 chain keeps none. */
+static void test_c_h_acids__branched_dinitroalkanes(void)
+{
+	double branched = site_pka("CC(C([N+](=O)[O-])[N+](=O)[O-])C", "c_h_acid", PRED_ACID);
+	const char *propane = "CCC([N+](=O)[O-])[N+](=O)[O-]";
+	double chain = site_pka(propane, "c_h_acid", PRED_ACID);
+	CHECK(!isnan(branched) && !isnan(chain));
+	CHECK_NEAR(branched, 6.77, 0.6);
+	CHECK_NEAR(chain, 5.65, 0.8);
+	CHECK(branched > chain + 1.0);
+	CHECK(site_term_count(propane, "c_h_acid", PRED_ACID, "steric") == 0);
+}
+
 int main(void)
 {
 	if (probe_setup(&model, &worker))
@@ -92,6 +153,9 @@ int main(void)
 	RUN(test_c_h_acids__hydroxyquinones);
 	RUN(test_c_h_acids__keto_aldehydes);
 	RUN(test_c_h_acids__acyl_cycloalkanones);
+	RUN(test_c_h_acids__acyl_branching);
+	RUN(test_c_h_acids__aryl_malononitriles);
+	RUN(test_c_h_acids__branched_dinitroalkanes);
 	probe_teardown(model, worker);
 	return harness_done();
 }

@@ -2,9 +2,9 @@
 /* test_phenols_pyridines.c: phenols, pyridines and the oxygen bases and hydroxamic acids beside
  * them against reference rows: azinyl rings beside a pyridine N, quinolinium olate betaines,
  * N-aryl hydroxamic acids, peri diols, twisted salicylates, pyridine aldehydes, para-alkenyl
- * phenols and phenols H-bonded to an imine N. Values of data/iupac-pka.csv are Serjeant &
- * Dempsey 1979 or Perrin 1965 via the IUPAC dataset (entry named); handbook rows name their
- * file. */
+ * phenols, phenols H-bonded to an imine N and the seven-ring of tropolones. Values of
+ * data/iupac-pka.csv are Serjeant & Dempsey 1979 or Perrin 1965 via the IUPAC dataset (entry
+ * named); handbook rows name their file. */
 #include <math.h>
 #include <stdio.h>
 
@@ -194,6 +194,28 @@ static void test_phenols_pyridines__ortho_imine_n(void)
 	CHECK(site_term_count("ON=Cc1ccccc1O", "phenol", PRED_ACID, "hbond") == 0);
 }
 
+/* A tropolone's seven-ring is its Hammett ring, positions counted from the nearer C-O carbon
+ * (the anion is symmetric: 3 and 7 ortho, 4 and 6 meta, 5 para): 5-nitrotropolone 2.64
+ * (serjeant3577) and 5-chlorotropolone 5.62 (serjeant3542) against tropolone 6.7 (from
+ * memory); through the Taft walk alone they read 6.3 and 6.4. A methyl drawn beside the C-OH
+ * or beside the C=O is the same molecule and reads the same. */
+static void test_phenols_pyridines__tropolone_ring(void)
+{
+	double plain = site_pka("Oc1cccccc1=O", "phenol", PRED_ACID);
+	double nitro = site_pka("Oc1ccc(ccc1=O)[N+](=O)[O-]", "phenol", PRED_ACID);
+	double chloro = site_pka("Clc1ccc(=O)c(cc1)O", "phenol", PRED_ACID);
+	CHECK(!isnan(plain) && !isnan(nitro) && !isnan(chloro));
+	CHECK_NEAR(plain, 6.7, 0.5);
+	CHECK_NEAR(nitro, 2.64, 1.0);
+	CHECK_NEAR(chloro, 5.62, 0.6);
+	CHECK(nitro < chloro - 2.0 && chloro < plain);
+	CHECK(site_term_count("Oc1ccc(ccc1=O)[N+](=O)[O-]", "phenol", PRED_ACID, "hammett") == 1);
+	CHECK_NEAR(site_pka("Oc1c(C)ccccc1=O", "phenol", PRED_ACID),
+		   site_pka("Oc1ccccc(C)c1=O", "phenol", PRED_ACID), 0.01);
+	CHECK_NEAR(site_pka("Oc1cc(C)cccc1=O", "phenol", PRED_ACID),
+		   site_pka("Oc1cccc(C)cc1=O", "phenol", PRED_ACID), 0.01);
+}
+
 int main(void)
 {
 	if (probe_setup(&model, &worker))
@@ -208,6 +230,7 @@ int main(void)
 	RUN(test_phenols_pyridines__ring_formyl_hydrate);
 	RUN(test_phenols_pyridines__para_alkenyl);
 	RUN(test_phenols_pyridines__ortho_imine_n);
+	RUN(test_phenols_pyridines__tropolone_ring);
 	probe_teardown(model, worker);
 	return harness_done();
 }
