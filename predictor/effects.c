@@ -469,6 +469,66 @@ static void alkyl_c_effects(term_list *tl, const eng_mol *e, const pred_model *m
 	tl->extra_var += acc.generic_var;
 }
 
+/* Whether atom y is the ionizable atom of a base site of the molecule. */
+static int base_site_atom(const eng_mol *e, const pred_model *m, int y)
+{
+	for (size_t i = 0; i < e->n_sites; i++)
+		if (e->sites[i].atom == y && m->sites[e->sites[i].row].kind == PRED_BASE)
+			return 1;
+	return 0;
+}
+
+/* Meta and para groups of an aryl bonded at x to the Hammett ring k at position pos (a 5-aryl-
+ * pyrimidine, a biphenyl-4-carboxylic acid): global.biaryl_transmission x rho x sigma of the
+ * group on the aryl (sigma_p para, sigma_m meta to x). Ortho ones are left out, as on an aryl
+ * the walk meets, and so is a group that is a base site itself (an anilino N): where it
+ * protonates first its donation is gone (5-(4-aminophenyl)pyrimidines, second step), and the
+ * charge interaction counts it. Marks what it counted. */
+static void biaryl_effects(term_list *tl, const eng_mol *e, const pred_model *m,
+			   const eng_site *s, size_t k, int x, int pos, unsigned char *seen)
+{
+	const frag_site *row = &m->sites[s->row];
+	const obw_rings *R = &e->rings;
+	if (m->p_biaryl_transmission < 0 || !e->atoms[x].aromatic)
+		return;
+	double rho = m->params[pos == 4 ? row->p_rho_para : row->p_rho].value;
+	for (size_t q = 0; q < R->n_rings; q++) {
+		int i0 = ring_index_of(R, q, x), shared = 0;
+		if (q == k || i0 < 0 || !ring_is_aromatic6(e, q))
+			continue;
+		for (int j = 0; j < 6; j++)
+			shared += ring_index_of(R, k, R->atoms[R->offsets[q] + j]) >= 0;
+		if (shared)
+			continue;
+		for (int j = 0; j < 6; j++) {
+			int a = R->atoms[R->offsets[q] + j], dj = abs(j - i0), n;
+			int apos = (dj < 6 - dj ? dj : 6 - dj) + 1;
+			if (apos < 3)
+				continue;
+			const int *nb = eng_nbrs(e, a, &n);
+			for (int t = 0; t < n; t++) {
+				int y = nb[t];
+				if (seen[y] || ring_index_of(R, q, y) >= 0 || in_match(s, y) ||
+				    fused_with(e, q, a, y) || base_site_atom(e, m, y))
+					continue;
+				sigmas g;
+				group_sigmas(&g, e, m, y);
+				double sigma = apos == 3 ? g.m : g.p;
+				terms_add(tl, m, g.generic ? "generic_substituent" : "hammett",
+					  m->p_biaryl_transmission, -rho * sigma,
+					  "%d-%s on the %d-aryl, sigma %.2f, rho %.2f", apos, g.label,
+					  pos, sigma, rho);
+				if (g.generic) {
+					tl->n_generic++;
+					tl->extra_var += 0.16 * 0.09;
+				}
+				mark_group(seen, e, y);
+			}
+		}
+		return; /* one ring: the aryl's own */
+	}
+}
+
 /* The C=O (C=S) para to the ring N-H of an acid site matched as the N alone is that site's
  * own acceptor (the carbonyl of a 4-pyridone takes the anion's charge), not a substituent of
  * its ring. A site whose match holds a C=O beside the N (2-pyridones, uracil N1) keeps a para
@@ -537,6 +597,8 @@ static void ring_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 			group_sigmas(&g, e, m, x);
 			hammett_term(tl, m, row, pos, &g);
 			mark_group(seen, e, x);
+			if (!g.generic)
+				biaryl_effects(tl, e, m, s, k, x, pos, seen);
 			if (is_amine_n(e, x, a))
 				amine_n_effects(tl, e, m, s, x, pos, seen, queue, depth);
 			else
@@ -677,6 +739,83 @@ static void fused_ring_effects(term_list *tl, const eng_mol *e, const pred_model
 	}
 }
 
+/* Whether ring q is an aromatic five-ring without an exocyclic C=O or C=S (a purin-8-one or
+ * -8-thione is not an azole ring: fused_imidazolone holds its effect). */
+static int ring_is_azole5(const eng_mol *e, size_t q)
+{
+	const obw_rings *R = &e->rings;
+	if (R->sizes[q] != 5)
+		return 0;
+	for (int j = 0; j < 5; j++) {
+		int a = R->atoms[R->offsets[q] + j], n;
+		if (!e->atoms[a].aromatic)
+			return 0;
+		const int *nb = eng_nbrs(e, a, &n);
+		for (int t = 0; t < n; t++) {
+			const obw_atom *o = &e->atoms[nb[t]];
+			if ((o->element == 8 || o->element == 16) && o->degree == 1 &&
+			    o->hcount == 0 && o->charge == 0 && !o->in_ring)
+				return 0;
+		}
+	}
+	return 1;
+}
+
+/* Substituents on the carbons of an aromatic five-ring fused to the Hammett ring k of a
+ * ring-N base (purine 8-, imidazo[4,5-b]- and [4,5-c]pyridine 2-, thieno- and pyrrolo-
+ * pyrimidine groups): global.fused5_transmission x rho x sigma_p (the row's para scale) at
+ * every carbon: the odd ring breaks the meta/para alternation of a benzo ring, and the
+ * five-ring N lone pair conjugates each carbon with the azine (8-methylthio- and 2-methyl-
+ * thioimidazopyridines, sigma_m 0.15 but sigma_p 0.00, fit without a term). Substituents
+ * on the five-ring N (9-alkyl, glycosyl) are left to the parent and the corrections. Marks
+ * what it counted. */
+static void fused5_ring_effects(term_list *tl, const eng_mol *e, const pred_model *m,
+				const eng_site *s, size_t k, unsigned char *seen)
+{
+	const frag_site *row = &m->sites[s->row];
+	const obw_atom *c = &e->atoms[s->centre];
+	if (m->p_fused5_transmission < 0 || row->kind != PRED_BASE || c->element != 7 ||
+	    !c->aromatic || ring_index_of(&e->rings, k, s->centre) < 0 ||
+	    (strcmp(row->group, "pyridine") != 0 && strcmp(row->group, "pyrimidine") != 0))
+		return;
+	const obw_rings *R = &e->rings;
+	double rho = m->params[row->p_rho].value;
+	for (size_t q = 0; q < R->n_rings; q++) {
+		if (q == k || !ring_is_azole5(e, q))
+			continue;
+		int shared = 0;
+		for (int j = 0; j < 5; j++)
+			shared += ring_index_of(R, k, R->atoms[R->offsets[q] + j]) >= 0;
+		if (shared != 2)
+			continue;
+		for (int j = 0; j < 5; j++) {
+			int a = R->atoms[R->offsets[q] + j], n;
+			if (ring_index_of(R, k, a) >= 0 || e->atoms[a].element != 6)
+				continue;
+			const int *nb = eng_nbrs(e, a, &n);
+			for (int t = 0; t < n; t++) {
+				int x = nb[t];
+				if (seen[x] || ring_index_of(R, q, x) >= 0 || in_match(s, x) ||
+				    fused_with(e, q, a, x))
+					continue;
+				sigmas g;
+				group_sigmas(&g, e, m, x);
+				const double v[] = {g.p, g.p_minus, g.p_plus};
+				double sigma = v[row->sigma_para];
+				terms_add(tl, m, g.generic ? "generic_substituent" : "hammett",
+					  m->p_fused5_transmission, -rho * sigma,
+					  "fused five-ring %s, sigma_p %.2f, rho %.2f", g.label,
+					  sigma, rho);
+				if (g.generic) {
+					tl->n_generic++;
+					tl->extra_var += 0.16 * 0.16;
+				}
+				mark_group(seen, e, x);
+			}
+		}
+	}
+}
+
 /* The Hammett ring of a site (its index, -1 none; *ipso its atom bonded to or at the centre).
  * Where the centre touches several aromatic six-rings (a diaryl ketone or amine, the N of a
  * phenothiazine, an anthraquinone carbonyl) the ring whose substituents shift the site most
@@ -794,6 +933,7 @@ void eng_site_effects(term_list *tl, const eng_mol *e, const pred_worker *w, con
 		if (k >= 0) {
 			ring_effects(tl, e, m, s, (size_t)k, ipso, seen, queue, depth);
 			fused_ring_effects(tl, e, m, s, (size_t)k, seen);
+			fused5_ring_effects(tl, e, m, s, (size_t)k, seen);
 		}
 		walk_effects(tl, e, m, s, seen, queue, depth);
 		correction_effects(tl, e, w, s);

@@ -421,6 +421,16 @@ static int add_globals(pred_model *m)
 	 * via IUPAC dataset (quinoline 4.90; 5-hydroxy- 5.18, 7-hydroxy- 5.46, methyl
 	 * quinoline-6-carboxylate 3.80: 0.2-0.5 of the pyridine-ring term); fitted. */
 	m->p_fused_transmission = model_param_add(m, "global.fused_transmission", 0.4, 0.15);
+	/* The same share for a substituent on a carbon of a fused aromatic five-ring (purine 8-,
+	 * imidazo[4,5-b/c]pyridine 2-): estimate (own) 0.4 as the benzo ring, from train rows of
+	 * Perrin 1965 and its supplement via IUPAC dataset (8-trifluoromethyl- and 8-methyl-
+	 * sulphonylpurines 0.6-1.4 below the unsubstituted ring N); fitted. */
+	m->p_fused5_transmission = model_param_add(m, "global.fused5_transmission", 0.4, 0.15);
+	/* Share of rho x sigma that a meta or para group on an aryl bonded to the Hammett ring
+	 * passes to the site (effects.c biaryl_effects): HLT1991 Table I (from memory) sigma_p of
+	 * 4-nitrophenyl about 0.26 against phenyl -0.01, 0.35 of sigma_p(NO2) 0.78 (own
+	 * arithmetic); prior 0.3, fitted. */
+	m->p_biaryl_transmission = model_param_add(m, "global.biaryl_transmission", 0.3, 0.1);
 	/* Rise of a ring alkyl carbon's sigma per unit sigma* of its own groups (effects.c
 	 * alkyl_c_effects): 0.17 x 0.4 from HLT1991 Table I sigma_m of CH3, CH2OH, CH2OCH3,
 	 * CH2Cl, CH2CN against Taft sigma* (substituent-constants.csv, own arithmetic); fitted. */
@@ -429,6 +439,7 @@ static int add_globals(pred_model *m)
 		       m->p_interaction_route < 0 || m->p_aryl_transmission < 0 ||
 		       m->p_unc_scale < 0 || m->p_unc_size < 0 || m->p_unc_sites < 0 ||
 		       m->p_unc_floor < 0 || m->p_amine_n < 0 || m->p_fused_transmission < 0 ||
+		       m->p_fused5_transmission < 0 || m->p_biaryl_transmission < 0 ||
 		       m->p_alkyl_inductive < 0
 		       ? PRED_ENOMEM
 		       : 0;

@@ -98,6 +98,8 @@ struct pred_model {
 	int p_unc_floor;    /* no site uncertainty below this (repeatability of the data) */
 	int p_amine_n;      /* sigma rise of a ring amino group per sigma* of its N-substituents */
 	int p_fused_transmission; /* share of rho x sigma of a fused-ring substituent at a ring N */
+	int p_fused5_transmission; /* the same for a substituent on a fused aromatic five-ring */
+	int p_biaryl_transmission; /* share of rho x sigma of a group on an aryl of the Hammett ring */
 	int p_alkyl_inductive; /* sigma rise of a ring alkyl carbon per sigma* of its own groups */
 };
 
