@@ -188,6 +188,49 @@ static void test_lactams__pyrimidin4one_drawings(void)
 	CHECK_NEAR(pn, 1.85, 0.6);
 }
 
+/* Azine and azole rings fused to a lactam ring that holds a second N (Perrin 1965, Perrin
+ * Supplement 1972 and Serjeant & Dempsey 1979 via the IUPAC dataset, entries named). A fused
+ * pyridine ring (lactam_nh_pyrido_fused): 2-hydroxy-1,3,8-triazanaphthalene 10.06 (perrin2351),
+ * 4-hydroxy-1,3,5-triazanaphthalene 8.98 (perrin2350), above the pteridinones with their fused
+ * diazine (the 2-hydroxy one still reads 1.6 low: its peri ring N also takes
+ * lactam_nh_fused_peri_aza, so only its term is checked). An alkylated imidazole (lactam_nh_fused_imidazole_nr): 9-methylhypoxanthine 9.35
+ * (perrin2562) above hypoxanthine 8.96 (perrin2557), 2-amino-6-hydroxy-8,9-dimethylpurine 9.95
+ * (perrin_supp7242). A 1,2,3-triazole (lactam_nh_fused_triazole): 2-methyl-5-methylthio-2H-
+ * 1,2,3-triazolo[4,5-d]pyrimidin-7(6H)-one 7.28 (serjeant3323). */
+static void test_lactams__fused_azine_and_azole_rings(void)
+{
+	const char *pyrido = "Oc1ncc2c(n1)nccc2", *pyrido4 = "Oc1ncnc2c1nccc2";
+	const char *mehx = "Oc1ncnc2c1ncn2C", *dimeguan = "Nc1nc(O)c2c(n1)n(C)c(n2)C";
+	const char *triazolo = "CSc1nc2nn(nc2c(=O)[nH]1)C";
+	CHECK_NEAR(site_pka(pyrido4, "lactam", PRED_ACID), 8.98, 0.8);
+	CHECK_NEAR(site_pka(mehx, "lactam", PRED_ACID), 9.35, 0.6);
+	CHECK_NEAR(site_pka(dimeguan, "lactam", PRED_ACID), 9.95, 1.0);
+	CHECK_NEAR(site_pka(triazolo, "lactam", PRED_ACID), 7.28, 0.6);
+	CHECK(site_term_count(pyrido, "lactam", PRED_ACID, "fused_ring") == 1);
+	CHECK(site_term_count(mehx, "lactam", PRED_ACID, "fused_ring") == 1);
+	CHECK(site_term_count(triazolo, "lactam", PRED_ACID, "fused_ring") == 1);
+	/* a pteridinone (fused diazine) and a 9H-purinone take none of the three */
+	CHECK(site_term_count("O=c1[nH]cnc2nccnc12", "lactam", PRED_ACID, "fused_ring") <= 0);
+	CHECK(site_term_count("Oc1ncnc2c1[nH]cn2", "lactam", PRED_ACID, "fused_ring") <= 0);
+	CHECK(site_pka(mehx, "lactam", PRED_ACID) >
+	      site_pka("O=c1[nH]cnc2nccnc12", "lactam", PRED_ACID));
+}
+
+/* Lumazin-6-ones: the N5-H beside the fusion carbon that carries the 4-oxo (N-C-C=O) takes
+ * lactam_nh_fused_peri_oxo. 1,3,7-Trimethylpteridine-2,4,6(1H,3H,5H)-trione 6.70
+ * (serjeant4749) and 3,7-dimethyl- 6.85 (serjeant4248, first step; Serjeant & Dempsey 1979
+ * via the IUPAC dataset). A pteridine-4,6,7-trione (6,7-dione, N8-H) takes no such term. */
+static void test_lactams__lumazin6one_peri_oxo(void)
+{
+	const char *trimethyl = "Cc1nc2c([nH]c1=O)c(=O)n(c(=O)n2C)C";
+	const char *dimethyl = "Cc1nc2[nH]c(=O)n(c(=O)c2[nH]c1=O)C";
+	CHECK_NEAR(site_pka(trimethyl, "lactam", PRED_ACID), 6.70, 0.6);
+	CHECK_NEAR(site_min(dimethyl, "lactam", PRED_ACID), 6.85, 0.6);
+	CHECK(site_term_count(trimethyl, "lactam", PRED_ACID, "ortho") == 1);
+	CHECK(site_term_count("O=c1[nH]c2c([nH]c1=O)c(=O)[nH]c(=O)n2C", "lactam", PRED_ACID,
+			      "ortho") <= 0);
+}
+
 int main(void)
 {
 	if (probe_setup(&model, &worker))
@@ -201,6 +244,8 @@ int main(void)
 	RUN(test_lactams__nitrouracil_n1_first);
 	RUN(test_lactams__pyrimidinone_anion_on_n3);
 	RUN(test_lactams__pyrimidin4one_drawings);
+	RUN(test_lactams__fused_azine_and_azole_rings);
+	RUN(test_lactams__lumazin6one_peri_oxo);
 	probe_teardown(model, worker);
 	return harness_done();
 }
