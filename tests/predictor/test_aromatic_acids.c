@@ -1,8 +1,9 @@
 /* SPDX-License-Identifier: MIT */
 /* test_aromatic_acids.c: phenols beside ionised ring groups (eng_ionised_pairs in effects.c)
- * and beside the ring N of a fused azine (phenol_fused_aza of fragments/corrections.tsv)
- * against reference rows of data/iupac-pka.csv (Serjeant & Dempsey 1979 or Perrin 1965 via
- * the IUPAC dataset, entry named). */
+ * and beside the ring N of a fused azine, and twisted salicylic acids (phenol_fused_aza,
+ * benzoic_ortho_hydroxy_twisted of fragments/corrections.tsv), against reference rows of
+ * data/iupac-pka.csv (Serjeant & Dempsey 1979 or Perrin 1965 via the IUPAC dataset, entry
+ * named). */
 #include <math.h>
 #include <string.h>
 
@@ -77,12 +78,51 @@ static void test_aromatic_acids__fused_aza_phenols(void)
 	CHECK(phenol_term("Oc1cnc2ccccc2c1", "phenol_fused_aza") == 0);
 }
 
+/* Sum of the terms of the first benzoic acid site whose detail starts with key. */
+static double benzoic_term(const char *smiles, const char *key)
+{
+	pred_result *r = NULL;
+	pred_error err = {0};
+	double v = NAN;
+	size_t len = strlen(key);
+	if (pred_predict(&r, worker, smiles, PRED_FMT_SMILES, NULL, &err))
+		return v;
+	for (size_t i = 0; i < pred_result_site_count(r) && isnan(v); i++) {
+		const pred_site *s = pred_result_site(r, i);
+		if (s->kind != PRED_ACID || strcmp(s->group, "benzoic_acid"))
+			continue;
+		v = 0;
+		for (size_t k = 0; k < s->n_terms; k++)
+			if (s->terms[k].detail && !strncmp(s->terms[k].detail, key, len) &&
+			    (!s->terms[k].detail[len] || s->terms[k].detail[len] == ' '))
+				v += s->terms[k].value;
+	}
+	pred_result_free(r);
+	return v;
+}
+
+/* A salicylic acid with a second ortho group other than O: the twisted carboxylate takes a
+ * weaker H-bond from the OH. 6-methylsalicylic acid 3.24 (serjeant3998) and
+ * 6-chlorosalicylic acid 2.63 (serjeant3555), against salicylic acid 2.97 (from memory);
+ * tolerance 0.35. 2,6-dihydroxybenzoic acid keeps its two H-bonds
+ * (benzoic_ortho_second_hydroxy), 3-methylsalicylic acid has no second ortho group. */
+static void test_aromatic_acids__twisted_salicylic_acids(void)
+{
+	const char *me6 = "OC(=O)c1c(C)cccc1O", *cl6 = "OC(=O)c1c(O)cccc1Cl";
+	CHECK_NEAR(site_pka(me6, "benzoic_acid", PRED_ACID), 3.24, 0.35);
+	CHECK_NEAR(site_pka(cl6, "benzoic_acid", PRED_ACID), 2.63, 0.35);
+	CHECK(benzoic_term(me6, "benzoic_ortho_hydroxy_twisted") > 0.3);
+	CHECK(benzoic_term("OC(=O)c1c(O)cccc1O", "benzoic_ortho_hydroxy_twisted") == 0);
+	CHECK(benzoic_term("OC(=O)c1cccc(C)c1O", "benzoic_ortho_hydroxy_twisted") == 0);
+}
+
 int main(void)
 {
 	if (probe_setup(&model, &worker))
 		return 1;
 	RUN(test_aromatic_acids__ionised_ring_carboxyl);
 	RUN(test_aromatic_acids__fused_aza_phenols);
+	RUN(test_aromatic_acids__twisted_salicylic_acids);
 	probe_teardown(model, worker);
 	return harness_done();
 }
