@@ -1,6 +1,7 @@
 /* SPDX-License-Identifier: MIT */
 /* charge_dist.c: bonds from the charge of each site and the routes between two charges, the
  * geometry the charge interaction uses. */
+#include <math.h>
 #include <stdlib.h>
 #include <string.h>
 
@@ -372,6 +373,8 @@ double eng_pair_scale(const eng_mol *e, const pred_model *m, size_t i, size_t j)
 
 double eng_pair_shift(const eng_mol *e, const pred_model *m, size_t i, size_t j)
 {
+	if (e->ion_pair && !isnan(e->ion_pair[i * e->n_sites + j]))
+		return e->ion_pair[i * e->n_sites + j];
 	int d = eng_charge_bonds(e->qdist, e->nat, i, e->sites[i].atom, j, e->sites[j].atom);
 	if (d <= 0)
 		return 0;

@@ -79,6 +79,7 @@ typedef struct eng_mol {
 	int *corr_start; /* CSR: first atoms matched by correction k in corr_atom[..] */
 	int *corr_atom;
 	int *pair_param; /* n_sites x n_sites: parameter of a monoanion hydrogen-bond pair, -1 */
+	double *ion_pair; /* n_sites x n_sites: Hammett pair shift of an ionised ring group, NAN */
 } eng_mol;
 
 /* Breadth-first bond counts from atom `from` into dist (-1: not connected); queue holds nat. */
@@ -131,6 +132,10 @@ double terms_sum(const term_list *tl);
 
 /* Hammett ring, Taft walk and corrections of site s. */
 void eng_site_effects(term_list *tl, const eng_mol *e, const pred_worker *w, const eng_site *s);
+/* Fills e->ion_pair: where an acid site's group sits meta or para on the Hammett ring of a
+ * site with a higher micro value (it ionises first), the pair shift is rho x (sigma of the
+ * neutral group - sigma of its ionised row), which replaces the charge interaction. */
+int eng_ionised_pairs(eng_mol *e, const pred_model *m, const double *micro);
 
 /* Fills e->pair_param from the hbond_pair(_z) rows of corrections.tsv (pair_hbond.c). */
 int eng_pair_hbonds(eng_mol *e, const pred_worker *w);

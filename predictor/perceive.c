@@ -386,6 +386,7 @@ void eng_free(eng_mol *e)
 	free(e->scls);
 	free(e->corr_atom);
 	free(e->pair_param);
+	free(e->ion_pair);
 	free(e->adj);
 	free(e->adj_bond);
 	free(e->ring_sizes);

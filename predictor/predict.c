@@ -259,6 +259,8 @@ static int build_sites(pred_result *r, eng_mol *e, pred_worker *w, pred_error *e
 	for (size_t i = 0; i < n && !rc; i++)
 		micro[i] = terms_sum(&tls[i]);
 	if (!rc)
+		rc = eng_ionised_pairs(e, w->m, micro);
+	if (!rc)
 		rc = eng_stepwise(tls, e, w->m, sym);
 	double factor = site_unc_factor(e, n, w->m);
 	for (size_t i = 0; i < n && !rc; i++)
