@@ -1,8 +1,9 @@
 /* SPDX-License-Identifier: MIT */
-/* test_azine_neighbours.c: anilines twisted by an ortho acceptor, picolylamines, halogenated
+/* test_azine_neighbours.c: anilines twisted by an ortho group, picolylamines, halogenated
  * 8-hydroxyquinolines and flanked 4-alkylaminopyridines (aniline_nn_ortho_acceptor,
- * aniline_nn_ortho_carboxyl_hbond, amine_azinylmethyl, quinolinol_8_halogen and
- * pyridine_para_nr_flanked of fragments/corrections.tsv) against reference rows. */
+ * aniline_nn_ortho_carboxyl_hbond, aniline_nn_ortho_steric_bulky, amine_azinylmethyl,
+ * quinolinol_8_halogen and pyridine_para_nr_flanked of fragments/corrections.tsv) against
+ * reference rows. */
 #include <math.h>
 
 #include "harness.h"
@@ -60,6 +61,29 @@ static void test_azine_neighbours__picolylamines(void)
 	CHECK(corr_value("CCN(Cc1ccccc1)CC", "tertiary_amine", "amine_azinylmethyl") == 0);
 }
 
+/* N-(2-methylphenyl)iminodiacetic acid 5.65, its ammonium step (Serjeant & Dempsey 1979 via
+ * IUPAC dataset, serjeant5455 of data/iupac-pka.csv), against N,N,2-trimethylaniline 5.98
+ * (Perrin 1965 via IUPAC dataset, perrin0624) and N,N-diethyl-2-methylaniline 7.18 (Perrin
+ * 1965, from memory): an NR2 group with two arms larger than methyl stands partly out of the
+ * ring already, so the 2-methyl group twists it less (aniline_nn_ortho_steric_bulky) than it
+ * twists NMe2 (aniline_nn_ortho_steric). Tolerance 0.6. */
+static void test_azine_neighbours__ortho_steric_bulky_arms(void)
+{
+	const char *ida = "OC(=O)CN(c1ccccc1C)CC(=O)O";
+	const char *nme2 = "CN(c1ccccc1C)C";
+	const char *net2 = "CCN(CC)c1ccccc1C";
+	CHECK_NEAR(last_macro(ida), 5.65, 0.6);
+	CHECK_NEAR(site_pka(nme2, "aniline", PRED_BASE), 5.98, 0.6);
+	CHECK_NEAR(site_pka(net2, "aniline", PRED_BASE), 7.18, 0.6);
+	double bulky = corr_value(ida, "aniline", "aniline_nn_ortho_steric_bulky");
+	double plain = corr_value(nme2, "aniline", "aniline_nn_ortho_steric");
+	CHECK(bulky > 0 && plain > bulky);
+	CHECK(corr_value(ida, "aniline", "aniline_nn_ortho_steric") == 0);
+	CHECK_NEAR(corr_value(net2, "aniline", "aniline_nn_ortho_steric_bulky"), bulky, 1e-6);
+	CHECK(corr_value(nme2, "aniline", "aniline_nn_ortho_steric_bulky") == 0);
+	CHECK(corr_value("CCN(CC)c1ccccc1", "aniline", "aniline_nn_ortho_steric_bulky") == 0);
+}
+
 /* 5-chloro- and 5-iodo-8-hydroxyquinoline 3.56 and 3.48 (Perrin Supplement 1972 via IUPAC
  * dataset, perrin_supp6658, perrin_supp6683) against 8-hydroxyquinoline 4.91 (Perrin 1965
  * via IUPAC dataset), which takes no term. Tolerance 0.5. */
@@ -101,6 +125,7 @@ int main(void)
 		return 1;
 	RUN(test_azine_neighbours__ortho_acceptor_twisted_nme2);
 	RUN(test_azine_neighbours__twisted_anthranilate);
+	RUN(test_azine_neighbours__ortho_steric_bulky_arms);
 	RUN(test_azine_neighbours__picolylamines);
 	RUN(test_azine_neighbours__halogenated_8_hydroxyquinolines);
 	RUN(test_azine_neighbours__flanked_para_alkylamino);

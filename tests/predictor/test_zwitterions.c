@@ -1,7 +1,8 @@
 /* SPDX-License-Identifier: MIT */
 /* test_zwitterions.c: amino acids, aminopolycarboxylates and other ampholytes: the titration
- * order of the site values, the carboxyl arms of an ammonium by amine class, and the sites of
- * aminophenols, hydroxypyridines and aminobenzoic acids against reference rows. */
+ * order of the site values, the carboxyl arms of an ammonium by amine class, ethylenediamine
+ * glycinates, and the sites of aminophenols, hydroxypyridines and aminobenzoic acids against
+ * reference rows. */
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -103,6 +104,30 @@ static void test_zwitterions__carboxylates_sharing_an_ammonium(void)
 	CHECK_NEAR(site_pka("NCC(=O)O", "carboxylic_acid", PRED_ACID), 2.35, 0.45);
 }
 
+/* Two glycinate N on an ethylene bridge (corrections.tsv amine_en_glycinate, once per N):
+ * ammonium steps of ethylenediamine-N,N'-diacetic acid 6.48 / 9.57, its N,N'-dimethyl
+ * derivative 5.986 / 9.975 (Serjeant & Dempsey 1979 via IUPAC dataset, entries serjeant3217
+ * and serjeant4391) and piperazine-1,4-diacetic acid 8.68 / 4.40 (Perrin Supplement 1972 via
+ * IUPAC dataset, perrin_supp5573; its 4.40 is a macroscopic step, the model's lower N site
+ * titrates first); without the term the steps read 0.6-1.0 high.
+ * N-methyliminodiacetic acid (one N) and N,N'-dimethylethylenediamine (no arms) take none.
+ * Tolerance 0.6. */
+static void test_zwitterions__ethylenediamine_glycinates(void)
+{
+	const char *edda = "OC(=O)CNCCNCC(=O)O", *me = "CN(CC(=O)O)CCN(CC(=O)O)C";
+	const char *pip = "OC(=O)CN1CCN(CC1)CC(=O)O";
+	CHECK_NEAR(nth_highest(edda, "secondary_amine", 0), 9.57, 0.6);
+	CHECK_NEAR(nth_highest(edda, "secondary_amine", 1), 6.48, 0.6);
+	CHECK_NEAR(nth_highest(me, "tertiary_amine", 0), 9.975, 0.6);
+	CHECK_NEAR(nth_highest(me, "tertiary_amine", 1), 5.986, 0.6);
+	CHECK_NEAR(last_macro(pip), 8.68, 0.6);
+	double v = corr_value(me, "tertiary_amine", "amine_en_glycinate");
+	CHECK(v < 0);
+	CHECK_NEAR(corr_value(edda, "secondary_amine", "amine_en_glycinate"), v, 1e-9);
+	CHECK(corr_value("CN(CC(=O)O)CC(=O)O", "tertiary_amine", "amine_en_glycinate") == 0);
+	CHECK(corr_value("CNCCNC", "secondary_amine", "amine_en_glycinate") == 0);
+}
+
 /* Ampholytes that are no zwitterions keep their sites: 2-aminophenol 4.78 and 3-aminophenol
  * 4.37 (handbook-bases.csv, Perrin 1965), their OH near 9.8-10 (from memory);
  * 3-hydroxypyridine ring N 4.86 and OH 8.72, 4-aminobenzoic acid anilinium 2.50 and COOH 4.87
@@ -126,6 +151,7 @@ int main(void)
 	RUN(test_zwitterions__aminopolycarboxylate_titrates_carboxyls_first);
 	RUN(test_zwitterions__carboxyl_arms_by_amine_class);
 	RUN(test_zwitterions__carboxylates_sharing_an_ammonium);
+	RUN(test_zwitterions__ethylenediamine_glycinates);
 	RUN(test_zwitterions__ampholyte_sites);
 	probe_teardown(model, worker);
 	return harness_done();
