@@ -2,7 +2,8 @@
 /* test_sulfonamides.c: N-H acidity of N-aryl sulfonamides, with substituents on either side of
  * the S(=O)(=O)-N-H, against reference rows of data/handbook-acids.csv (Serjeant & Dempsey
  * 1979 via the IUPAC dataset, entry named; A. V. Willi 1956 for most; tolerance 0.5, a little
- * under the class uncertainty), and sulfa drugs of data/handbook-additions.csv (from memory). */
+ * under the class uncertainty), sulfa drugs of data/handbook-additions.csv (from memory), and
+ * N-halo sulfonamides and amides. */
 #include <math.h>
 
 #include "harness.h"
@@ -61,6 +62,26 @@ static void test_sulfonamides__sulfa_drugs(void)
 	CHECK(thiazole < phenyl - 1.0 && isoxazole < thiazole);
 }
 
+/* A halogen on the acid N itself (acid_n_halo): N-bromobenzenesulfonamide 4.95 (serjeant3371,
+ * data/iupac-pka.csv) and N-chloro-p-toluenesulfonamide, the acid of chloramine-T, about 4.5
+ * (from memory), against benzenesulfonamide 10.00 (handbook-acids.csv); both read 10.5 without
+ * the row. The amide N-H takes the same row: an N-bromo betaine amide 6.6 (serjeant4503, tier
+ * B), 11.6 without it. Tolerance 0.8, the row's uncertainty less a little. */
+static void test_sulfonamides__n_halo(void)
+{
+	double br = site_pka("BrNS(=O)(=O)c1ccccc1", "sulfonamide", PRED_ACID);
+	double cl = site_pka("ClNS(=O)(=O)c1ccc(C)cc1", "sulfonamide", PRED_ACID);
+	double amide = site_pka("CC[N+](CC(=O)NBr)(CC)CC", "amide", PRED_ACID);
+	double parent = site_pka("NS(=O)(=O)c1ccccc1", "sulfonamide", PRED_ACID);
+	CHECK(!isnan(br) && !isnan(cl) && !isnan(amide) && !isnan(parent));
+	CHECK_NEAR(br, 4.95, 0.8);
+	CHECK_NEAR(cl, 4.5, 0.8);
+	CHECK_NEAR(amide, 6.6, 0.8);
+	CHECK(parent - br > 4.0);
+	CHECK(site_term_count("BrNS(=O)(=O)c1ccccc1", "sulfonamide", PRED_ACID, "alpha_halogen") == 1);
+	CHECK(site_term_count("NS(=O)(=O)c1ccccc1", "sulfonamide", PRED_ACID, "alpha_halogen") <= 0);
+}
+
 int main(void)
 {
 	if (probe_setup(&model, &worker))
@@ -68,6 +89,7 @@ int main(void)
 	RUN(test_sulfonamides__s_aryl_substituents_count);
 	RUN(test_sulfonamides__n_aryl_ring_is_the_stronger_path);
 	RUN(test_sulfonamides__sulfa_drugs);
+	RUN(test_sulfonamides__n_halo);
 	probe_teardown(model, worker);
 	return harness_done();
 }
