@@ -905,7 +905,8 @@ static void correction_effects(term_list *tl, const eng_mol *e, const pred_worke
 				break;
 		}
 		/* a Z pair row needs a cis partner, which the pattern cannot see */
-		if (!hits || (c->pair == CORR_PAIR_Z &&
+		/* a charge pair row acts only on the second site's step (stepwise.c) */
+		if (!hits || c->pair == CORR_PAIR_CHARGE || (c->pair == CORR_PAIR_Z &&
 			      !eng_pair_row_holds(e, w, (size_t)k, (size_t)(s - e->sites))))
 			continue;
 		/* a per-match row (one carboxymethyl arm of an ammonium, say) scales with the

@@ -137,8 +137,11 @@ void eng_site_effects(term_list *tl, const eng_mol *e, const pred_worker *w, con
  * neutral group - sigma of its ionised row), which replaces the charge interaction. */
 int eng_ionised_pairs(eng_mol *e, const pred_model *m, const double *micro);
 
-/* Fills e->pair_param from the hbond_pair(_z) rows of corrections.tsv (pair_hbond.c). */
+/* Fills e->pair_param from the hbond_pair(_z) and charge_pair rows of corrections.tsv
+ * (pair_hbond.c). */
 int eng_pair_hbonds(eng_mol *e, const pred_worker *w);
+/* 1 when parameter param is that of a charge_pair row (pair_hbond.c). */
+int eng_pair_is_charge(const pred_model *m, int param);
 /* 1 unless correction k is an hbond_pair_z row that no other site pairs with site i (a
  * Z row adds its value to a site only with a cis partner; pair_hbond.c). */
 int eng_pair_row_holds(const eng_mol *e, const pred_worker *w, size_t k, size_t i);

@@ -300,6 +300,7 @@ static int parse_corr_row(pred_model *m, frag_corr *k, const tsv_table *t, const
 	k->per_match = !strcmp(count, "match");
 	k->pair = !strcmp(k->term, "hbond_pair")     ? CORR_PAIR_ANY
 		  : !strcmp(k->term, "hbond_pair_z") ? CORR_PAIR_Z
+		  : !strcmp(k->term, "charge_pair")  ? CORR_PAIR_CHARGE
 						     : CORR_PAIR_NONE;
 	if (k->pair && k->per_match)
 		return tsv_fail(err, PRED_EDATA, t, r->line,

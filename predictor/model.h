@@ -58,7 +58,7 @@ typedef struct frag_corr {
  * two sites the pattern matches; "hbond_pair_z" rows only two sites on the two ends of a
  * C=C whose configuration is given as cis (Z), since a SMARTS pattern does not read the
  * '/' '\\' marks of the input. */
-enum { CORR_PAIR_NONE = 0, CORR_PAIR_ANY = 1, CORR_PAIR_Z = 2 };
+enum { CORR_PAIR_NONE = 0, CORR_PAIR_ANY = 1, CORR_PAIR_Z = 2, CORR_PAIR_CHARGE = 3 };
 
 /* Reagent bases for base matching (fragments/bases.tsv). */
 typedef struct frag_base {

@@ -12,7 +12,10 @@
  * rises by |v|: the monoanions of 2,2-dialkylmalonic and cyclopentene-1,2-dicarboxylic
  * acids. An "hbond_pair_z" row holds only for two sites on the two ends of a C=C drawn cis
  * (maleic, not fumaric acid): the pattern cannot tell the two apart, the drawn
- * configuration can (obw_mol_bond_cis; an unmarked double bond reads not cis). */
+ * configuration can (obw_mol_bond_cis; an unmarked double bond reads not cis). A
+ * "charge_pair" row joins two sites on one centre (two bonds apart: the OH of one
+ * P(=O)(OH)2) whose charges repel more than the bond-count fall-off of the interaction
+ * gives: the site ionising second gains v per ionised partner, the first nothing. */
 
 /* Sites of one pair lie within this many bonds (O-C-C-C-C-C-O of a glutaric acid). */
 enum { PAIR_MAX_BONDS = 6 };
@@ -86,6 +89,8 @@ static int row_pairs(const eng_mol *e, const pred_worker *w, size_t k, size_t i,
 	if (e->corr_start[k] == e->corr_start[k + 1] || !site_takes(e, w, k, i) ||
 	    !site_takes(e, w, k, j))
 		return 0;
+	if (w->m->corrs[k].pair == CORR_PAIR_CHARGE)
+		return site_dist(e, i, e->sites[j].atom) == 2;
 	return w->m->corrs[k].pair != CORR_PAIR_Z || cis_on_ene(e, i, j);
 }
 
@@ -106,6 +111,14 @@ static int pair_param(const eng_mol *e, const pred_worker *w, size_t i, size_t j
 			return w->m->corrs[k].p_value;
 	}
 	return -1;
+}
+
+int eng_pair_is_charge(const pred_model *m, int param)
+{
+	for (size_t k = 0; k < m->n_corrs; k++)
+		if (m->corrs[k].p_value == param)
+			return m->corrs[k].pair == CORR_PAIR_CHARGE;
+	return 0;
 }
 
 int eng_pair_row_holds(const eng_mol *e, const pred_worker *w, size_t k, size_t i)

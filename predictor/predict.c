@@ -307,7 +307,8 @@ static double *pair_extra(const eng_mol *e, const pred_model *m)
 		size_t i = k / n, j = k % n;
 		int d = eng_charge_bonds(e->qdist, e->nat, i, e->sites[i].atom, j, e->sites[j].atom);
 		if (e->pair_param && e->pair_param[k] >= 0)
-			x[k] = -2.0 * m->params[e->pair_param[k]].value;
+			x[k] = (eng_pair_is_charge(m, e->pair_param[k]) ? 1.0 : -2.0) *
+			       m->params[e->pair_param[k]].value;
 		if (i != j && d > 0)
 			x[k] += eng_pair_shift(e, m, i, j) - ionization_pair_shift(m, d);
 	}

@@ -13,6 +13,8 @@ typedef struct step_state {
 	int *eq_n;    /* size of the equivalence class of each site */
 	int *eq_done; /* members of that class already ionised (indexed by the class leader) */
 	int *leader;
+	int *block;    /* first site of the block of each site: equivalent sites on one centre */
+	int *cnt;      /* scratch: ionised sites per block (indexed by the block's first site) */
 	size_t *order; /* titration order, when chosen over all paths (best_order) */
 	double *w;     /* n x n: eng_pair_shift of each pair, computed once */
 } step_state;
@@ -30,6 +32,16 @@ static void equivalence(step_state *st, const eng_mol *e, const int *symclass)
 			}
 		st->eq_n[st->leader[i]]++;
 	}
+	/* a block: sites of one class two bonds apart (the OH of one P(=O)(OH)2) */
+	for (size_t i = 0; i < e->n_sites; i++) {
+		st->block[i] = (int)i;
+		for (size_t j = 0; j < i; j++)
+			if (st->leader[j] == st->leader[i] &&
+			    e->dist[i * e->nat + (size_t)e->sites[j].atom] == 2) {
+				st->block[i] = st->block[j];
+				break;
+			}
+	}
 }
 
 static double interaction(const step_state *st, const eng_mol *e, size_t i)
@@ -45,9 +57,11 @@ static double interaction(const step_state *st, const eng_mol *e, size_t i)
 	return sum;
 }
 
-/* Feature of the monoanion hydrogen-bond term of site i (-2 per ionised partner of its
- * pair row, see pair_hbond.c); *param is that row's parameter or -1. */
-static double pair_feature(const step_state *st, const eng_mol *e, size_t i, int *param)
+/* Feature of the pair term of site i (-2 per ionised partner of its hydrogen-bond pair
+ * row, +1 per ionised partner of its charge pair row, see pair_hbond.c); *param is that
+ * row's parameter or -1. */
+static double pair_feature(const step_state *st, const eng_mol *e, const pred_model *m,
+			   size_t i, int *param)
 {
 	double f = 0;
 	*param = -1;
@@ -56,15 +70,60 @@ static double pair_feature(const step_state *st, const eng_mol *e, size_t i, int
 		if (p < 0 || st->charge[j] >= 0 || (*param >= 0 && p != *param))
 			continue;
 		*param = p;
-		f -= 2.0;
+		f += eng_pair_is_charge(m, p) ? 1.0 : -2.0;
 	}
 	return f;
 }
 
-static double statistical(const step_state *st, size_t i)
+/* log10 of the number of states like the one with cnt[b] sites ionised in each of the nb
+ * blocks of m sites: the symmetry permutes the sites of a block and the blocks, so nb! / (the
+ * blocks with equal counts among themselves) x product of C(m, cnt[b]). */
+static double log_orbit(const int *cnt, int nb, int m)
 {
-	int n = st->eq_n[st->leader[i]], k = st->eq_done[st->leader[i]] + 1;
-	return n > 1 ? log10((double)k / (double)(n - k + 1)) : 0.0;
+	double v = lgamma(nb + 1.0);
+	for (int c = 0; c <= m; c++) {
+		int mult = 0;
+		for (int b = 0; b < nb; b++)
+			mult += cnt[b] == c;
+		v -= lgamma(mult + 1.0);
+	}
+	for (int b = 0; b < nb; b++)
+		v += lgamma(m + 1.0) - lgamma(cnt[b] + 1.0) - lgamma(m - cnt[b] + 1.0);
+	return v / log(10.0);
+}
+
+/* Statistical term of site i's step: log10 of the number of equivalent states before the
+ * step over the number after it (common practice: a symmetric diacid's two steps lie log 4
+ * apart). n equivalent sites on separate centres give log10(k / (n - k + 1)) at the k-th
+ * step; two equivalent P(OH)2 groups titrate -log 4, 0, 0, +log 4 (one OH of each first),
+ * not as four free sites. Blocks of unequal size keep the free-site form. */
+static double statistical(const step_state *st, const eng_mol *e, size_t i)
+{
+	int L = st->leader[i], n = st->eq_n[L], k = st->eq_done[L] + 1;
+	if (n < 2)
+		return 0.0;
+	int nb = 0, m = -1, ok = 1;
+	for (size_t j = 0; j < e->n_sites; j++) {
+		if (st->leader[j] != L || st->block[j] != (int)j)
+			continue;
+		int size = 0, on = 0;
+		for (size_t q = j; q < e->n_sites; q++)
+			if (st->block[q] == (int)j) {
+				size++;
+				on += st->done[q];
+			}
+		ok = ok && (m < 0 || size == m);
+		m = size;
+		st->cnt[nb++] = on;
+	}
+	if (!ok || m == 1)
+		return log10((double)k / (double)(n - k + 1));
+	int b = 0;
+	for (size_t j = 0; j < e->n_sites && st->block[j] != st->block[i]; j++)
+		b += st->leader[j] == L && st->block[j] == (int)j;
+	double before = log_orbit(st->cnt, nb, m);
+	st->cnt[b]++;
+	return before - log_orbit(st->cnt, nb, m);
 }
 
 /* An acid losing its proton while a base of the molecule still holds one makes a
@@ -102,9 +161,9 @@ static double zwitterion_penalty(const step_state *st, const eng_mol *e, const p
 static double step_value(const step_state *st, const eng_mol *e, const pred_model *m, size_t i,
 			 double *stat, double *inter, double *pf, int *pp)
 {
-	*stat = statistical(st, i);
+	*stat = statistical(st, e, i);
 	*inter = interaction(st, e, i);
-	*pf = pair_feature(st, e, i, pp);
+	*pf = pair_feature(st, e, m, i, pp);
 	return st->micro[i] + *stat + *inter + (*pp >= 0 ? m->params[*pp].value * *pf : 0);
 }
 
@@ -116,10 +175,13 @@ static void take_step(term_list *tls, step_state *st, const eng_mol *e, const pr
 	double stat, inter, pf;
 	step_value(st, e, m, i, &stat, &inter, &pf, &pp);
 	term_list *tl = &tls[i];
-	if (pp >= 0)
+	if (pp >= 0 && eng_pair_is_charge(m, pp))
+		terms_add(tl, m, "charge_pair", pp, pf,
+			  "charge of the other group on the same centre");
+	else if (pp >= 0)
 		terms_add(tl, m, "hbond", pp, pf,
 			  "proton held by the hydrogen-bonded anion of the pair");
-	if (stat != 0)
+	if (fabs(stat) > 1e-9)
 		terms_add(tl, m, "statistical", -1, stat, "%d equivalent sites",
 			  st->eq_n[st->leader[i]]);
 	if (fabs(inter) >= 0.005) {
@@ -364,9 +426,12 @@ int eng_stepwise(term_list *tls, const eng_mol *e, const pred_model *m, const in
 	st.eq_n = calloc(n + 1, sizeof *st.eq_n);
 	st.eq_done = calloc(n + 1, sizeof *st.eq_done);
 	st.leader = calloc(n + 1, sizeof *st.leader);
+	st.block = calloc(n + 1, sizeof *st.block);
+	st.cnt = calloc(n + 1, sizeof *st.cnt);
 	st.order = calloc(n + 1, sizeof *st.order);
 	st.w = malloc((n * n + 1) * sizeof *st.w);
 	int rc = st.micro && st.charge && st.done && st.eq_n && st.eq_done && st.leader &&
+			 st.block && st.cnt &&
 			 st.order && st.w
 		 ? 0
 		 : PRED_ENOMEM;
@@ -389,6 +454,8 @@ int eng_stepwise(term_list *tls, const eng_mol *e, const pred_model *m, const in
 	free(st.eq_n);
 	free(st.eq_done);
 	free(st.leader);
+	free(st.block);
+	free(st.cnt);
 	free(st.order);
 	free(st.w);
 	return rc;
