@@ -875,8 +875,22 @@ static void add_taft(void *ctx, const sigmas *sg, int x, int d, double att, unsi
 		c->tl->n_generic++;
 		c->tl->extra_var += 0.16 * att;
 	}
-	if (c->e->atoms[x].aromatic && !sg->generic)
+	if (sg->generic)
+		return;
+	if (c->e->atoms[x].aromatic) {
 		aryl_ring_effects(c->tl, c->e, c->m, c->s, x, d, seen);
+		return;
+	}
+	/* a group holding the ring's first atom behind its root (OC6H5, COC6H5): the ring is
+	 * met one bond further out */
+	int n;
+	const int *nb = eng_nbrs(c->e, x, &n);
+	for (int j = 0; j < n; j++)
+		if (c->e->atoms[nb[j]].aromatic && c->e->group[nb[j]] >= 0 &&
+		    c->e->group_root[nb[j]] == x) {
+			aryl_ring_effects(c->tl, c->e, c->m, c->s, nb[j], d + 1, seen);
+			return;
+		}
 }
 
 static void walk_effects(term_list *tl, const eng_mol *e, const pred_model *m,
