@@ -22,7 +22,7 @@ static double ten_to(int decimals)
 static double round_to(double x, int decimals)
 {
 	double scale = ten_to(decimals);
-	double r = round(x * scale) / scale;
+	double r = srv_round_scaled(x, scale) / scale;
 	/* -0 would print as "-0", which reads oddly in a charge column. */
 	return r == 0.0 ? 0.0 : r;
 }
@@ -33,7 +33,7 @@ static double round_to(double x, int decimals)
  * the rounded value; snprintf stays for magnitudes where a double holds no such integer. */
 static void format_fixed(char *buf, double x, int decimals)
 {
-	double scaled = round(x * ten_to(decimals));
+	double scaled = srv_round_scaled(x, ten_to(decimals));
 	if (!(fabs(scaled) < 1e15)) {
 		int n = snprintf(buf, 64, "%.*f", decimals, round_to(x, decimals));
 		if (n > 0 && n < 64 && strchr(buf, '.')) {

@@ -4,9 +4,19 @@
 #define PKAD_JSON_RESULT_H
 
 #include <cjson/cJSON.h>
+#include <math.h>
 
 #include "predictor.h"
 #include "strbuf.h"
+
+/** x scaled by 10^decimals and rounded to an integer, after a first rounding to 10^-6 of a
+ *  last-place unit: a value summed from its terms in another order (another atom order of
+ *  the same molecule) differs in its last bits, and where it lies on a half-unit boundary
+ *  (0.035) a plain round() would print 0.03 for one order and 0.04 for the other. */
+static inline double srv_round_scaled(double x, double scale)
+{
+	return round(round(x * scale * 1e6) / 1e6);
+}
 
 /** The result object of one molecule as one line of JSON text (no newline): {"id",
  *  "input", "smiles", "sites", "macro_pka", "at_ph", ["isoelectric_point"], ["curves"],

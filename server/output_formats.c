@@ -69,7 +69,7 @@ static char *sb_finish(sbuf *b)
  * a small negative value does not print as "-0.00". */
 static void sb_number(sbuf *b, double x, int decimals)
 {
-	double scale = pow(10.0, decimals), r = round(x * scale) / scale;
+	double scale = pow(10.0, decimals), r = srv_round_scaled(x, scale) / scale;
 	if (isfinite(x))
 		sb_printf(b, "%.*f", decimals, r == 0.0 ? 0.0 : r);
 }
