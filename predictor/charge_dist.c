@@ -98,8 +98,8 @@ static void charge_row(eng_mol *e, const pred_model *m, size_t i, int *tmp, int 
 	}
 }
 
-/* An exocyclic =O or =S on ring atom c (the C=O of a ring amide). */
-static int has_ring_oxo(const eng_mol *e, int c)
+/* The exocyclic =O or =S of ring carbon c (the C=O of a ring amide), or -1. */
+static int ring_oxo_atom(const eng_mol *e, int c)
 {
 	int n;
 	const int *nb = eng_nbrs(e, c, &n);
@@ -107,9 +107,15 @@ static int has_ring_oxo(const eng_mol *e, int c)
 		const obw_atom *o = &e->atoms[nb[k]];
 		if ((o->element == 8 || o->element == 16) && o->degree == 1 && o->hcount == 0 &&
 		    o->charge == 0 && !o->in_ring)
-			return 1;
+			return nb[k];
 	}
-	return 0;
+	return -1;
+}
+
+/* An exocyclic =O or =S on ring atom c (the C=O of a ring amide). */
+static int has_ring_oxo(const eng_mol *e, int c)
+{
+	return ring_oxo_atom(e, c) >= 0;
 }
 
 /* A ring =N- (two-connected, no H, uncharged) of an aromatic six-ring. */
@@ -119,19 +125,65 @@ static int is_ring_imine_n(const obw_atom *a)
 	       a->charge == 0;
 }
 
+/* Rings of e->rings that hold atom x. */
+static int rings_holding(const eng_mol *e, int x)
+{
+	const obw_rings *R = &e->rings;
+	int n = 0;
+	for (size_t k = 0; k < R->n_rings; k++)
+		for (int j = 0; j < R->sizes[k]; j++)
+			n += R->atoms[R->offsets[k] + (size_t)j] == x;
+	return n;
+}
+
+/* A ring N-H beside one ring C=O and beside a fusion carbon that carries no other N (N5-H of
+ * a 5H-pteridin-6-one): across the fusion its anion is an amide anion, not an amidinate
+ * (N-C-N, the N8 anion of a pteridine-2,4,7-trione beside N1), and its charge lies on the
+ * O, so it is counted from there. The lumazin-6-one second steps (1,3,7-trimethyl- 9.9,
+ * the 2,4,6-trioxo-7-carboxylic acids 9.63-10.2, Serjeant & Dempsey 1979 via IUPAC dataset,
+ * train rows) read 1.4-2.6 high with the N5-H distance (d 3) to N1 or N3. Returns the O. */
+static int fused_amide_oxygen(const eng_mol *e, int n)
+{
+	int nn, o = -1, fused = 0;
+	const int *nb = eng_nbrs(e, n, &nn);
+	for (int i = 0; i < nn; i++) {
+		int c = nb[i], x = ring_oxo_atom(e, c), nc;
+		if (e->atoms[c].element != 6 || !e->atoms[c].aromatic)
+			return -1;
+		if (x >= 0) {
+			if (o >= 0)
+				return -1; /* an imide N */
+			o = x;
+			continue;
+		}
+		if (rings_holding(e, c) < 2)
+			continue;
+		const int *cb = eng_nbrs(e, c, &nc);
+		for (int k = 0; k < nc; k++)
+			if (cb[k] != n && e->atoms[cb[k]].element == 7)
+				return -1;
+		fused = 1;
+	}
+	return fused ? o : -1;
+}
+
 /* Where the anion of a ring N-H acid site matched as the N alone (4-pyridone type) sits when
  * its six-ring holds a ring =N- meta to it and beside the C=O para to it (N1-H, N3, C4=O of
  * a pyrimidin-4(1H)-one): the anion is that of the 3H tautomer, an amide anion on N3 and O4,
  * so its charge is counted from N3. Pteridine-4,7-diones drawn 1H,8H (4,7-dihydroxy-
  * pteridine 6.08 / 9.62, 6-formyl- 5.93 / 9.31, Serjeant & Dempsey 1979 via IUPAC dataset,
  * train rows) took the interaction of N1, two bonds from N8, and read the second step 2.3-2.7
- * too high. Of two such N the lower canonical rank; -1 for other sites. */
+ * too high. Of two such N the lower canonical rank. An amide N-H beside a fusion carbon
+ * without a second N counts from its O (above); -1 for other sites. */
 static int tautomer_charge_atom(const eng_mol *e, const pred_model *m, const eng_site *s)
 {
 	const obw_atom *a = &e->atoms[s->atom];
-	if (m->sites[s->row].kind != PRED_ACID || s->n_match != 1 || a->element != 7 ||
-	    !a->aromatic || a->hcount == 0)
+	if (m->sites[s->row].kind != PRED_ACID || a->element != 7 || !a->aromatic ||
+	    a->hcount == 0)
 		return -1;
+	int o = fused_amide_oxygen(e, s->atom);
+	if (o >= 0 || s->n_match != 1)
+		return o;
 	const obw_rings *R = &e->rings;
 	int best = -1;
 	for (size_t k = 0; k < R->n_rings; k++) {

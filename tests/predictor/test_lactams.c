@@ -231,6 +231,44 @@ static void test_lactams__lumazin6one_peri_oxo(void)
 			      "ortho") <= 0);
 }
 
+/* A lactam anion beside a fusion carbon that carries no other N is an amide anion and counts
+ * its charge from the O (charge_dist.c); beside one that does (N-C-N, an amidinate) it keeps
+ * the N. 3,7-Dimethylpteridine-2,4,6(1H,3H,5H)-trione 6.85 / 9.9 (serjeant4248): the N1-H
+ * step sees the N5 anion from O6, five bonds away (W(5) about 0.8, not W(3) about 2.4);
+ * 3,6-dimethylpteridine-2,4,7(1H,3H,8H)-trione 4.17 / 10.42 (serjeant4250): the N8 anion two
+ * bonds from N1 keeps its N (Serjeant & Dempsey 1979 via the IUPAC dataset). The interaction
+ * term of the lactam acid site that ionises second, NAN when there is none. */
+static double lactam_interaction(const char *smiles)
+{
+	pred_result *r = NULL;
+	pred_error err = {0};
+	double v = NAN;
+	if (pred_predict(&r, worker, smiles, PRED_FMT_SMILES, NULL, &err))
+		return NAN;
+	for (size_t i = 0; i < pred_result_site_count(r); i++) {
+		const pred_site *s = pred_result_site(r, i);
+		if (s->kind != PRED_ACID || strcmp(s->group, "lactam"))
+			continue;
+		for (size_t k = 0; k < s->n_terms; k++)
+			if (!strcmp(s->terms[k].term, "interaction"))
+				v = s->terms[k].value;
+	}
+	pred_result_free(r);
+	return v;
+}
+
+static void test_lactams__fused_amide_anion_on_o(void)
+{
+	const char *six = "Cc1nc2[nH]c(=O)n(c(=O)c2[nH]c1=O)C";
+	const char *seven = "Cc1nc2c([nH]c1=O)[nH]c(=O)n(c2=O)C";
+	double inter6 = lactam_interaction(six), inter7 = lactam_interaction(seven);
+	CHECK(!isnan(inter6) && !isnan(inter7));
+	CHECK_NEAR(site_max(six, "lactam", PRED_ACID), 9.9, 0.6);
+	CHECK_NEAR(site_max(seven, "lactam", PRED_ACID), 10.42, 0.6);
+	CHECK(inter6 > 0.3 && inter6 < 1.3);
+	CHECK(inter7 > 2.5);
+}
+
 int main(void)
 {
 	if (probe_setup(&model, &worker))
@@ -246,6 +284,7 @@ int main(void)
 	RUN(test_lactams__pyrimidin4one_drawings);
 	RUN(test_lactams__fused_azine_and_azole_rings);
 	RUN(test_lactams__lumazin6one_peri_oxo);
+	RUN(test_lactams__fused_amide_anion_on_o);
 	probe_teardown(model, worker);
 	return harness_done();
 }
