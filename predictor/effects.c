@@ -57,7 +57,7 @@ double terms_sum(const term_list *tl)
 	return s;
 }
 
-static int in_match(const eng_site *s, int atom)
+int eng_in_match(const eng_site *s, int atom)
 {
 	for (int i = 0; i < s->n_match; i++)
 		if (s->match[i] == atom)
@@ -65,7 +65,7 @@ static int in_match(const eng_site *s, int atom)
 	return 0;
 }
 
-static int ring_index_of(const obw_rings *R, size_t k, int atom)
+int eng_ring_index_of(const obw_rings *R, size_t k, int atom)
 {
 	for (int j = 0; j < R->sizes[k]; j++)
 		if (R->atoms[R->offsets[k] + j] == atom)
@@ -104,7 +104,7 @@ static int hammett_rings(const eng_mol *e, const eng_site *s, int *k, int *ipso)
 	int found = 0;
 	for (size_t r = 0; r < e->rings.n_rings && found < RING_CHOICES; r++)
 		if ((ring_is_aromatic6(e, r) || ring_is_aromatic7(e, r)) &&
-		    ring_index_of(&e->rings, r, s->centre) >= 0) {
+		    eng_ring_index_of(&e->rings, r, s->centre) >= 0) {
 			k[found] = (int)r;
 			ipso[found++] = s->centre;
 		}
@@ -115,7 +115,7 @@ static int hammett_rings(const eng_mol *e, const eng_site *s, int *k, int *ipso)
 	for (int j = 0; j < n; j++)
 		for (size_t r = 0; r < e->rings.n_rings && found < RING_CHOICES; r++)
 			if ((ring_is_aromatic6(e, r) || ring_is_aromatic7(e, r)) &&
-			    ring_index_of(&e->rings, r, nb[j]) >= 0) {
+			    eng_ring_index_of(&e->rings, r, nb[j]) >= 0) {
 				k[found] = (int)r;
 				ipso[found++] = nb[j];
 			}
@@ -130,7 +130,7 @@ static int ring_before(const eng_mol *e, int a, int b)
 	for (int i = 0; i < 2; i++)
 		for (int j = 0; j < e->rings.sizes[k[i]]; j++) {
 			int x = e->rings.atoms[e->rings.offsets[k[i]] + j];
-			if (ring_index_of(&e->rings, (size_t)k[1 - i], x) < 0 && e->rank[x] < low[i])
+			if (eng_ring_index_of(&e->rings, (size_t)k[1 - i], x) < 0 && e->rank[x] < low[i])
 				low[i] = e->rank[x];
 		}
 	return low[0] < low[1];
@@ -140,8 +140,8 @@ static int ring_before(const eng_mol *e, int a, int b)
 static int fused_with(const eng_mol *e, size_t k, int a, int x)
 {
 	for (size_t q = 0; q < e->rings.n_rings; q++)
-		if (q != k && ring_index_of(&e->rings, q, a) >= 0 &&
-		    ring_index_of(&e->rings, q, x) >= 0)
+		if (q != k && eng_ring_index_of(&e->rings, q, a) >= 0 &&
+		    eng_ring_index_of(&e->rings, q, x) >= 0)
 			return 1;
 	return 0;
 }
@@ -265,7 +265,7 @@ static void aryl_ring_effects(term_list *tl, const eng_mol *e, const pred_model 
 	double att = pow(m->params[m->p_falloff].value, d - 1);
 	const obw_rings *R = &e->rings;
 	for (size_t k = 0; t != 0 && k < R->n_rings; k++) {
-		int i0 = ring_index_of(R, k, x);
+		int i0 = eng_ring_index_of(R, k, x);
 		if (i0 < 0 || !ring_is_aromatic6(e, k))
 			continue;
 		for (int j = 0; j < 6; j++) {
@@ -276,7 +276,7 @@ static void aryl_ring_effects(term_list *tl, const eng_mol *e, const pred_model 
 			const int *nb = eng_nbrs(e, a, &n);
 			for (int q = 0; q < n; q++) {
 				int y = nb[q];
-				if (seen[y] || ring_index_of(R, k, y) >= 0 || in_match(s, y) ||
+				if (seen[y] || eng_ring_index_of(R, k, y) >= 0 || eng_in_match(s, y) ||
 				    fused_with(e, k, a, y))
 					continue;
 				sigmas g;
@@ -352,10 +352,10 @@ static void walk_from(const eng_mol *e, const pred_model *m, const eng_site *s, 
 			/* atoms of the site's own match belong to the parent: passed through, not
 			 * counted, except an sp3 carbon standing for "R" (the R of R-COOH may be a
 			 * CF3) */
-			int r_position = in_match(s, x) && e->atoms[x].element == 6 &&
+			int r_position = eng_in_match(s, x) && e->atoms[x].element == 6 &&
 					 e->atoms[x].hyb == 3;
-			int transparent = !(root && (r_position || !in_match(s, x))) &&
-					  (in_match(s, x) || (g >= 0 ? m->substs[g].transparent
+			int transparent = !(root && (r_position || !eng_in_match(s, x))) &&
+					  (eng_in_match(s, x) || (g >= 0 ? m->substs[g].transparent
 								     : plain_carbon(e, x)));
 			if (transparent)
 				continue;
@@ -372,7 +372,7 @@ static void walk_from(const eng_mol *e, const pred_model *m, const eng_site *s, 
 			if (x < 0)
 				continue;
 			int g = e->group[x];
-			if (alkyl && g >= 0 && e->group_root[x] == x && !in_match(s, x)) {
+			if (alkyl && g >= 0 && e->group_root[x] == x && !eng_in_match(s, x)) {
 				sigmas sg;
 				group_sigmas(&sg, e, m, x);
 				visit(ctx, &sg, x, d, pow(f, d - 1), seen);
@@ -493,11 +493,11 @@ static void biaryl_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 		return;
 	double rho = m->params[pos == 4 ? row->p_rho_para : row->p_rho].value;
 	for (size_t q = 0; q < R->n_rings; q++) {
-		int i0 = ring_index_of(R, q, x), shared = 0;
+		int i0 = eng_ring_index_of(R, q, x), shared = 0;
 		if (q == k || i0 < 0 || !ring_is_aromatic6(e, q))
 			continue;
 		for (int j = 0; j < 6; j++)
-			shared += ring_index_of(R, k, R->atoms[R->offsets[q] + j]) >= 0;
+			shared += eng_ring_index_of(R, k, R->atoms[R->offsets[q] + j]) >= 0;
 		if (shared)
 			continue;
 		for (int j = 0; j < 6; j++) {
@@ -508,7 +508,7 @@ static void biaryl_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 			const int *nb = eng_nbrs(e, a, &n);
 			for (int t = 0; t < n; t++) {
 				int y = nb[t];
-				if (seen[y] || ring_index_of(R, q, y) >= 0 || in_match(s, y) ||
+				if (seen[y] || eng_ring_index_of(R, q, y) >= 0 || eng_in_match(s, y) ||
 				    fused_with(e, q, a, y) || base_site_atom(e, m, y))
 					continue;
 				sigmas g;
@@ -547,12 +547,12 @@ static int own_para_oxo(const eng_mol *e, const pred_model *m, const eng_site *s
  * (index i0) + 1. On a seven-ring (tropolone) the bonds count from the nearest ring atom of
  * the match: the anion spreads its charge over both C-O carbons and is symmetric, so C3 and
  * C7 are ortho, C4 and C6 meta, C5, which the charge reaches from either O, para. */
-static int ring_position(const eng_mol *e, const eng_site *s, size_t k, int i0, int j)
+int eng_ring_position(const eng_mol *e, const eng_site *s, size_t k, int i0, int j)
 {
 	const obw_rings *R = &e->rings;
 	int n = R->sizes[k], best = n;
 	for (int i = 0; i < n; i++) {
-		if (i != i0 && (n == 6 || !in_match(s, R->atoms[R->offsets[k] + i])))
+		if (i != i0 && (n == 6 || !eng_in_match(s, R->atoms[R->offsets[k] + i])))
 			continue;
 		int d = abs(j - i);
 		d = d < n - d ? d : n - d;
@@ -569,15 +569,15 @@ static void ring_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 {
 	const frag_site *row = &m->sites[s->row];
 	const obw_rings *R = &e->rings;
-	int i0 = ring_index_of(R, k, ipso), aza = m->subst_aza, size = R->sizes[k];
+	int i0 = eng_ring_index_of(R, k, ipso), aza = m->subst_aza, size = R->sizes[k];
 	for (int j = 0; j < size; j++)
 		seen[R->atoms[R->offsets[k] + j]] = 1;
 	for (int j = 0; j < size; j++) {
 		int a = R->atoms[R->offsets[k] + j];
-		int pos = ring_position(e, s, k, i0, j);
-		if (a == ipso || (size == 7 && in_match(s, a)))
+		int pos = eng_ring_position(e, s, k, i0, j);
+		if (a == ipso || (size == 7 && eng_in_match(s, a)))
 			continue;
-		if (e->atoms[a].element != 6 && !in_match(s, a) && aza >= 0) {
+		if (e->atoms[a].element != 6 && !eng_in_match(s, a) && aza >= 0) {
 			sigmas g = {m->substs[aza].sigma_m, m->substs[aza].sigma_p,
 				     m->substs[aza].sigma_p_minus, m->substs[aza].sigma_p_plus, 0,
 				     "aza", 0};
@@ -587,7 +587,7 @@ static void ring_effects(term_list *tl, const eng_mol *e, const pred_model *m,
 		const int *nb = eng_nbrs(e, a, &n);
 		for (int q = 0; q < n; q++) {
 			int x = nb[q];
-			if (ring_index_of(R, k, x) >= 0 || in_match(s, x) || fused_with(e, k, a, x))
+			if (eng_ring_index_of(R, k, x) >= 0 || eng_in_match(s, x) || fused_with(e, k, a, x))
 				continue;
 			if (own_para_oxo(e, m, s, ipso, pos, x)) {
 				seen[x] = 1;
@@ -616,7 +616,7 @@ static int ring_pair_distance(const eng_mol *e, size_t k, size_t q, int from, in
 	for (int j = 0; j < 6; j++)
 		atoms[n_at++] = R->atoms[R->offsets[k] + j];
 	for (int j = 0; j < 6; j++)
-		if (ring_index_of(R, k, R->atoms[R->offsets[q] + j]) < 0)
+		if (eng_ring_index_of(R, k, R->atoms[R->offsets[q] + j]) < 0)
 			atoms[n_at++] = R->atoms[R->offsets[q] + j];
 	for (int i = 0; i < n_at; i++)
 		dist[i] = atoms[i] == from ? 0 : -1;
@@ -644,12 +644,12 @@ static int peri_to_ring_n(const eng_mol *e, size_t k, int a)
 	int n;
 	const int *nb = eng_nbrs(e, a, &n);
 	for (int j = 0; j < n; j++) {
-		if (ring_index_of(&e->rings, k, nb[j]) < 0)
+		if (eng_ring_index_of(&e->rings, k, nb[j]) < 0)
 			continue;
 		int n2;
 		const int *nb2 = eng_nbrs(e, nb[j], &n2);
 		for (int t = 0; t < n2; t++)
-			if (e->atoms[nb2[t]].element == 7 && ring_index_of(&e->rings, k, nb2[t]) >= 0)
+			if (e->atoms[nb2[t]].element == 7 && eng_ring_index_of(&e->rings, k, nb2[t]) >= 0)
 				return 1;
 	}
 	return 0;
@@ -687,7 +687,7 @@ static void fused_ring_effects(term_list *tl, const eng_mol *e, const pred_model
 	const frag_site *row = &m->sites[s->row];
 	const obw_atom *c = &e->atoms[s->centre];
 	if (m->p_fused_transmission < 0 || row->kind != PRED_BASE || c->element != 7 ||
-	    !c->aromatic || ring_index_of(&e->rings, k, s->centre) < 0 ||
+	    !c->aromatic || eng_ring_index_of(&e->rings, k, s->centre) < 0 ||
 	    (strcmp(row->group, "quinoline") != 0 && strcmp(row->group, "isoquinoline") != 0 &&
 	     strcmp(row->group, "pyrazine") != 0 && strcmp(row->group, "pyridazine") != 0))
 		return;
@@ -699,14 +699,14 @@ static void fused_ring_effects(term_list *tl, const eng_mol *e, const pred_model
 		int shared = 0, hetero = 0;
 		for (int j = 0; j < 6; j++) {
 			int b = R->atoms[R->offsets[q] + j];
-			shared += ring_index_of(R, k, b) >= 0;
+			shared += eng_ring_index_of(R, k, b) >= 0;
 			hetero += e->atoms[b].element != 6;
 		}
 		if (shared != 2 || hetero)
 			continue;
 		for (int j = 0; j < 6; j++) {
 			int a = R->atoms[R->offsets[q] + j], n;
-			if (ring_index_of(R, k, a) >= 0)
+			if (eng_ring_index_of(R, k, a) >= 0)
 				continue;
 			/* the peri carbon of a ring N (quinoline 8-, acridine 4-, cinnoline 8-),
 			 * whose group sits beside that N and acts through space (the H-bond of
@@ -718,7 +718,7 @@ static void fused_ring_effects(term_list *tl, const eng_mol *e, const pred_model
 			const int *nb = eng_nbrs(e, a, &n);
 			for (int t = 0; t < n; t++) {
 				int x = nb[t];
-				if (seen[x] || ring_index_of(R, q, x) >= 0 || in_match(s, x) ||
+				if (seen[x] || eng_ring_index_of(R, q, x) >= 0 || eng_in_match(s, x) ||
 				    fused_with(e, q, a, x) || fused_own_row(e, x, a))
 					continue;
 				sigmas g;
@@ -775,7 +775,7 @@ static void fused5_ring_effects(term_list *tl, const eng_mol *e, const pred_mode
 	const frag_site *row = &m->sites[s->row];
 	const obw_atom *c = &e->atoms[s->centre];
 	if (m->p_fused5_transmission < 0 || row->kind != PRED_BASE || c->element != 7 ||
-	    !c->aromatic || ring_index_of(&e->rings, k, s->centre) < 0 ||
+	    !c->aromatic || eng_ring_index_of(&e->rings, k, s->centre) < 0 ||
 	    (strcmp(row->group, "pyridine") != 0 && strcmp(row->group, "pyrimidine") != 0))
 		return;
 	const obw_rings *R = &e->rings;
@@ -785,17 +785,17 @@ static void fused5_ring_effects(term_list *tl, const eng_mol *e, const pred_mode
 			continue;
 		int shared = 0;
 		for (int j = 0; j < 5; j++)
-			shared += ring_index_of(R, k, R->atoms[R->offsets[q] + j]) >= 0;
+			shared += eng_ring_index_of(R, k, R->atoms[R->offsets[q] + j]) >= 0;
 		if (shared != 2)
 			continue;
 		for (int j = 0; j < 5; j++) {
 			int a = R->atoms[R->offsets[q] + j], n;
-			if (ring_index_of(R, k, a) >= 0 || e->atoms[a].element != 6)
+			if (eng_ring_index_of(R, k, a) >= 0 || e->atoms[a].element != 6)
 				continue;
 			const int *nb = eng_nbrs(e, a, &n);
 			for (int t = 0; t < n; t++) {
 				int x = nb[t];
-				if (seen[x] || ring_index_of(R, q, x) >= 0 || in_match(s, x) ||
+				if (seen[x] || eng_ring_index_of(R, q, x) >= 0 || eng_in_match(s, x) ||
 				    fused_with(e, q, a, x))
 					continue;
 				sigmas g;
@@ -823,8 +823,8 @@ static void fused5_ring_effects(term_list *tl, const eng_mol *e, const pred_mode
  * (diarylamine, aryl ketone). Equal shifts (symmetric rings) go to the lowest canonical rank
  * of the ipso atom, then of the ring's atoms, so that the atom order of the input never
  * decides. seen, queue and depth are the caller's (all clear on entry and on return). */
-static int hammett_ring(const eng_mol *e, const pred_model *m, const eng_site *s, int *ipso,
-			unsigned char *seen, int *queue, int *depth)
+int eng_hammett_ring(const eng_mol *e, const pred_model *m, const eng_site *s, int *ipso,
+		     unsigned char *seen, int *queue, int *depth)
 {
 	int k[RING_CHOICES], at[RING_CHOICES];
 	int n = hammett_rings(e, s, k, at), best = 0;
@@ -943,7 +943,7 @@ void eng_site_effects(term_list *tl, const eng_mol *e, const pred_worker *w, con
 	int *depth = malloc((e->nat + 1) * sizeof *depth);
 	if (seen && queue && depth) {
 		int ipso = -1, k = m->params[row->p_rho].value != 0
-					   ? hammett_ring(e, m, s, &ipso, seen, queue, depth)
+					   ? eng_hammett_ring(e, m, s, &ipso, seen, queue, depth)
 					   : -1;
 		if (k >= 0) {
 			ring_effects(tl, e, m, s, (size_t)k, ipso, seen, queue, depth);
@@ -956,85 +956,4 @@ void eng_site_effects(term_list *tl, const eng_mol *e, const pred_worker *w, con
 	free(seen);
 	free(queue);
 	free(depth);
-}
-
-/* The substituent row of the ionised form of group row k: the same id with its final H
- * read as "-" (COOH -> COO-, OH -> O-, SO3H -> SO3-); -1 where the table has none. */
-static int ionised_row(const pred_model *m, int k)
-{
-	char id[sizeof m->substs[k].id];
-	size_t len = strlen(m->substs[k].id);
-	if (len < 2 || m->substs[k].id[len - 1] != 'H')
-		return -1;
-	memcpy(id, m->substs[k].id, len + 1);
-	id[len - 1] = '-';
-	for (size_t r = 0; r < m->n_substs; r++)
-		if (!strcmp(m->substs[r].id, id))
-			return (int)r;
-	return -1;
-}
-
-/* The site sigma of a row at ring position pos (3 meta, 4 para). */
-static double site_sigma(const frag_site *row, const frag_subst *t, int pos)
-{
-	const double v[] = {t->sigma_p, t->sigma_p_minus, t->sigma_p_plus};
-	return pos == 3 ? t->sigma_m : v[row->sigma_para];
-}
-
-/* Pairs of site i, and the acid sites in the groups meta and para on its Hammett ring. */
-static void ionised_pairs_of(eng_mol *e, const pred_model *m, const double *micro, size_t i,
-			     unsigned char *seen, int *queue, int *depth)
-{
-	const eng_site *s = &e->sites[i];
-	const frag_site *row = &m->sites[s->row];
-	int ipso = -1;
-	if (row->sigma_para != 1)
-		return;
-	int k = m->params[row->p_rho].value != 0 ? hammett_ring(e, m, s, &ipso, seen, queue, depth)
-						 : -1;
-	if (k < 0)
-		return;
-	const obw_rings *R = &e->rings;
-	int i0 = ring_index_of(R, (size_t)k, ipso), size = R->sizes[k];
-	size_t n = e->n_sites;
-	for (size_t j = 0; j < n; j++) {
-		const eng_site *t = &e->sites[j];
-		int x = e->group_root[t->atom], g = e->group[t->atom];
-		if (j == i || x < 0 || x == t->atom || g < 0 || m->sites[t->row].kind != PRED_ACID ||
-		    micro[j] > micro[i] || (micro[j] == micro[i] && j > i) || in_match(s, x))
-			continue;
-		int at = -1, nb;
-		const int *b = eng_nbrs(e, x, &nb);
-		for (int q = 0; q < nb && at < 0; q++)
-			if (ring_index_of(R, (size_t)k, b[q]) >= 0 && !in_match(s, b[q]))
-				at = ring_index_of(R, (size_t)k, b[q]);
-		int pos = at >= 0 ? ring_position(e, s, (size_t)k, i0, at) : 0;
-		int r = ionised_row(m, g);
-		if ((pos != 3 && pos != 4) || (size == 7 && in_match(s, R->atoms[R->offsets[k] + at])) ||
-		    r < 0)
-			continue;
-		double rho = m->params[pos == 4 ? row->p_rho_para : row->p_rho].value;
-		double v = rho * (site_sigma(row, &m->substs[g], pos) -
-				  site_sigma(row, &m->substs[r], pos));
-		e->ion_pair[i * n + j] = e->ion_pair[j * n + i] = v;
-	}
-}
-
-int eng_ionised_pairs(eng_mol *e, const pred_model *m, const double *micro)
-{
-	size_t n = e->n_sites;
-	free(e->ion_pair);
-	e->ion_pair = malloc((n * n + 1) * sizeof *e->ion_pair);
-	unsigned char *seen = calloc(e->nat + 1, 1);
-	int *queue = malloc((e->nat + 1) * sizeof *queue);
-	int *depth = malloc((e->nat + 1) * sizeof *depth);
-	int rc = e->ion_pair && seen && queue && depth ? 0 : PRED_ENOMEM;
-	for (size_t k = 0; !rc && k < n * n; k++)
-		e->ion_pair[k] = NAN;
-	for (size_t i = 0; !rc && i < n; i++)
-		ionised_pairs_of(e, m, micro, i, seen, queue, depth);
-	free(seen);
-	free(queue);
-	free(depth);
-	return rc;
 }

@@ -132,6 +132,15 @@ double terms_sum(const term_list *tl);
 
 /* Hammett ring, Taft walk and corrections of site s. */
 void eng_site_effects(term_list *tl, const eng_mol *e, const pred_worker *w, const eng_site *s);
+/* Shared by effects.c and ionised_pairs.c: whether atom is one of site s's own atoms; the
+ * place of atom in ring k (-1 when absent); the Hammett ring of s (its index, -1 none; *ipso
+ * its atom bonded to or at the centre; seen, queue, depth clear nat+1 scratch arrays); the
+ * Hammett position (2 ortho, 3 meta, 4 para) of place j of ring k from the ipso place i0. */
+int eng_in_match(const eng_site *s, int atom);
+int eng_ring_index_of(const obw_rings *R, size_t k, int atom);
+int eng_hammett_ring(const eng_mol *e, const pred_model *m, const eng_site *s, int *ipso,
+		     unsigned char *seen, int *queue, int *depth);
+int eng_ring_position(const eng_mol *e, const eng_site *s, size_t k, int i0, int j);
 /* Fills e->ion_pair: where an acid site's group sits meta or para on the Hammett ring of a
  * site with a higher micro value (it ionises first), the pair shift is rho x (sigma of the
  * neutral group - sigma of its ionised row), which replaces the charge interaction. */
