@@ -154,6 +154,28 @@ void diamine_steps(const char *smiles, double *inter, double *low)
 	pred_result_free(r);
 }
 
+/* Sum of the terms whose detail holds `needle` on the first site of this group and kind. */
+double site_detail_sum(const char *smiles, const char *group, pred_kind kind,
+			 const char *needle)
+{
+	pred_result *r = NULL;
+	pred_error err = {0};
+	double v = 0;
+	if (pred_predict(&r, worker, smiles, PRED_FMT_SMILES, NULL, &err))
+		return NAN;
+	for (size_t i = 0; i < pred_result_site_count(r); i++) {
+		const pred_site *s = pred_result_site(r, i);
+		if (s->kind != kind || strcmp(s->group, group))
+			continue;
+		for (size_t k = 0; k < s->n_terms; k++)
+			if (s->terms[k].detail && strstr(s->terms[k].detail, needle))
+				v += s->terms[k].value;
+		break;
+	}
+	pred_result_free(r);
+	return v;
+}
+
 /* Sum of the terms named term on the first base site of this group, and how many there are
  * (the count of a per-match correction is the ratio to one match's value). */
 double base_term(const char *smiles, const char *group, const char *term, size_t *n)

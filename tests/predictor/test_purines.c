@@ -14,28 +14,6 @@
 static pred_model *model;
 static pred_worker *worker;
 
-/* Sum of the terms whose detail holds `needle` on the first site of this group and kind. */
-static double detail_sum(const char *smiles, const char *group, pred_kind kind,
-			 const char *needle)
-{
-	pred_result *r = NULL;
-	pred_error err = {0};
-	double v = 0;
-	if (pred_predict(&r, worker, smiles, PRED_FMT_SMILES, NULL, &err))
-		return NAN;
-	for (size_t i = 0; i < pred_result_site_count(r); i++) {
-		const pred_site *s = pred_result_site(r, i);
-		if (s->kind != kind || strcmp(s->group, group))
-			continue;
-		for (size_t k = 0; k < s->n_terms; k++)
-			if (s->terms[k].detail && strstr(s->terms[k].detail, needle))
-				v += s->terms[k].value;
-		break;
-	}
-	pred_result_free(r);
-	return v;
-}
-
 /* Acceptors on C8 of a purine reach the pyrimidine N through the fused imidazole:
  * 8-methylsulphonylpurine 0.42 (perrin_supp7323), 2-amino-8-trifluoromethylpurine 2.54
  * (perrin_supp7259), 2-amino-8-methylsulphonylpurine 2.08 (perrin_supp7254); Perrin 1972
@@ -48,9 +26,9 @@ static void test_purines__c8_acceptor_reaches_ring_n(void)
 	CHECK_NEAR(site_max("Nc1ncc2c(n1)nc([nH]2)C(F)(F)F", "pyrimidine", PRED_BASE), 2.54, 0.6);
 	CHECK_NEAR(site_max("Nc1ncc2c(n1)nc([nH]2)S(=O)(=O)C", "pyrimidine", PRED_BASE), 2.08,
 		   0.6);
-	CHECK(detail_sum("Nc1ncc2c(n1)nc([nH]2)C(F)(F)F", "pyrimidine", PRED_BASE,
+	CHECK(site_detail_sum("Nc1ncc2c(n1)nc([nH]2)C(F)(F)F", "pyrimidine", PRED_BASE,
 			 "fused five-ring") < -0.4);
-	CHECK(detail_sum("Oc1nc2c([nH]1)cncn2", "pyrimidine", PRED_BASE, "fused five-ring") == 0);
+	CHECK(site_detail_sum("Oc1nc2c([nH]1)cncn2", "pyrimidine", PRED_BASE, "fused five-ring") == 0);
 }
 
 /* The same on the pyridine N of an imidazo[4,5-c]pyridine: 2,6-dichloro-1H-imidazo[4,5-c]-
@@ -60,7 +38,7 @@ static void test_purines__c8_acceptor_reaches_ring_n(void)
 static void test_purines__imidazopyridine_c2_group(void)
 {
 	CHECK_NEAR(site_max("Clc1ncc2c(c1)[nH]c(n2)Cl", "pyridine", PRED_BASE), 1.35, 0.6);
-	CHECK(fabs(detail_sum("CSc1nc2c(n1C)ccnc2", "pyridine", PRED_BASE, "fused five-ring")) <
+	CHECK(fabs(site_detail_sum("CSc1nc2c(n1C)ccnc2", "pyridine", PRED_BASE, "fused five-ring")) <
 	      0.05);
 }
 
@@ -80,7 +58,7 @@ static void test_purines__biaryl_para_group(void)
 	CHECK(ome - no2 > 0.4);
 	CHECK_NEAR(site_max("Nc1ncc(cn1)c1ccc(cc1)[N+](=O)[O-]", "pyrimidine", PRED_BASE), 2.70,
 		   0.5);
-	CHECK(detail_sum("Nc1ncc(cn1)c1ccc(cc1)[N+](=O)[O-]", "pyrimidine", PRED_BASE,
+	CHECK(site_detail_sum("Nc1ncc(cn1)c1ccc(cc1)[N+](=O)[O-]", "pyrimidine", PRED_BASE,
 			 "on the 3-aryl") < -0.3);
 }
 
