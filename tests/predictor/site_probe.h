@@ -41,6 +41,7 @@ void diamine_steps(const char *smiles, double *inter, double *low);
 /* Sum of the terms whose detail holds needle on the first site of this group and kind. */
 double site_detail_sum(const char *smiles, const char *group, pred_kind kind,
 		       const char *needle);
+
 /* Sum of the terms named term on the first base site of this group, and how many there are
  * (the count of a per-match correction is the ratio to one match's value). */
 double base_term(const char *smiles, const char *group, const char *term, size_t *n);
