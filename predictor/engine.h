@@ -141,6 +141,31 @@ int eng_ring_index_of(const obw_rings *R, size_t k, int atom);
 int eng_hammett_ring(const eng_mol *e, const pred_model *m, const eng_site *s, int *ipso,
 		     unsigned char *seen, int *queue, int *depth);
 int eng_ring_position(const eng_mol *e, const eng_site *s, size_t k, int i0, int j);
+
+/* Substituent constants of a group (tabulated, or estimated from element and charge). */
+typedef struct sigmas {
+	double m, p, p_minus, p_plus, star;
+	const char *label;
+	int generic; /* 0 tabulated, 1 estimated from element and charge */
+} sigmas;
+
+/* Also shared with fused_effects.c (effects.c): whether ring k is an aromatic six-ring;
+ * whether atoms a and x share a ring other than ring k (fusion); the constants of the group
+ * rooted at x; marks the group of x as counted in seen; the inductive walk of a plain sp3
+ * carbon x on the ring at position pos (global.alkyl_inductive). */
+int eng_ring_is_aromatic6(const eng_mol *e, size_t k);
+int eng_fused_with(const eng_mol *e, size_t k, int a, int x);
+void eng_group_sigmas(sigmas *g, const eng_mol *e, const pred_model *m, int x);
+void eng_mark_group(unsigned char *seen, const eng_mol *e, int x);
+void eng_alkyl_c_effects(term_list *tl, const eng_mol *e, const pred_model *m,
+			 const eng_site *s, int x, int pos, unsigned char *seen, int *queue,
+			 int *depth);
+/* The groups on a ring fused to Hammett ring k of site s: benzo rings of quinoline-type ring
+ * N, aromatic five-rings of purine-type N (fused_effects.c). */
+void eng_fused_ring_effects(term_list *tl, const eng_mol *e, const pred_model *m,
+			    const eng_site *s, size_t k, unsigned char *seen);
+void eng_fused5_ring_effects(term_list *tl, const eng_mol *e, const pred_model *m,
+			     const eng_site *s, size_t k, unsigned char *seen);
 /* Fills e->ion_pair: where an acid site's group sits meta or para on the Hammett ring of a
  * site with a higher micro value (it ionises first), the pair shift is rho x (sigma of the
  * neutral group - sigma of its ionised row), which replaces the charge interaction. */
