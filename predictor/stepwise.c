@@ -75,20 +75,30 @@ static double pair_feature(const step_state *st, const eng_mol *e, const pred_mo
 	return f;
 }
 
+/* ln n!, summed rather than by lgamma, which writes the global signgam (a data race between
+ * the daemon's worker threads); n counts sites or blocks, so the sum is short. */
+static double log_factorial(int n)
+{
+	double v = 0;
+	for (int k = 2; k <= n; k++)
+		v += log((double)k);
+	return v;
+}
+
 /* log10 of the number of states like the one with cnt[b] sites ionised in each of the nb
  * blocks of m sites: the symmetry permutes the sites of a block and the blocks, so nb! / (the
  * blocks with equal counts among themselves) x product of C(m, cnt[b]). */
 static double log_orbit(const int *cnt, int nb, int m)
 {
-	double v = lgamma(nb + 1.0);
+	double v = log_factorial(nb);
 	for (int c = 0; c <= m; c++) {
 		int mult = 0;
 		for (int b = 0; b < nb; b++)
 			mult += cnt[b] == c;
-		v -= lgamma(mult + 1.0);
+		v -= log_factorial(mult);
 	}
 	for (int b = 0; b < nb; b++)
-		v += lgamma(m + 1.0) - lgamma(cnt[b] + 1.0) - lgamma(m - cnt[b] + 1.0);
+		v += log_factorial(m) - log_factorial(cnt[b]) - log_factorial(m - cnt[b]);
 	return v / log(10.0);
 }
 
