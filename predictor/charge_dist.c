@@ -112,12 +112,6 @@ static int ring_oxo_atom(const eng_mol *e, int c)
 	return -1;
 }
 
-/* An exocyclic =O or =S on ring atom c (the C=O of a ring amide). */
-static int has_ring_oxo(const eng_mol *e, int c)
-{
-	return ring_oxo_atom(e, c) >= 0;
-}
-
 /* A ring =N- (two-connected, no H, uncharged) of an aromatic six-ring. */
 static int is_ring_imine_n(const obw_atom *a)
 {
@@ -194,7 +188,7 @@ static int tautomer_charge_atom(const eng_mol *e, const pred_model *m, const eng
 		for (int j = 0; j < 6; j++)
 			if (ra[j] == s->atom)
 				i0 = j;
-		if (i0 < 0 || !has_ring_oxo(e, ra[(i0 + 3) % 6]) ||
+		if (i0 < 0 || ring_oxo_atom(e, ra[(i0 + 3) % 6]) < 0 ||
 		    e->atoms[ra[(i0 + 3) % 6]].element != 6)
 			continue;
 		for (int d = 2; d <= 4; d += 2) {
@@ -209,13 +203,13 @@ static int tautomer_charge_atom(const eng_mol *e, const pred_model *m, const eng
 
 /* Moves the charge of such sites to their tautomer's N for the interaction with the other
  * acid sites: both rows of each pair count the bonds between the two charges. Base partners
- * keep the N-H distance (an azinium beside the anion is the neutral tautomer itself). */
-static void tautomer_charges(eng_mol *e, const pred_model *m, int *tmp, int *queue)
+ * keep the N-H distance (an azinium beside the anion is the neutral tautomer itself). 0, or PRED_ENOMEM. */
+static int tautomer_charges(eng_mol *e, const pred_model *m, int *tmp, int *queue)
 {
 	size_t n = e->n_sites, nat = e->nat;
 	int *at = malloc((n + 1) * sizeof *at), any = 0;
 	if (!at)
-		return;
+		return PRED_ENOMEM;
 	for (size_t i = 0; i < n; i++) {
 		int x = tautomer_charge_atom(e, m, &e->sites[i]);
 		any |= x >= 0;
@@ -234,6 +228,7 @@ static void tautomer_charges(eng_mol *e, const pred_model *m, int *tmp, int *que
 		}
 	}
 	free(at);
+	return 0;
 }
 
 int eng_charge_distances(eng_mol *e, const pred_model *m)
@@ -245,7 +240,7 @@ int eng_charge_distances(eng_mol *e, const pred_model *m)
 	for (size_t i = 0; !rc && i < e->n_sites; i++)
 		charge_row(e, m, i, tmp, queue);
 	if (!rc)
-		tautomer_charges(e, m, tmp, queue);
+		rc = tautomer_charges(e, m, tmp, queue);
 	free(tmp);
 	free(queue);
 	return rc;

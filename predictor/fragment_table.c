@@ -308,7 +308,10 @@ static int parse_corr_row(pred_model *m, frag_corr *k, const tsv_table *t, const
 	char id[128];
 	snprintf(id, sizeof id, "corr.%s", k->id);
 	k->p_value = model_param_add(m, id, value, 0.5);
-	return k->p_value < 0 ? tsv_fail(err, PRED_ENOMEM, t, r->line, "out of memory") : 0;
+	if (k->p_value < 0)
+		return tsv_fail(err, PRED_ENOMEM, t, r->line, "out of memory");
+	m->params[k->p_value].pair = k->pair;
+	return 0;
 }
 
 static int parse_corrs(pred_model *m, const tsv_table *t, pred_error *err)

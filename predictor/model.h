@@ -16,6 +16,7 @@ typedef struct pred_param {
 	double prior_sd; /* ridge prior width; 0 = fixed, not fitted */
 	int n;           /* training rows that informed it (0 = not fitted) */
 	double rmse_cv;  /* cross-validated rmse of the class, 0 when unknown */
+	int pair;        /* CORR_PAIR_* of the pair row it scales (CORR_PAIR_NONE for others) */
 } pred_param;
 
 typedef enum { SIGMA_PLAIN = 0, SIGMA_MINUS = 1, SIGMA_PLUS = 2 } sigma_scale;

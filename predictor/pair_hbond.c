@@ -115,10 +115,7 @@ static int pair_param(const eng_mol *e, const pred_worker *w, size_t i, size_t j
 
 int eng_pair_is_charge(const pred_model *m, int param)
 {
-	for (size_t k = 0; k < m->n_corrs; k++)
-		if (m->corrs[k].p_value == param)
-			return m->corrs[k].pair == CORR_PAIR_CHARGE;
-	return 0;
+	return m->params[param].pair == CORR_PAIR_CHARGE;
 }
 
 int eng_pair_row_holds(const eng_mol *e, const pred_worker *w, size_t k, size_t i)
