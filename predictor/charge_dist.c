@@ -99,7 +99,7 @@ static void charge_row(eng_mol *e, const pred_model *m, size_t i, int *tmp, int 
 }
 
 /* The exocyclic =O or =S of ring carbon c (the C=O of a ring amide), or -1. */
-static int ring_oxo_atom(const eng_mol *e, int c)
+int eng_ring_oxo_atom(const eng_mol *e, int c)
 {
 	int n;
 	const int *nb = eng_nbrs(e, c, &n);
@@ -141,7 +141,7 @@ static int fused_amide_oxygen(const eng_mol *e, int n)
 	int nn, o = -1, fused = 0;
 	const int *nb = eng_nbrs(e, n, &nn);
 	for (int i = 0; i < nn; i++) {
-		int c = nb[i], x = ring_oxo_atom(e, c), nc;
+		int c = nb[i], x = eng_ring_oxo_atom(e, c), nc;
 		if (e->atoms[c].element != 6 || !e->atoms[c].aromatic)
 			return -1;
 		if (x >= 0) {
@@ -188,7 +188,7 @@ static int tautomer_charge_atom(const eng_mol *e, const pred_model *m, const eng
 		for (int j = 0; j < 6; j++)
 			if (ra[j] == s->atom)
 				i0 = j;
-		if (i0 < 0 || ring_oxo_atom(e, ra[(i0 + 3) % 6]) < 0 ||
+		if (i0 < 0 || eng_ring_oxo_atom(e, ra[(i0 + 3) % 6]) < 0 ||
 		    e->atoms[ra[(i0 + 3) % 6]].element != 6)
 			continue;
 		for (int d = 2; d <= 4; d += 2) {
@@ -203,7 +203,8 @@ static int tautomer_charge_atom(const eng_mol *e, const pred_model *m, const eng
 
 /* Moves the charge of such sites to their tautomer's N for the interaction with the other
  * acid sites: both rows of each pair count the bonds between the two charges. Base partners
- * keep the N-H distance (an azinium beside the anion is the neutral tautomer itself). 0, or PRED_ENOMEM. */
+ * keep the N-H distance (an azinium beside the anion is the neutral tautomer itself).
+ * Returns 0 or PRED_ENOMEM. */
 static int tautomer_charges(eng_mol *e, const pred_model *m, int *tmp, int *queue)
 {
 	size_t n = e->n_sites, nat = e->nat;

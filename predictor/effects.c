@@ -73,25 +73,26 @@ int eng_ring_index_of(const obw_rings *R, size_t k, int atom)
 	return -1;
 }
 
-int eng_ring_is_aromatic6(const eng_mol *e, size_t k)
+/* Ring k has `size` atoms, all aromatic. */
+static int ring_is_aromatic_n(const eng_mol *e, size_t k, int size)
 {
-	if (e->rings.sizes[k] != 6)
+	if (e->rings.sizes[k] != size)
 		return 0;
-	for (int j = 0; j < 6; j++)
+	for (int j = 0; j < size; j++)
 		if (!e->atoms[e->rings.atoms[e->rings.offsets[k] + j]].aromatic)
 			return 0;
 	return 1;
 }
 
+int eng_ring_is_aromatic6(const eng_mol *e, size_t k)
+{
+	return ring_is_aromatic_n(e, k, 6);
+}
+
 /* An aromatic seven-ring: the Hammett ring of a tropolone (ring_position). */
 static int ring_is_aromatic7(const eng_mol *e, size_t k)
 {
-	if (e->rings.sizes[k] != 7)
-		return 0;
-	for (int j = 0; j < 7; j++)
-		if (!e->atoms[e->rings.atoms[e->rings.offsets[k] + j]].aromatic)
-			return 0;
-	return 1;
+	return ring_is_aromatic_n(e, k, 7);
 }
 
 enum { RING_CHOICES = 8 };

@@ -85,6 +85,8 @@ typedef struct eng_mol {
 /* Breadth-first bond counts from atom `from` into dist (-1: not connected); queue holds nat. */
 void eng_bfs(const eng_mol *e, int from, int *dist, int *queue);
 
+/* The exocyclic =O or =S of ring atom c (the C=O of a ring amide), or -1 (charge_dist.c). */
+int eng_ring_oxo_atom(const eng_mol *e, int c);
 /* Fills e->qdist from e->dist: an azinium's charge is shared with its ortho and para ring
  * carbons, so its row counts the bonds from those plus one to a base site where shorter. */
 int eng_charge_distances(eng_mol *e, const pred_model *m);

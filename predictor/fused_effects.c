@@ -149,16 +149,9 @@ static int ring_is_azole5(const eng_mol *e, size_t q)
 	if (R->sizes[q] != 5)
 		return 0;
 	for (int j = 0; j < 5; j++) {
-		int a = R->atoms[R->offsets[q] + j], n;
-		if (!e->atoms[a].aromatic)
+		int a = R->atoms[R->offsets[q] + j];
+		if (!e->atoms[a].aromatic || eng_ring_oxo_atom(e, a) >= 0)
 			return 0;
-		const int *nb = eng_nbrs(e, a, &n);
-		for (int t = 0; t < n; t++) {
-			const obw_atom *o = &e->atoms[nb[t]];
-			if ((o->element == 8 || o->element == 16) && o->degree == 1 &&
-			    o->hcount == 0 && o->charge == 0 && !o->in_ring)
-				return 0;
-		}
 	}
 	return 1;
 }
