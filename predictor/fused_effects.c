@@ -75,6 +75,38 @@ static int fused_own_row(const eng_mol *e, int x, int a)
 	return n_atom->charge == 0;
 }
 
+/* The groups on atom a of ring q fused to the site's Hammett ring, each as param x rho x
+ * sigma: sigma_p (the row's para scale) where conj, else sigma_m; where names the route in
+ * the term. Leaves what is seen, in ring q, the site's own, fused at a, and, with own_rows,
+ * a group that has correction rows of its own (fused_own_row). Marks what it counted. */
+static void fused_groups_at(term_list *tl, const eng_mol *e, const pred_model *m,
+			    const eng_site *s, size_t q, int a, int param, int conj,
+			    int own_rows, const char *where, unsigned char *seen)
+{
+	const frag_site *row = &m->sites[s->row];
+	double rho = m->params[row->p_rho].value;
+	int n;
+	const int *nb = eng_nbrs(e, a, &n);
+	for (int t = 0; t < n; t++) {
+		int x = nb[t];
+		if (seen[x] || eng_ring_index_of(&e->rings, q, x) >= 0 || eng_in_match(s, x) ||
+		    eng_fused_with(e, q, a, x) || (own_rows && fused_own_row(e, x, a)))
+			continue;
+		sigmas g;
+		eng_group_sigmas(&g, e, m, x);
+		const double v[] = {g.p, g.p_minus, g.p_plus};
+		double sigma = conj ? v[row->sigma_para] : g.m;
+		terms_add(tl, m, g.generic ? "generic_substituent" : "hammett", param, -rho * sigma,
+			  "%s %s, %s %.2f, rho %.2f", where, g.label, conj ? "sigma_p" : "sigma_m",
+			  sigma, rho);
+		if (g.generic) {
+			tl->n_generic++;
+			tl->extra_var += 0.16 * 0.16;
+		}
+		eng_mark_group(seen, e, x);
+	}
+}
+
 /* Substituents on a benzo ring (aromatic, all carbon) fused to the Hammett ring of a
  * quinoline-, isoquinoline-, quinoxaline-, cinnoline- or phthalazine-type ring N (and both
  * outer rings of an acridine or phenazine): they reach the N through the ring fusion as
@@ -94,7 +126,6 @@ void eng_fused_ring_effects(term_list *tl, const eng_mol *e, const pred_model *m
 	     strcmp(row->group, "pyrazine") != 0 && strcmp(row->group, "pyridazine") != 0))
 		return;
 	const obw_rings *R = &e->rings;
-	double rho = m->params[row->p_rho].value;
 	for (size_t q = 0; q < R->n_rings; q++) {
 		if (q == k || !eng_ring_is_aromatic6(e, q))
 			continue;
@@ -107,7 +138,7 @@ void eng_fused_ring_effects(term_list *tl, const eng_mol *e, const pred_model *m
 		if (shared != 2 || hetero)
 			continue;
 		for (int j = 0; j < 6; j++) {
-			int a = R->atoms[R->offsets[q] + j], n;
+			int a = R->atoms[R->offsets[q] + j];
 			if (eng_ring_index_of(R, k, a) >= 0)
 				continue;
 			/* the peri carbon of a ring N (quinoline 8-, acridine 4-, cinnoline 8-),
@@ -116,27 +147,8 @@ void eng_fused_ring_effects(term_list *tl, const eng_mol *e, const pred_model *m
 			int dist = ring_pair_distance(e, k, q, s->centre, a);
 			if (dist < 0 || peri_to_ring_n(e, k, a))
 				continue;
-			int conj = dist % 2;
-			const int *nb = eng_nbrs(e, a, &n);
-			for (int t = 0; t < n; t++) {
-				int x = nb[t];
-				if (seen[x] || eng_ring_index_of(R, q, x) >= 0 || eng_in_match(s, x) ||
-				    eng_fused_with(e, q, a, x) || fused_own_row(e, x, a))
-					continue;
-				sigmas g;
-				eng_group_sigmas(&g, e, m, x);
-				const double v[] = {g.p, g.p_minus, g.p_plus};
-				double sigma = conj ? v[row->sigma_para] : g.m;
-				terms_add(tl, m, g.generic ? "generic_substituent" : "hammett",
-					  m->p_fused_transmission, -rho * sigma,
-					  "fused-ring %s, %s %.2f, rho %.2f", g.label,
-					  conj ? "sigma_p" : "sigma_m", sigma, rho);
-				if (g.generic) {
-					tl->n_generic++;
-					tl->extra_var += 0.16 * 0.16;
-				}
-				eng_mark_group(seen, e, x);
-			}
+			fused_groups_at(tl, e, m, s, q, a, m->p_fused_transmission, dist % 2, 1,
+					"fused-ring", seen);
 		}
 	}
 }
@@ -174,7 +186,6 @@ void eng_fused5_ring_effects(term_list *tl, const eng_mol *e, const pred_model *
 	    (strcmp(row->group, "pyridine") != 0 && strcmp(row->group, "pyrimidine") != 0))
 		return;
 	const obw_rings *R = &e->rings;
-	double rho = m->params[row->p_rho].value;
 	for (size_t q = 0; q < R->n_rings; q++) {
 		if (q == k || !ring_is_azole5(e, q))
 			continue;
@@ -184,29 +195,11 @@ void eng_fused5_ring_effects(term_list *tl, const eng_mol *e, const pred_model *
 		if (shared != 2)
 			continue;
 		for (int j = 0; j < 5; j++) {
-			int a = R->atoms[R->offsets[q] + j], n;
+			int a = R->atoms[R->offsets[q] + j];
 			if (eng_ring_index_of(R, k, a) >= 0 || e->atoms[a].element != 6)
 				continue;
-			const int *nb = eng_nbrs(e, a, &n);
-			for (int t = 0; t < n; t++) {
-				int x = nb[t];
-				if (seen[x] || eng_ring_index_of(R, q, x) >= 0 || eng_in_match(s, x) ||
-				    eng_fused_with(e, q, a, x))
-					continue;
-				sigmas g;
-				eng_group_sigmas(&g, e, m, x);
-				const double v[] = {g.p, g.p_minus, g.p_plus};
-				double sigma = v[row->sigma_para];
-				terms_add(tl, m, g.generic ? "generic_substituent" : "hammett",
-					  m->p_fused5_transmission, -rho * sigma,
-					  "fused five-ring %s, sigma_p %.2f, rho %.2f", g.label,
-					  sigma, rho);
-				if (g.generic) {
-					tl->n_generic++;
-					tl->extra_var += 0.16 * 0.16;
-				}
-				eng_mark_group(seen, e, x);
-			}
+			fused_groups_at(tl, e, m, s, q, a, m->p_fused5_transmission, 1, 0,
+					"fused five-ring", seen);
 		}
 	}
 }
