@@ -154,31 +154,10 @@ void diamine_steps(const char *smiles, double *inter, double *low)
 	pred_result_free(r);
 }
 
-/* Sum of the terms whose detail holds `needle` on the first site of this group and kind. */
-double site_detail_sum(const char *smiles, const char *group, pred_kind kind,
-			 const char *needle)
-{
-	pred_result *r = NULL;
-	pred_error err = {0};
-	double v = 0;
-	if (pred_predict(&r, worker, smiles, PRED_FMT_SMILES, NULL, &err))
-		return NAN;
-	for (size_t i = 0; i < pred_result_site_count(r); i++) {
-		const pred_site *s = pred_result_site(r, i);
-		if (s->kind != kind || strcmp(s->group, group))
-			continue;
-		for (size_t k = 0; k < s->n_terms; k++)
-			if (s->terms[k].detail && strstr(s->terms[k].detail, needle))
-				v += s->terms[k].value;
-		break;
-	}
-	pred_result_free(r);
-	return v;
-}
-
-/* Sum of the terms named term on the first base site of this group, and how many there are
- * (the count of a per-match correction is the ratio to one match's value). */
-double base_term(const char *smiles, const char *group, const char *term, size_t *n)
+/* Sum of the terms of the first site of this group and kind whose name is term (when term
+ * is not NULL) and whose detail holds needle (when needle is not NULL); *n counts them. */
+static double first_site_terms(const char *smiles, const char *group, pred_kind kind,
+			       const char *term, const char *needle, size_t *n)
 {
 	pred_result *r = NULL;
 	pred_error err = {0};
@@ -188,17 +167,32 @@ double base_term(const char *smiles, const char *group, const char *term, size_t
 		return NAN;
 	for (size_t i = 0; i < pred_result_site_count(r); i++) {
 		const pred_site *s = pred_result_site(r, i);
-		if (s->kind != PRED_BASE || strcmp(s->group, group))
+		if (s->kind != kind || strcmp(s->group, group))
 			continue;
-		for (size_t k = 0; k < s->n_terms; k++)
-			if (!strcmp(s->terms[k].term, term)) {
-				v += s->terms[k].value;
-				++*n;
-			}
+		for (size_t k = 0; k < s->n_terms; k++) {
+			const pred_term *t = &s->terms[k];
+			if ((term && strcmp(t->term, term)) ||
+			    (needle && (!t->detail || !strstr(t->detail, needle))))
+				continue;
+			v += t->value;
+			++*n;
+		}
 		break;
 	}
 	pred_result_free(r);
 	return v;
+}
+
+double site_detail_sum(const char *smiles, const char *group, pred_kind kind,
+		       const char *needle)
+{
+	size_t n;
+	return first_site_terms(smiles, group, kind, NULL, needle, &n);
+}
+
+double base_term(const char *smiles, const char *group, const char *term, size_t *n)
+{
+	return first_site_terms(smiles, group, PRED_BASE, term, NULL, n);
 }
 
 /* The highest macroscopic pKa of a molecule (its last step), NAN when it has none. */
