@@ -10,6 +10,7 @@
 
 #include "harness.h"
 #include "predictor.h"
+#include "site_probe.h"
 
 static pred_worker *worker;
 
@@ -114,20 +115,12 @@ static void test_phosphorus_acids__statistics_of_equivalent_groups(void)
 
 int main(void)
 {
-	const char *src = getenv("PKAD_SOURCE_DIR");
-	char dir[1024];
-	snprintf(dir, sizeof dir, "%s/fragments", src ? src : ".");
 	pred_model *model = NULL;
-	pred_error err = {0};
-	if (pred_global_init(&err) || pred_model_load(&model, dir, &err) ||
-	    pred_worker_new(&worker, model, &err)) {
-		fprintf(stderr, "setup: %s\n", err.msg);
+	if (probe_setup(&model, &worker))
 		return 1;
-	}
 	RUN(test_phosphorus_acids__phosphoric_acid_steps);
 	RUN(test_phosphorus_acids__geminal_oh_pair);
 	RUN(test_phosphorus_acids__statistics_of_equivalent_groups);
-	pred_worker_free(worker);
-	pred_model_free(model);
+	probe_teardown(model, worker);
 	return harness_done();
 }
