@@ -15,28 +15,50 @@
 static pred_model *model;
 static pred_worker *worker;
 
-/* Sum of the terms of the phenol site whose term name or detail starts with key; NAN when
- * the molecule has no phenol site. */
-static double phenol_term(const char *smiles, const char *key)
+/* How a term is picked: by its name or the start of its detail (phenol rows), the start of
+ * its detail as a whole word (benzoic rows), or anywhere in its detail (walk terms). */
+typedef enum { PICK_NAME_OR_PREFIX, PICK_WORD_PREFIX, PICK_SUBSTRING } pick;
+
+static int picked(const pred_term *t, const char *key, pick how)
+{
+	size_t len = strlen(key);
+	const char *d = t->detail;
+	switch (how) {
+	case PICK_NAME_OR_PREFIX:
+		return (t->term && !strcmp(t->term, key)) || (d && !strncmp(d, key, len));
+	case PICK_WORD_PREFIX:
+		return d && !strncmp(d, key, len) && (!d[len] || d[len] == ' ');
+	default:
+		return d && strstr(d, key);
+	}
+}
+
+/* Sum of the picked terms of the first acid site of this group; NAN when it has none. */
+static double acid_term(const char *smiles, const char *group, const char *key, pick how)
 {
 	pred_result *r = NULL;
 	pred_error err = {0};
 	double v = NAN;
-	size_t len = strlen(key);
 	if (pred_predict(&r, worker, smiles, PRED_FMT_SMILES, NULL, &err))
 		return v;
 	for (size_t i = 0; i < pred_result_site_count(r) && isnan(v); i++) {
 		const pred_site *s = pred_result_site(r, i);
-		if (s->kind != PRED_ACID || strcmp(s->group, "phenol"))
+		if (s->kind != PRED_ACID || strcmp(s->group, group))
 			continue;
 		v = 0;
 		for (size_t k = 0; k < s->n_terms; k++)
-			if ((s->terms[k].term && !strcmp(s->terms[k].term, key)) ||
-			    (s->terms[k].detail && !strncmp(s->terms[k].detail, key, len)))
+			if (picked(&s->terms[k], key, how))
 				v += s->terms[k].value;
 	}
 	pred_result_free(r);
 	return v;
+}
+
+/* Sum of the terms of the phenol site whose term name or detail starts with key; NAN when
+ * the molecule has no phenol site. */
+static double phenol_term(const char *smiles, const char *key)
+{
+	return acid_term(smiles, "phenol", key, PICK_NAME_OR_PREFIX);
 }
 
 /* The carboxyl of 4- and 3-hydroxybenzoic acid ionises first: the phenol step sees the
@@ -82,24 +104,7 @@ static void test_aromatic_acids__fused_aza_phenols(void)
 /* Sum of the terms of the first benzoic acid site whose detail starts with key. */
 static double benzoic_term(const char *smiles, const char *key)
 {
-	pred_result *r = NULL;
-	pred_error err = {0};
-	double v = NAN;
-	size_t len = strlen(key);
-	if (pred_predict(&r, worker, smiles, PRED_FMT_SMILES, NULL, &err))
-		return v;
-	for (size_t i = 0; i < pred_result_site_count(r) && isnan(v); i++) {
-		const pred_site *s = pred_result_site(r, i);
-		if (s->kind != PRED_ACID || strcmp(s->group, "benzoic_acid"))
-			continue;
-		v = 0;
-		for (size_t k = 0; k < s->n_terms; k++)
-			if (s->terms[k].detail && !strncmp(s->terms[k].detail, key, len) &&
-			    (!s->terms[k].detail[len] || s->terms[k].detail[len] == ' '))
-				v += s->terms[k].value;
-	}
-	pred_result_free(r);
-	return v;
+	return acid_term(smiles, "benzoic_acid", key, PICK_WORD_PREFIX);
 }
 
 /* A salicylic acid with a second ortho group other than O: the twisted carboxylate takes a
@@ -156,22 +161,7 @@ static void test_aromatic_acids__peri_naphthoic(void)
 /* Sum of the terms of the first carboxylic acid site whose detail contains key. */
 static double carboxyl_term(const char *smiles, const char *key)
 {
-	pred_result *r = NULL;
-	pred_error err = {0};
-	double v = NAN;
-	if (pred_predict(&r, worker, smiles, PRED_FMT_SMILES, NULL, &err))
-		return v;
-	for (size_t i = 0; i < pred_result_site_count(r) && isnan(v); i++) {
-		const pred_site *s = pred_result_site(r, i);
-		if (s->kind != PRED_ACID || strcmp(s->group, "carboxylic_acid"))
-			continue;
-		v = 0;
-		for (size_t k = 0; k < s->n_terms; k++)
-			if (s->terms[k].detail && strstr(s->terms[k].detail, key))
-				v += s->terms[k].value;
-	}
-	pred_result_free(r);
-	return v;
+	return acid_term(smiles, "carboxylic_acid", key, PICK_SUBSTRING);
 }
 
 /* The meta and para groups of an aryloxyacetic acid's ring reach the carboxyl through the O
