@@ -51,7 +51,7 @@ static void test_lactams__two_and_four_pyridone(void)
  * amidine), so the =N- takes little of the N-H anion's charge: cytosine N1-H 12.16
  * (perrin1613), 4-ethylaminopyrimidine-2(1H)-thione 11.15 (perrin1730), 6-methylamino-
  * pyrimidin-4(3H)-one 10.49 (perrin1750), all above 2-pyrimidinone 9.2 (perrin1741); the
- * thione stands 4.05 above pyrimidine-2(1H)-thione 7.1 (perrin1751), predicted about 3.2 (it
+ * thione stands 4.05 above pyrimidine-2(1H)-thione 7.1 (perrin1751), predicted about 3.0 (it
  * is still some 0.8 too acidic, so it is checked against its parent only).
  * Isocytosine (2-aminopyrimidin-4(3H)-one, the amino carbon beside the N-H) 9.54 (perrin1612)
  * stays near 2-pyrimidinone and takes no such term. */
