@@ -1,9 +1,10 @@
 /* SPDX-License-Identifier: MIT */
 /* test_amine_arms.c: the beta arms of aliphatic ammonium ions (corrections.tsv
  * amine_beta_hydroxyl, amine_beta_cyano, amine_dipeptide_n_terminus, amine_amino_diacid,
- * acid_peptide_acylamino, amine_alpha_tertiary_amide, amine_cage_quaternary_beta; substituents.tsv
- * O_P_ester) against reference rows. Values are Perrin 1965 and its supplement via the
- * IUPAC dataset (entry named, data/iupac-pka.csv and data/handbook-bases.csv). */
+ * acid_peptide_acylamino, amine_alpha_tertiary_amide, amine_cage_quaternary_beta,
+ * amine_beta_thiol, amine_beta_carboxyl; substituents.tsv O_P_ester) against reference rows.
+ * Values are Perrin 1965 and its supplement, and Serjeant & Dempsey 1979, via the IUPAC dataset
+ * (entry named, data/iupac-pka.csv and data/handbook-bases.csv). */
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -154,6 +155,22 @@ static void test_amine_arms__cage_quaternary_beta(void)
 	CHECK(corr_value("CN1CCCCC1", "tertiary_amine", "amine_cage_quaternary_beta") == 0);
 }
 
+/* Cysteamine 10.74 (serjeant2106; the ammonium step after the thiolate) and beta-alanine
+ * 10.25, N,N-dimethyl-beta-alanine 9.85 (perrin3068, perrin3120): the anion three or four bonds
+ * from the ammonium counts less than its full interaction (amine_beta_thiol,
+ * amine_beta_carboxyl). Cysteine methyl ester and aspartic acid, whose alpha carbon bears the
+ * carbonyl, take neither term. */
+static void test_amine_arms__beta_anion(void)
+{
+	CHECK(corr_value("NCCS", "primary_amine", "amine_beta_thiol") < -0.2);
+	CHECK(corr_value("NCCC(=O)O", "primary_amine", "amine_beta_carboxyl") < -0.2);
+	CHECK_NEAR(site_pka("NCCS", "primary_amine", PRED_BASE), 10.74, 0.4);
+	CHECK_NEAR(site_pka("NCCC(=O)O", "primary_amine", PRED_BASE), 10.25, 0.4);
+	CHECK_NEAR(site_pka("CN(CCC(=O)O)C", "tertiary_amine", PRED_BASE), 9.85, 0.4);
+	CHECK(corr_value("COC(=O)[C@H](CS)N", "primary_amine", "amine_beta_thiol") == 0);
+	CHECK(corr_value("OC(=O)C[C@@H](C(=O)O)N", "primary_amine", "amine_beta_carboxyl") == 0);
+}
+
 int main(void)
 {
 	if (probe_setup(&model, &worker))
@@ -166,6 +183,7 @@ int main(void)
 	RUN(test_amine_arms__peptide_acid);
 	RUN(test_amine_arms__tertiary_amide);
 	RUN(test_amine_arms__cage_quaternary_beta);
+	RUN(test_amine_arms__beta_anion);
 	probe_teardown(model, worker);
 	return harness_done();
 }
