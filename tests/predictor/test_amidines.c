@@ -40,12 +40,29 @@ static void test_amidines__n_azaaryl_no_acceptor(void)
 	CHECK_NEAR(v, 5.15, 0.8);
 }
 
+/* 3,4-Dihydroquinazoline 9.17 (perrin2261), its 4-methyl derivative 9.15 (perrin2270) and
+ * 3-methyl-3,4-dihydroquinazoline 9.22 (perrin2269): the benzo ring is the N1 aryl and also
+ * bonded to C4, so the walk counts it twice (amidine_fused_aryl_twice gives the second count
+ * back). The 4-hydroxy covalent hydrate (8-chloro-, 6.55, perrin_supp6808) takes no term. */
+static void test_amidines__dihydroquinazoline(void)
+{
+	CHECK(corr_value("C1=Nc2c(CN1)cccc2", "amidine", "amidine_fused_aryl_twice") > 0.2);
+	CHECK(corr_value("CN1C=Nc2c(C1)cccc2", "amidine", "amidine_fused_aryl_twice") > 0.2);
+	CHECK_NEAR(site_pka("C1=Nc2c(CN1)cccc2", "amidine", PRED_BASE), 9.17, 0.4);
+	CHECK_NEAR(site_pka("CC1NC=Nc2c1cccc2", "amidine", PRED_BASE), 9.15, 0.4);
+	CHECK_NEAR(site_pka("CN1C=Nc2c(C1)cccc2", "amidine", PRED_BASE), 9.22, 0.4);
+	CHECK(corr_value("OC1NC=Nc2c1cccc2Cl", "amidine", "amidine_fused_aryl_twice") == 0);
+	/* an open N-aryl formamidine has no second path to the ring */
+	CHECK(corr_value("CN(C)C=Nc1ccccc1", "amidine", "amidine_fused_aryl_twice") == 0);
+}
+
 int main(void)
 {
 	if (probe_setup(&model, &worker))
 		return 1;
 	RUN(test_amidines__n_azolyl_cyano);
 	RUN(test_amidines__n_azaaryl_no_acceptor);
+	RUN(test_amidines__dihydroquinazoline);
 	probe_teardown(model, worker);
 	return harness_done();
 }

@@ -1,8 +1,10 @@
 /* SPDX-License-Identifier: MIT */
 /* test_amine_arms.c: the beta arms of aliphatic ammonium ions (corrections.tsv
  * amine_beta_hydroxyl, amine_beta_cyano, amine_dipeptide_n_terminus, amine_amino_diacid,
- * acid_peptide_acylamino; substituents.tsv O_P_ester) against reference rows. Values are Perrin 1965 and its supplement via the
- * IUPAC dataset (entry named, data/iupac-pka.csv and data/handbook-bases.csv). */
+ * acid_peptide_acylamino, amine_alpha_tertiary_amide, amine_cage_quaternary_beta,
+ * amine_beta_thiol, amine_beta_carboxyl; substituents.tsv O_P_ester) against reference rows.
+ * Values are Perrin 1965 and its supplement, and Serjeant & Dempsey 1979, via the IUPAC dataset
+ * (entry named, data/iupac-pka.csv and data/handbook-bases.csv). */
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -121,6 +123,54 @@ static void test_amine_arms__peptide_acid(void)
 	CHECK_NEAR(site_pka(lgg, "carboxylic_acid", PRED_ACID), 3.28, 0.4);
 }
 
+/* Sarcosine dimethylamide 8.82 (perrin0020) and glycylproline 8.575 (perrin3289) against
+ * sarcosinamide 8.31 (perrin0012): the ammonium beside a tertiary amide
+ * carbonyl lies about 0.5 higher than beside CONH2 or CONHR (amine_alpha_tertiary_amide);
+ * the primary amide and glycylglycine take no term. */
+static void test_amine_arms__tertiary_amide(void)
+{
+	const char *sar_nme2 = "CNCC(=O)N(C)C";
+	const char *gly_pro = "NCC(=O)N1CCC[C@H]1C(=O)O";
+	CHECK(corr_value(sar_nme2, "secondary_amine", "amine_alpha_tertiary_amide") > 0.2);
+	CHECK(corr_value(gly_pro, "primary_amine", "amine_alpha_tertiary_amide") > 0.2);
+	CHECK_NEAR(site_pka(sar_nme2, "secondary_amine", PRED_BASE), 8.82, 0.4);
+	CHECK_NEAR(site_max(gly_pro, "primary_amine", PRED_BASE), 8.575, 0.4);
+	CHECK(corr_value("CNCC(=O)N", "secondary_amine", "amine_alpha_tertiary_amide") == 0);
+	CHECK(corr_value("NCC(=O)NCC(=O)O", "primary_amine", "amine_alpha_tertiary_amide") == 0);
+}
+
+/* Strychnine 8.26 (perrin2967) and brucine 8.28 (perrin2871): the ring ammonium beside the
+ * quaternary spiro carbon of the cage is poorly solvated (amine_cage_quaternary_beta);
+ * quinuclidine and 1-methylpiperidine take no term. */
+static void test_amine_arms__cage_quaternary_beta(void)
+{
+	const char *strychnine =
+	    "O=C1C[C@@H]2OCC=C3[C@H]4[C@@H]2[C@@H]2N1c1ccccc1[C@]12CCN([C@H]1C4)C3";
+	const char *brucine = "COc1cc2c(cc1OC)N1[C@@H]3[C@@]42CCN2[C@H]4C[C@@H]4[C@H]3"
+			      "[C@H](CC1=O)OCC=C4C2";
+	CHECK(corr_value(strychnine, "tertiary_amine", "amine_cage_quaternary_beta") < -0.5);
+	CHECK_NEAR(site_pka(strychnine, "tertiary_amine", PRED_BASE), 8.26, 0.6);
+	CHECK_NEAR(site_pka(brucine, "tertiary_amine", PRED_BASE), 8.28, 0.6);
+	CHECK(corr_value("C1CN2CCC1CC2", "tertiary_amine", "amine_cage_quaternary_beta") == 0);
+	CHECK(corr_value("CN1CCCCC1", "tertiary_amine", "amine_cage_quaternary_beta") == 0);
+}
+
+/* Cysteamine 10.74 (serjeant2106; the ammonium step after the thiolate) and beta-alanine
+ * 10.25, N,N-dimethyl-beta-alanine 9.85 (perrin3068, perrin3120): the anion three or four bonds
+ * from the ammonium counts less than its full interaction (amine_beta_thiol,
+ * amine_beta_carboxyl). Cysteine methyl ester and aspartic acid, whose alpha carbon bears the
+ * carbonyl, take neither term. */
+static void test_amine_arms__beta_anion(void)
+{
+	CHECK(corr_value("NCCS", "primary_amine", "amine_beta_thiol") < -0.2);
+	CHECK(corr_value("NCCC(=O)O", "primary_amine", "amine_beta_carboxyl") < -0.2);
+	CHECK_NEAR(site_pka("NCCS", "primary_amine", PRED_BASE), 10.74, 0.4);
+	CHECK_NEAR(site_pka("NCCC(=O)O", "primary_amine", PRED_BASE), 10.25, 0.4);
+	CHECK_NEAR(site_pka("CN(CCC(=O)O)C", "tertiary_amine", PRED_BASE), 9.85, 0.4);
+	CHECK(corr_value("COC(=O)[C@H](CS)N", "primary_amine", "amine_beta_thiol") == 0);
+	CHECK(corr_value("OC(=O)C[C@@H](C(=O)O)N", "primary_amine", "amine_beta_carboxyl") == 0);
+}
+
 int main(void)
 {
 	if (probe_setup(&model, &worker))
@@ -131,6 +181,9 @@ int main(void)
 	RUN(test_amine_arms__phosphate_ester);
 	RUN(test_amine_arms__amino_diacid);
 	RUN(test_amine_arms__peptide_acid);
+	RUN(test_amine_arms__tertiary_amide);
+	RUN(test_amine_arms__cage_quaternary_beta);
+	RUN(test_amine_arms__beta_anion);
 	probe_teardown(model, worker);
 	return harness_done();
 }
