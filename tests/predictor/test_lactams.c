@@ -305,6 +305,23 @@ static void test_lactams__thiadiazolethione_class(void)
 	CHECK(isnan(site_pka("Cc1nsc(=S)[nH]1", "pyrrole_nh", PRED_ACID)));
 }
 
+/* The ether O of a fused saturated ring beside the ring N of a 2-pyridone donates as an
+ * open-chain 6-alkoxy group does (corr.lactam_oxygen_fused_ether; the Hammett ring skips
+ * fused-ring atoms): O-protonation of 2,3-dihydro-4-methylfuro[2,3-b]pyridin-6(7H)-one 1.95
+ * (perrin_supp6755) and of 3,4-dihydro-5,8-dimethylpyrano[2,3-b]pyridin-7(8H)-one 1.65
+ * (perrin_supp6779), both read 1.06 without the row; 4-methyl-2-pyridone takes none. */
+static void test_lactams__fused_ether_beside_the_ring_n(void)
+{
+	const char *furo = "Oc1cc(C)c2c(n1)OCC2";
+	double o_furo = site_pka(furo, "oxygen_base", PRED_BASE);
+	double o_pyrano = site_pka("Cc1cc(=O)n(c2c1CCCO2)C", "oxygen_base", PRED_BASE);
+	CHECK(!isnan(o_furo) && !isnan(o_pyrano));
+	CHECK_NEAR(o_furo, 1.95, 0.5);
+	CHECK_NEAR(o_pyrano, 1.65, 0.5);
+	CHECK(site_term_count(furo, "oxygen_base", PRED_BASE, "fused_ring") == 1);
+	CHECK(site_term_count("Cc1cc(=O)[nH]cc1", "oxygen_base", PRED_BASE, "fused_ring") == 0);
+}
+
 int main(void)
 {
 	if (probe_setup(&model, &worker))
@@ -323,6 +340,7 @@ int main(void)
 	RUN(test_lactams__fused_amide_anion_on_o);
 	RUN(test_lactams__amidine_acyl_split);
 	RUN(test_lactams__thiadiazolethione_class);
+	RUN(test_lactams__fused_ether_beside_the_ring_n);
 	probe_teardown(model, worker);
 	return harness_done();
 }

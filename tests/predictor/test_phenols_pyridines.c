@@ -216,6 +216,24 @@ static void test_phenols_pyridines__tropolone_ring(void)
 		   site_pka("Oc1cccc(C)cc1=O", "phenol", PRED_ACID), 0.01);
 }
 
+/* An OH or alkoxy group para to the phenol OH acts with its unexalted sigma0, not the sigma_p
+ * of the table (corr.phenol_para_oxy_donor): hydroquinone 9.835 (serjeant2828), 4-ethoxyphenol
+ * 10.13 (serjeant4043) and 3-bromo-4-methoxyphenol 9.09 (serjeant3675) read 0.25-0.55 high
+ * without the row; an amino group (its sigma_p- is already small) and a meta methoxy take none. */
+static void test_phenols_pyridines__para_oxy_donor(void)
+{
+	double hq = site_min("Oc1ccc(cc1)O", "phenol", PRED_ACID);
+	double ethoxy = site_pka("CCOc1ccc(cc1)O", "phenol", PRED_ACID);
+	double bromo = site_pka("COc1ccc(cc1Br)O", "phenol", PRED_ACID);
+	CHECK(!isnan(hq) && !isnan(ethoxy) && !isnan(bromo));
+	CHECK_NEAR(hq, 9.835, 0.35);
+	CHECK_NEAR(ethoxy, 10.13, 0.3);
+	CHECK_NEAR(bromo, 9.09, 0.35);
+	CHECK(site_term_count("CCOc1ccc(cc1)O", "phenol", PRED_ACID, "resonance") == 1);
+	CHECK(site_term_count("Nc1ccc(cc1)O", "phenol", PRED_ACID, "resonance") == 0);
+	CHECK(site_term_count("COc1cccc(c1)O", "phenol", PRED_ACID, "resonance") == 0);
+}
+
 int main(void)
 {
 	if (probe_setup(&model, &worker))
@@ -231,6 +249,7 @@ int main(void)
 	RUN(test_phenols_pyridines__para_alkenyl);
 	RUN(test_phenols_pyridines__ortho_imine_n);
 	RUN(test_phenols_pyridines__tropolone_ring);
+	RUN(test_phenols_pyridines__para_oxy_donor);
 	probe_teardown(model, worker);
 	return harness_done();
 }
