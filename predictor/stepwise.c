@@ -434,8 +434,9 @@ static int titrate(term_list *tls, step_state *st, const eng_mol *e, const pred_
  * order, with values vi and vj for ionising either first from the same state, are the
  * macroscopic pair pK1 = -log10(10^-vi + 10^-vj), pK2 = the sum less pK1 (common practice,
  * the two-site microstate scheme; for equal values it is the log 4 of a symmetric pair).
- * i takes pK1 - vi, j the opposite; pairs further apart than that pair get less than 0.005
- * and no term. Equivalent sites keep their own statistical term. */
+ * i takes pK1 - vi, j the opposite; sites more than about 3 units apart get less than 0.005
+ * and no term. Equivalent sites keep their own statistical term. Only acid pairs: the base
+ * parents (azines with two ring N) were fitted without it. */
 static void near_equivalent_pairs(term_list *tls, step_state *st, const eng_mol *e,
 				  const pred_model *m)
 {
@@ -455,7 +456,11 @@ static void near_equivalent_pairs(term_list *tls, step_state *st, const eng_mol 
 			set_state(st, e, m, mask);
 			double vi = step_value(st, e, m, i, &stat, &inter, &pf, &pp);
 			double vj = step_value(st, e, m, j, &stat, &inter, &pf, &pp);
-			t = -log10(1.0 + pow(10.0, vi - vj));
+			/* a state the zwitterion penalty keeps out (an acid beside an ammonium) is
+			 * no partner, nor a pair the path order took against its values */
+			if (vi <= vj + 1.0 &&
+			    zwitterion_penalty(st, e, m, i) == zwitterion_penalty(st, e, m, j))
+				t = -log10(1.0 + pow(10.0, vi - vj));
 		}
 		mask |= 1u << i;
 		if (fabs(t) < 0.005)
