@@ -146,6 +146,14 @@ static void test_near_equivalent_acids__bulky_glutaric_hbond(void)
 	           0, 1e-9);
 	CHECK_NEAR(site_detail_sum(et, "carboxylic_acid", PRED_ACID, "diacid_glutaric_3_3_dialkyl"),
 	           0, 1e-9);
+	/* likewise dipropylmalonic acid takes diacid_malonic_gem_dialkyl alone (every malonic
+	 * row's detail holds "diacid_malonic"), dimethylmalonic acid diacid_malonic */
+	const char *pr = "CCCC(C(=O)O)(C(=O)O)CCC", *dm = "CC(C)(C(=O)O)C(=O)O";
+	double gem =
+	    site_detail_sum(pr, "carboxylic_acid", PRED_ACID, "diacid_malonic_gem_dialkyl");
+	CHECK(gem < -0.5);
+	CHECK_NEAR(site_detail_sum(pr, "carboxylic_acid", PRED_ACID, "diacid_malonic"), gem, 1e-9);
+	CHECK(site_detail_sum(dm, "carboxylic_acid", PRED_ACID, "diacid_malonic") < 0);
 }
 
 int main(void)
