@@ -16,8 +16,6 @@ typedef struct step_state {
 	int *block;    /* first site of the block of each site: equivalent sites on one centre */
 	int *cnt;      /* scratch: ionised sites per block (indexed by the block's first site) */
 	size_t *order; /* titration order, when chosen over all paths (best_order) */
-	size_t *seq;   /* the sites in the order they were ionised */
-	size_t n_seq;
 	double *w;     /* n x n: eng_pair_shift of each pair, computed once */
 } step_state;
 
@@ -205,7 +203,6 @@ static void take_step(term_list *tls, step_state *st, const eng_mol *e, const pr
 	st->done[i] = 1;
 	st->charge[i] -= 1;
 	st->eq_done[st->leader[i]]++;
-	st->seq[st->n_seq++] = i;
 }
 
 /* Whether site i goes before site j among equal values: by the canonical rank of the site
@@ -429,49 +426,6 @@ static int titrate(term_list *tls, step_state *st, const eng_mol *e, const pred_
 	return rc;
 }
 
-/* Statistical term of two acid sites that are not equivalent but ionise at close
- * values (4-methylphthalic acid, methylsuccinic acid): two consecutive steps i, j of the
- * order, with values vi and vj for ionising either first from the same state, are the
- * macroscopic pair pK1 = -log10(10^-vi + 10^-vj), pK2 = the sum less pK1 (common practice,
- * the two-site microstate scheme; for equal values it is the log 4 of a symmetric pair).
- * i takes pK1 - vi, j the opposite; sites more than about 3 units apart get less than 0.005
- * and no term. Equivalent sites keep their own statistical term. Only acid pairs: the base
- * parents (azines with two ring N) were fitted without it. */
-static void near_equivalent_pairs(term_list *tls, step_state *st, const eng_mol *e,
-				  const pred_model *m)
-{
-	size_t n = e->n_sites;
-	if (n > ORDER_SITES_MAX || st->n_seq != n)
-		return;
-	unsigned mask = 0;
-	for (size_t q = 0; q < n; q++) {
-		size_t i = st->seq[q];
-		size_t j = q + 1 < n ? st->seq[q + 1] : i;
-		double t = 0;
-		if (j != i && st->leader[i] != st->leader[j] &&
-		    m->sites[e->sites[i].row].kind == PRED_ACID &&
-		    m->sites[e->sites[j].row].kind == PRED_ACID) {
-			int pp;
-			double stat, inter, pf;
-			set_state(st, e, m, mask);
-			double vi = step_value(st, e, m, i, &stat, &inter, &pf, &pp);
-			double vj = step_value(st, e, m, j, &stat, &inter, &pf, &pp);
-			/* a state the zwitterion penalty keeps out (an acid beside an ammonium) is
-			 * no partner, nor a pair the path order took against its values */
-			if (vi <= vj + 1.0 &&
-			    zwitterion_penalty(st, e, m, i) == zwitterion_penalty(st, e, m, j))
-				t = -log10(1.0 + pow(10.0, vi - vj));
-		}
-		mask |= 1u << i;
-		if (fabs(t) < 0.005)
-			continue;
-		terms_add_text(&tls[i], m, "statistical", -1, t, "near-equivalent site");
-		terms_add_text(&tls[j], m, "statistical", -1, -t, "near-equivalent site");
-		mask |= 1u << j;
-		q++;
-	}
-}
-
 int eng_stepwise(term_list *tls, const eng_mol *e, const pred_model *m, const int *symclass)
 {
 	size_t n = e->n_sites;
@@ -485,12 +439,10 @@ int eng_stepwise(term_list *tls, const eng_mol *e, const pred_model *m, const in
 	st.block = calloc(n + 1, sizeof *st.block);
 	st.cnt = calloc(n + 1, sizeof *st.cnt);
 	st.order = calloc(n + 1, sizeof *st.order);
-	st.seq = calloc(n + 1, sizeof *st.seq);
-	st.n_seq = 0;
 	st.w = malloc((n * n + 1) * sizeof *st.w);
 	int rc = st.micro && st.charge && st.done && st.eq_n && st.eq_done && st.leader &&
 			 st.block && st.cnt &&
-			 st.order && st.seq && st.w
+			 st.order && st.w
 		 ? 0
 		 : PRED_ENOMEM;
 	if (!rc) {
@@ -505,8 +457,6 @@ int eng_stepwise(term_list *tls, const eng_mol *e, const pred_model *m, const in
 		/* with two window sites the path order is the greedy one (the final state is
 		 * common, so the first step decides) */
 		rc = titrate(tls, &st, e, m);
-		if (!rc)
-			near_equivalent_pairs(tls, &st, e, m);
 	}
 	free(st.micro);
 	free(st.charge);
@@ -517,7 +467,6 @@ int eng_stepwise(term_list *tls, const eng_mol *e, const pred_model *m, const in
 	free(st.block);
 	free(st.cnt);
 	free(st.order);
-	free(st.seq);
 	free(st.w);
 	return rc;
 }
